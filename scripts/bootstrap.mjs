@@ -1,0 +1,55 @@
+// Entry point of `npm start`, `npm run dev`, `npm test` and `npm run bench`.
+// Plain JavaScript on purpose: it must run on a fresh clone before anything is installed.
+import { spawnSync } from 'node:child_process';
+import { existsSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const command = process.argv[2] ?? 'start';
+const entries = {
+  start: 'scripts/start.ts',
+  dev: 'scripts/start.ts',
+  test: 'scripts/test.ts',
+  bench: 'bench/run.ts',
+};
+
+function log(line) {
+  process.stdout.write(`[likeness] ${line}\n`);
+}
+
+function dependenciesNeedInstall() {
+  const installed = path.join(root, 'node_modules', '.package-lock.json');
+  if (!existsSync(installed)) return 'node_modules is missing';
+  const lock = path.join(root, 'package-lock.json');
+  if (existsSync(lock) && statSync(lock).mtimeMs > statSync(installed).mtimeMs + 1000) {
+    return 'package-lock.json is newer than node_modules';
+  }
+  return null;
+}
+
+const reason = dependenciesNeedInstall();
+if (reason) {
+  const fresh = !existsSync(path.join(root, 'node_modules'));
+  const args = fresh && existsSync(path.join(root, 'package-lock.json')) ? ['ci'] : ['install'];
+  log(`${reason}: running npm ${args.join(' ')} (a minute or two the first time)...`);
+  const result = spawnSync('npm', [...args, '--no-audit', '--no-fund'], {
+    cwd: root,
+    stdio: 'inherit',
+  });
+  if (result.status !== 0) {
+    log(`npm ${args[0]} failed; see the messages above.`);
+    process.exit(result.status ?? 1);
+  }
+}
+
+const entry = entries[command];
+if (!entry) {
+  log(`unknown command "${command}"; use one of ${Object.keys(entries).join(', ')}`);
+  process.exit(2);
+}
+
+process.env.LIKENESS_MODE = command;
+const { register } = await import('tsx/esm/api');
+register();
+await import(pathToFileURL(path.join(root, entry)).href);

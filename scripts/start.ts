@@ -1,0 +1,132 @@
+import { createHash } from 'node:crypto';
+import type { Server } from 'node:http';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { systemClock } from '../server/adapters/clock';
+import { startMailCatcher, type MailCatcher } from '../server/adapters/mail/mail-catcher';
+import { createSmtpMailer } from '../server/adapters/mail/mailer';
+import { createApp, type AppDeps } from '../server/app';
+import { parseEnvironment, toAppConfig } from '../server/config';
+import { createDatabase } from '../server/db/database';
+import { migrateToLatest } from '../server/db/migrator';
+import { createLogger } from '../server/lib/logger';
+import { DEMO_PASSWORD, demoCoordinators, demoStaff, firstDemoSitterEmail, loadDemoScenario } from './lib/demo-scenario';
+import { chooseDataFolder, ensureDatabase, startCluster, type RunningCluster } from './lib/postgres-cluster';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const mode = process.env.LIKENESS_MODE === 'dev' ? 'dev' : 'start';
+const say = (line: string) => process.stdout.write(`[likeness] ${line}\n`);
+
+const raw = parseEnvironment({ NODE_ENV: mode === 'dev' ? 'development' : 'production', ...process.env });
+const config = toAppConfig(raw);
+const logger = createLogger(raw.LOG_LEVEL);
+
+const cleanups: Array<() => Promise<void> | void> = [];
+let shuttingDown = false;
+
+async function shutDown(signal: string, code = 0) {
+  if (shuttingDown) return;
+  shuttingDown = true;
+  say(`${signal}: shutting down...`);
+  for (const cleanup of cleanups.reverse()) {
+    try {
+      await cleanup();
+    } catch (error) {
+      logger.error({ err: error }, 'cleanup step failed');
+    }
+  }
+  say('stopped cleanly.');
+  process.exit(code);
+}
+process.on('SIGINT', () => void shutDown('SIGINT'));
+process.on('SIGTERM', () => void shutDown('SIGTERM'));
+
+async function openDatabase(): Promise<string> {
+  if (raw.DATABASE_URL) {
+    say('Using the PostgreSQL server given in DATABASE_URL.');
+    return raw.DATABASE_URL;
+  }
+  const projectKey = createHash('sha256').update(root).digest('hex').slice(0, 12);
+  const dataFolder = chooseDataFolder(
+    path.resolve(root, raw.LIKENESS_DATA_DIR, 'postgres'),
+    `/var/lib/likeness/${projectKey}/postgres`,
+  );
+  const cluster: RunningCluster = await startCluster({ dataFolder, port: raw.PG_PORT, log: say });
+  if (cluster.startedHere) cleanups.push(() => cluster.stop());
+  say(`PostgreSQL data lives in ${cluster.dataFolder} (127.0.0.1:${cluster.port}).`);
+  return ensureDatabase(cluster, 'likeness');
+}
+
+async function frontend(): Promise<AppDeps['frontend']> {
+  const vite = await import('vite');
+  if (mode === 'dev') {
+    const server = await vite.createServer({ root, server: { middlewareMode: true }, appType: 'spa' });
+    cleanups.push(() => server.close());
+    return { kind: 'middleware', handler: server.middlewares };
+  }
+  say('Building the browser app...');
+  await vite.build({ root, logLevel: 'warn' });
+  return { kind: 'static', folder: path.join(root, 'dist') };
+}
+
+async function main() {
+  const databaseUrl = await openDatabase();
+  const applied = await migrateToLatest(databaseUrl);
+  if (applied.length > 0) say(`Applied migrations: ${applied.join(', ')}`);
+
+  const db = createDatabase(databaseUrl);
+  cleanups.push(() => db.destroy());
+
+  if (raw.LOAD_DEMO && (await loadDemoScenario(db))) {
+    say('Loaded the demo scenario (Halvorsen & Pike Engineering, 240 people in three offices).');
+  }
+
+  let catcher: MailCatcher | null = null;
+  let smtpUrl = raw.SMTP_URL;
+  if (!smtpUrl) {
+    catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT);
+    const started = catcher;
+    cleanups.push(() => started.close());
+    smtpUrl = catcher.smtpUrl;
+    say(`Local mail catcher listening on ${catcher.smtpUrl}: read it at ${config.publicUrl}/studio/mailbox`);
+  }
+  const mailer = createSmtpMailer({ smtpUrl, from: config.mailFrom });
+  cleanups.push(() => mailer.close());
+
+  const { app } = createApp({
+    db,
+    config,
+    mailer,
+    mailbox: catcher,
+    clock: systemClock,
+    logger,
+    frontend: await frontend(),
+  });
+  const server: Server = await new Promise((resolve, reject) => {
+    const listening = app.listen(raw.PORT, raw.HOST, () => resolve(listening));
+    listening.once('error', reject);
+  });
+  cleanups.push(
+    () =>
+      new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      }),
+  );
+
+  say('');
+  say(`Likeness is running at ${config.publicUrl}  (${mode === 'dev' ? 'development, hot reload' : 'built app'})`);
+  if (raw.LOAD_DEMO) {
+    say(`Demo sign-ins (password "${DEMO_PASSWORD}" for every staff account):`);
+    for (const member of demoStaff) say(`  ${member.role.padEnd(13)} ${member.email}`);
+    for (const coordinator of demoCoordinators) say(`  coordinator   ${coordinator.email}  (${coordinator.client})`);
+    say(`  sitter        ${firstDemoSitterEmail()}  (no password: ask for a link on the sign-in page,`);
+    say('                then open it from the studio admin\'s mailbox)');
+  }
+  say('Press Ctrl-C to stop.');
+}
+
+main().catch((error: unknown) => {
+  say(error instanceof Error ? error.message : String(error));
+  void shutDown('error', 1);
+});

@@ -1,0 +1,104 @@
+import { randomUUID } from 'node:crypto';
+import { simpleParser } from 'mailparser';
+import { SMTPServer } from 'smtp-server';
+
+export interface CaughtMail {
+  id: string;
+  receivedAt: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string;
+}
+
+export interface Mailbox {
+  list(): CaughtMail[];
+  get(id: string): CaughtMail | undefined;
+}
+
+export interface MailCatcher extends Mailbox {
+  port: number;
+  smtpUrl: string;
+  /** Resolves with the first message to `address` received after `since` (or already held). */
+  waitFor(address: string, options?: { timeoutMs?: number; subjectIncludes?: string }): Promise<CaughtMail>;
+  clear(): void;
+  close(): Promise<void>;
+}
+
+/** A local stand-in for a real SMTP server: keeps every message in memory, newest first. */
+export async function startMailCatcher(port = 0, keep = 500): Promise<MailCatcher> {
+  const messages: CaughtMail[] = [];
+  const waiters = new Set<() => void>();
+
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['STARTTLS', 'AUTH'],
+    logger: false,
+    onData(stream, session, callback) {
+      simpleParser(stream)
+        .then((parsed) => {
+          const to = session.envelope.rcptTo.map((recipient) => recipient.address.toLowerCase());
+          messages.unshift({
+            id: randomUUID(),
+            receivedAt: new Date().toISOString(),
+            from: parsed.from?.text ?? '',
+            to,
+            subject: parsed.subject ?? '',
+            text: parsed.text ?? '',
+            html: typeof parsed.html === 'string' ? parsed.html : '',
+          });
+          messages.splice(keep);
+          for (const wake of waiters) wake();
+          callback();
+        })
+        .catch((error: Error) => callback(error));
+    },
+  });
+
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(port, '127.0.0.1', () => resolve());
+  });
+  const address = server.server.address();
+  const boundPort = typeof address === 'object' && address ? address.port : port;
+
+  const find = (address: string, subjectIncludes?: string) =>
+    messages.find(
+      (message) =>
+        message.to.includes(address.toLowerCase()) &&
+        (!subjectIncludes || message.subject.includes(subjectIncludes)),
+    );
+
+  return {
+    port: boundPort,
+    smtpUrl: `smtp://127.0.0.1:${boundPort}`,
+    list: () => [...messages],
+    get: (id) => messages.find((message) => message.id === id),
+    clear: () => {
+      messages.length = 0;
+    },
+    waitFor(address, options = {}) {
+      const timeoutMs = options.timeoutMs ?? 5000;
+      return new Promise((resolve, reject) => {
+        const check = () => {
+          const found = find(address, options.subjectIncludes);
+          if (!found) return false;
+          cleanup();
+          resolve(found);
+          return true;
+        };
+        const timer = setTimeout(() => {
+          cleanup();
+          reject(new Error(`No mail to ${address} within ${timeoutMs} ms`));
+        }, timeoutMs);
+        const cleanup = () => {
+          clearTimeout(timer);
+          waiters.delete(check);
+        };
+        if (!check()) waiters.add(check);
+      });
+    },
+    close: () => new Promise((resolve) => server.close(() => resolve())),
+  };
+}

@@ -1,0 +1,116 @@
+import { randomUUID } from 'node:crypto';
+import path from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { type RequestHandler } from 'express';
+import helmet from 'helmet';
+import type { Clock } from './adapters/clock';
+import type { Mailbox } from './adapters/mail/mail-catcher';
+import type { Mailer } from './adapters/mail/mailer';
+import type { AppConfig } from './config';
+import type { Db } from './db/database';
+import { AppError } from './lib/errors';
+import { errorHandler, notFoundHandler } from './lib/error-handler';
+import type { Logger } from './lib/logger';
+import { RouteTable } from './lib/route-table';
+import { loadViewer } from './lib/session-cookie';
+import { registerAuthRoutes } from './modules/auth/auth.routes';
+import { createAuthService } from './modules/auth/auth.service';
+import { registerClientsRoutes } from './modules/clients/clients.routes';
+import { createClientsService } from './modules/clients/clients.service';
+import { registerDevMailboxRoutes } from './modules/dev-mailbox/dev-mailbox.routes';
+import { registerHealthRoutes } from './modules/health/health.routes';
+import { registerSittersRoutes } from './modules/sitters/sitters.routes';
+import { registerUsersRoutes } from './modules/users/users.routes';
+import { createUsersService } from './modules/users/users.service';
+
+export interface AppDeps {
+  db: Db;
+  config: AppConfig;
+  mailer: Mailer;
+  /** The local catcher's inbox in development and tests; null with a real SMTP server. */
+  mailbox: Mailbox | null;
+  clock: Clock;
+  logger: Logger;
+  /** How the browser app is served: built files, Vite's dev middleware, or not at all. */
+  frontend?: { kind: 'static'; folder: string } | { kind: 'middleware'; handler: RequestHandler };
+}
+
+/** Mutations must be JSON: a cross-site form cannot send that without a preflight. */
+const requireJsonForMutations: RequestHandler = (req, _res, next) => {
+  const mutating = !['GET', 'HEAD', 'OPTIONS'].includes(req.method);
+  const hasBody = Number(req.get('content-length') ?? 0) > 0 || req.get('transfer-encoding');
+  if (mutating && hasBody && !req.is('application/json')) {
+    next(new AppError('unsupported_media_type', 415, 'Send the request as JSON.'));
+    return;
+  }
+  next();
+};
+
+export function createApp(deps: AppDeps) {
+  const { db, config, mailer, mailbox, clock, logger } = deps;
+  const app = express();
+  app.set('trust proxy', config.trustProxy);
+  app.disable('x-powered-by');
+
+  app.use((req, res, next) => {
+    req.requestId = randomUUID();
+    res.setHeader('X-Request-Id', req.requestId);
+    next();
+  });
+  app.use(
+    helmet({
+      contentSecurityPolicy:
+        deps.frontend?.kind === 'middleware'
+          ? false
+          : {
+              directives: {
+                'img-src': ["'self'", 'data:', 'blob:'],
+                'media-src': ["'self'", 'blob:'],
+                'upgrade-insecure-requests': null,
+              },
+            },
+      strictTransportSecurity: false,
+    }),
+  );
+
+  const auth = createAuthService({ db, clock, mailer, config, logger });
+  const users = createUsersService({ db, auth });
+  const clients = createClientsService({ db });
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(cookieParser());
+  api.use(requireJsonForMutations);
+  api.use(loadViewer((token) => auth.resolveViewer(token)));
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+
+  const routes = new RouteTable(api);
+  registerHealthRoutes(routes, db, mailbox ? 'local catcher' : 'smtp');
+  registerAuthRoutes(routes, auth, db, config);
+  registerUsersRoutes(routes, users);
+  registerClientsRoutes(routes, clients);
+  registerSittersRoutes(routes, db);
+  registerDevMailboxRoutes(routes, mailbox);
+  api.use(notFoundHandler());
+  api.use(errorHandler(logger));
+
+  app.use('/api', api);
+
+  if (deps.frontend?.kind === 'static') {
+    const folder = deps.frontend.folder;
+    app.use(express.static(folder, { index: false, maxAge: '1h' }));
+    // Client-side routes all answer with the app's page.
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(folder, 'index.html'));
+    });
+  } else if (deps.frontend?.kind === 'middleware') {
+    app.use(deps.frontend.handler);
+  }
+  app.use(errorHandler(logger));
+
+  return { app, routeTable: routes.entries };
+}

@@ -1,0 +1,78 @@
+import { z } from 'zod';
+
+const booleanFromEnv = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((value) => value === 'true' || value === '1' || value === 'yes');
+
+/** Every setting the server reads from the environment, with its default. */
+export const configSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  PUBLIC_URL: z.url().optional(),
+  DATABASE_URL: z.url().optional(),
+  SMTP_URL: z.url().optional(),
+  MAIL_FROM: z.string().min(3).default('Likeness <no-reply@likeness.invalid>'),
+  SESSION_TTL_HOURS: z.coerce.number().positive().default(168),
+  INVITATION_LINK_TTL_HOURS: z.coerce.number().positive().default(168),
+  SIGN_IN_LINK_TTL_MINUTES: z.coerce.number().positive().default(30),
+  SET_PASSWORD_LINK_TTL_HOURS: z.coerce.number().positive().default(72),
+  PASSWORD_RESET_TTL_MINUTES: z.coerce.number().positive().default(60),
+  RATE_LIMIT_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
+  RATE_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
+  TRUST_PROXY: booleanFromEnv.default(false),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  LIKENESS_DATA_DIR: z.string().min(1).default('.data'),
+  PG_PORT: z.coerce.number().int().min(1024).max(65535).default(54329),
+  LOAD_DEMO: booleanFromEnv.default(true),
+  MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+});
+
+export type RawConfig = z.infer<typeof configSchema>;
+
+export interface AppConfig {
+  env: RawConfig['NODE_ENV'];
+  publicUrl: string;
+  mailFrom: string;
+  trustProxy: boolean;
+  logLevel: RawConfig['LOG_LEVEL'];
+  sessionTtlMs: number;
+  invitationLinkTtlMs: number;
+  signInLinkTtlMs: number;
+  setPasswordLinkTtlMs: number;
+  passwordResetTtlMs: number;
+  rateLimit: { windowMs: number; perAddress: number; perAccount: number };
+}
+
+const HOUR = 3_600_000;
+const MINUTE = 60_000;
+
+export function parseEnvironment(env: NodeJS.ProcessEnv): RawConfig {
+  const result = configSchema.safeParse(env);
+  if (!result.success) {
+    const lines = result.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Invalid configuration in the environment:\n${lines.join('\n')}`);
+  }
+  return result.data;
+}
+
+export function toAppConfig(raw: RawConfig): AppConfig {
+  return {
+    env: raw.NODE_ENV,
+    publicUrl: (raw.PUBLIC_URL ?? `http://localhost:${raw.PORT}`).replace(/\/$/, ''),
+    mailFrom: raw.MAIL_FROM,
+    trustProxy: raw.TRUST_PROXY,
+    logLevel: raw.LOG_LEVEL,
+    sessionTtlMs: raw.SESSION_TTL_HOURS * HOUR,
+    invitationLinkTtlMs: raw.INVITATION_LINK_TTL_HOURS * HOUR,
+    signInLinkTtlMs: raw.SIGN_IN_LINK_TTL_MINUTES * MINUTE,
+    setPasswordLinkTtlMs: raw.SET_PASSWORD_LINK_TTL_HOURS * HOUR,
+    passwordResetTtlMs: raw.PASSWORD_RESET_TTL_MINUTES * MINUTE,
+    rateLimit: {
+      windowMs: raw.RATE_LIMIT_WINDOW_MINUTES * MINUTE,
+      perAddress: raw.RATE_LIMIT_PER_ADDRESS,
+      perAccount: raw.RATE_LIMIT_PER_ACCOUNT,
+    },
+  };
+}

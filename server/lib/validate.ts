@@ -1,0 +1,23 @@
+import { z } from 'zod';
+import { AppError } from './errors';
+
+/** Parses input at the edge; a failure becomes a 400 with a message per field. */
+export function parseInput<Schema extends z.ZodType>(schema: Schema, input: unknown): z.output<Schema> {
+  const result = schema.safeParse(input);
+  if (result.success) return result.data;
+  const flat = z.flattenError(result.error);
+  throw new AppError('invalid_input', 400, 'Some fields need attention.', {
+    fieldErrors: flat.fieldErrors,
+    formErrors: flat.formErrors,
+  });
+}
+
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** A path id that is not even well formed names nothing: answer 404, as for an unknown one. */
+export function parseId(value: unknown, what: string): string {
+  if (typeof value !== 'string' || !uuidPattern.test(value)) {
+    throw new AppError('not_found', 404, `${what} was not found.`);
+  }
+  return value.toLowerCase();
+}

@@ -1,0 +1,100 @@
+import type { Db } from '../../db/database';
+import type { AppConfig } from '../../config';
+import { createRateLimits } from '../../lib/rate-limit';
+import type { RouteTable } from '../../lib/route-table';
+import { viewerOf } from '../../lib/route-table';
+import { clearSessionCookie, requestMeta, setSessionCookie } from '../../lib/session-cookie';
+import { parseInput } from '../../lib/validate';
+import {
+  linkTokenSchema,
+  passwordResetRequestSchema,
+  setPasswordRequestSchema,
+  signInLinkRequestSchema,
+  signInRequestSchema,
+} from '../../schemas/auth';
+import type { AuthService } from './auth.service';
+
+const LINK_SENT =
+  'If that address belongs to someone on a roster, a sign-in link is on its way. Check your inbox.';
+const RESET_SENT =
+  'If that address belongs to an active account, a link to choose a new password is on its way.';
+
+export function registerAuthRoutes(routes: RouteTable, auth: AuthService, db: Db, config: AppConfig) {
+  const signInLimits = createRateLimits(db, 'sign-in', config.rateLimit);
+  const linkLimits = createRateLimits(db, 'sign-in-link', config.rateLimit);
+  const resetLimits = createRateLimits(db, 'password-reset', config.rateLimit);
+  const redeemLimits = createRateLimits(db, 'link-redeem', config.rateLimit, { byAccount: false });
+
+  routes.add(
+    'post',
+    '/session',
+    'public',
+    async (req, res) => {
+      const input = parseInput(signInRequestSchema, req.body);
+      const started = await auth.signIn(input, requestMeta(req));
+      setSessionCookie(req, res, started.token, started.viewer.sessionExpiresAt);
+      res.status(201).json(await auth.describe(started.viewer));
+    },
+    ...signInLimits,
+  );
+
+  routes.add('get', '/session', ['studio_admin', 'photographer', 'coordinator', 'sitter'], async (req, res) => {
+    res.json(await auth.describe(viewerOf(req)));
+  });
+
+  routes.add('delete', '/session', 'public', async (req, res) => {
+    if (req.viewer) await auth.signOut(req.viewer.sessionId);
+    clearSessionCookie(req, res);
+    res.status(204).end();
+  });
+
+  routes.add(
+    'post',
+    '/sign-in-links',
+    'public',
+    async (req, res) => {
+      const { email } = parseInput(signInLinkRequestSchema, req.body);
+      await auth.requestSitterLink(email);
+      res.status(202).json({ message: LINK_SENT });
+    },
+    ...linkLimits,
+  );
+
+  routes.add(
+    'post',
+    '/sign-in-links/redeem',
+    'public',
+    async (req, res) => {
+      const { token } = parseInput(linkTokenSchema, req.body);
+      const started = await auth.redeemSitterLink(token, requestMeta(req));
+      setSessionCookie(req, res, started.token, started.viewer.sessionExpiresAt);
+      res.status(201).json(await auth.describe(started.viewer));
+    },
+    ...redeemLimits,
+  );
+
+  routes.add(
+    'post',
+    '/password-resets',
+    'public',
+    async (req, res) => {
+      const { email } = parseInput(passwordResetRequestSchema, req.body);
+      await auth.requestPasswordReset(email);
+      res.status(202).json({ message: RESET_SENT });
+    },
+    ...resetLimits,
+  );
+
+  routes.add(
+    'post',
+    '/passwords',
+    'public',
+    async (req, res) => {
+      const input = parseInput(setPasswordRequestSchema, req.body);
+      const started = await auth.completePasswordLink(input, requestMeta(req));
+      setSessionCookie(req, res, started.token, started.viewer.sessionExpiresAt);
+      res.status(201).json(await auth.describe(started.viewer));
+    },
+    ...redeemLimits,
+  );
+}

@@ -1,0 +1,263 @@
+import type { Mailer } from '../../adapters/mail/mailer';
+import type { Clock } from '../../adapters/clock';
+import type { AppConfig } from '../../config';
+import type { Db } from '../../db/database';
+import { AppError } from '../../lib/errors';
+import type { Logger } from '../../lib/logger';
+import { hashPassword, hashToken, newOpaqueToken, verifyPassword } from '../../lib/secrets';
+import type { Viewer } from '../../lib/viewer';
+import type { SessionResponse, SetPasswordRequest, SignInRequest } from '../../schemas/auth';
+import { roleLabels } from '../../schemas/common';
+import * as repo from './auth.repository';
+import { passwordResetMail, sitterSignInMail, staffSetPasswordMail } from './auth.mails';
+
+export interface AuthDeps {
+  db: Db;
+  clock: Clock;
+  mailer: Mailer;
+  config: AppConfig;
+  logger: Logger;
+}
+
+export interface RequestMeta {
+  ipAddress: string | null;
+  userAgent: string | null;
+}
+
+export interface StartedSession {
+  token: string;
+  viewer: Viewer;
+}
+
+const wrongCredentials = () =>
+  new AppError('wrong_credentials', 401, 'That e-mail and password do not match an active account.');
+
+const deadLink = (reason: 'used' | 'expired' | 'unknown') =>
+  new AppError(
+    `link_${reason}`,
+    410,
+    {
+      used: 'This link has already been used. Ask for a fresh one below.',
+      expired: 'This link has expired. Ask for a fresh one below.',
+      unknown: 'This link is not valid. Ask for a fresh one below.',
+    }[reason],
+  );
+
+export type AuthService = ReturnType<typeof createAuthService>;
+
+export function createAuthService(deps: AuthDeps) {
+  const { db, clock, mailer, config, logger } = deps;
+
+  const staffViewer = (account: repo.StaffAccount, session: repo.SessionRecord): Viewer => ({
+    kind: 'staff',
+    id: account.id,
+    role: account.role,
+    email: account.email,
+    displayName: account.displayName,
+    clientId: account.clientId,
+    sessionId: session.id,
+    sessionExpiresAt: new Date(session.expiresAt),
+  });
+
+  const sitterViewer = (account: repo.SitterAccount, session: repo.SessionRecord): Viewer => ({
+    kind: 'sitter',
+    id: account.id,
+    role: 'sitter',
+    email: account.email,
+    displayName: account.displayName,
+    clientId: account.clientId,
+    sessionId: session.id,
+    sessionExpiresAt: new Date(session.expiresAt),
+  });
+
+  async function startSession(
+    subject: { userId: string } | { personId: string },
+    meta: RequestMeta,
+  ): Promise<{ token: string; session: repo.SessionRecord }> {
+    const token = newOpaqueToken();
+    const session = await repo.insertSession(db, {
+      tokenHash: hashToken(token),
+      userId: 'userId' in subject ? subject.userId : null,
+      personId: 'personId' in subject ? subject.personId : null,
+      expiresAt: new Date(clock.now().getTime() + config.sessionTtlMs),
+      ipAddress: meta.ipAddress,
+      userAgent: meta.userAgent?.slice(0, 300) ?? null,
+    });
+    return { token, session };
+  }
+
+  /** Sending must not decide the answer, so failures are logged, not thrown. */
+  function sendInBackground(send: () => Promise<void>, what: string) {
+    send().catch((error: unknown) => logger.error({ err: error }, `could not send ${what}`));
+  }
+
+  async function issueLink(
+    subject: { userId: string } | { personId: string },
+    purpose: 'sitter_sign_in' | 'sitter_invitation' | 'set_password' | 'reset_password',
+    ttlMs: number,
+  ): Promise<string> {
+    const token = newOpaqueToken();
+    await repo.insertLinkToken(db, {
+      tokenHash: hashToken(token),
+      purpose,
+      userId: 'userId' in subject ? subject.userId : null,
+      personId: 'personId' in subject ? subject.personId : null,
+      expiresAt: new Date(clock.now().getTime() + ttlMs),
+    });
+    return token;
+  }
+
+  async function explainDeadLink(token: string): Promise<never> {
+    const link = await repo.findLinkToken(db, hashToken(token));
+    if (!link) throw deadLink('unknown');
+    if (link.usedAt) throw deadLink('used');
+    throw deadLink('expired');
+  }
+
+  return {
+    async signIn(input: SignInRequest, meta: RequestMeta): Promise<StartedSession> {
+      const account = await repo.findStaffByEmail(db, input.email);
+      const passwordMatches = await verifyPassword(account?.passwordHash ?? null, input.password);
+      if (!account || !account.active || !passwordMatches) throw wrongCredentials();
+      const { token, session } = await startSession({ userId: account.id }, meta);
+      await repo.touchStaffSignIn(db, account.id, clock.now());
+      return { token, viewer: staffViewer(account, session) };
+    },
+
+    /** The viewer behind a session cookie, or null when it is unknown, expired or disabled. */
+    async resolveViewer(token: string): Promise<Viewer | null> {
+      const session = await repo.findLiveSession(db, hashToken(token), clock.now());
+      if (!session) return null;
+      if (session.userId) {
+        const account = await repo.findStaffById(db, session.userId);
+        return account?.active ? staffViewer(account, session) : null;
+      }
+      if (session.personId) {
+        const account = await repo.findSitterById(db, session.personId);
+        return account?.active ? sitterViewer(account, session) : null;
+      }
+      return null;
+    },
+
+    async signOut(sessionId: string): Promise<void> {
+      await repo.deleteSession(db, sessionId);
+    },
+
+    async describe(viewer: Viewer): Promise<SessionResponse> {
+      let clientName: string | null = null;
+      let officeName: string | null = null;
+      if (viewer.kind === 'staff') {
+        clientName = (await repo.findStaffById(db, viewer.id))?.clientName ?? null;
+      } else {
+        const sitter = await repo.findSitterById(db, viewer.id);
+        clientName = sitter?.clientName ?? null;
+        officeName = sitter?.officeName ?? null;
+      }
+      return {
+        user: {
+          kind: viewer.kind,
+          id: viewer.id,
+          role: viewer.role,
+          displayName: viewer.displayName,
+          email: viewer.email,
+          clientId: viewer.clientId,
+          clientName,
+          officeName,
+        },
+        expiresAt: viewer.sessionExpiresAt.toISOString(),
+      };
+    },
+
+    /** Always succeeds from the caller's view: whether the address is known is not revealed. */
+    async requestSitterLink(email: string): Promise<void> {
+      const sitters = await repo.findActiveSittersByEmail(db, email);
+      for (const sitter of sitters) {
+        const token = await issueLink({ personId: sitter.id }, 'sitter_sign_in', config.signInLinkTtlMs);
+        const mail = sitterSignInMail({
+          name: sitter.displayName.split(' ')[0] ?? sitter.displayName,
+          clientName: sitter.clientName,
+          url: `${config.publicUrl}/link/${token}`,
+          ttlMs: config.signInLinkTtlMs,
+        });
+        sendInBackground(() => mailer.send({ to: sitter.email, ...mail }), 'sitter sign-in link');
+      }
+    },
+
+    /** Used by invitations: a longer-lived personal link to the sitter's booking page. */
+    async issueSitterInvitationLink(personId: string): Promise<string> {
+      const token = await issueLink({ personId }, 'sitter_invitation', config.invitationLinkTtlMs);
+      return `${config.publicUrl}/link/${token}`;
+    },
+
+    async redeemSitterLink(token: string, meta: RequestMeta): Promise<StartedSession> {
+      const now = clock.now();
+      const link = await repo.consumeLinkToken(
+        db,
+        hashToken(token),
+        ['sitter_sign_in', 'sitter_invitation'],
+        now,
+      );
+      if (!link?.personId) return explainDeadLink(token);
+      const sitter = await repo.findSitterById(db, link.personId);
+      if (!sitter?.active) throw deadLink('unknown');
+      const started = await startSession({ personId: sitter.id }, meta);
+      return { token: started.token, viewer: sitterViewer(sitter, started.session) };
+    },
+
+    async requestPasswordReset(email: string): Promise<void> {
+      const account = await repo.findStaffByEmail(db, email);
+      if (!account?.active) return;
+      await repo.retireOpenLinks(db, { userId: account.id }, ['reset_password'], clock.now());
+      const token = await issueLink({ userId: account.id }, 'reset_password', config.passwordResetTtlMs);
+      const mail = passwordResetMail({
+        name: account.displayName,
+        url: `${config.publicUrl}/password/${token}`,
+        ttlMs: config.passwordResetTtlMs,
+      });
+      sendInBackground(() => mailer.send({ to: account.email, ...mail }), 'password reset');
+    },
+
+    /** Sends a staff member the link that lets them choose a password. */
+    async sendSetPasswordLink(userId: string): Promise<void> {
+      const account = await repo.findStaffById(db, userId);
+      if (!account) throw new AppError('not_found', 404, 'That account was not found.');
+      await repo.retireOpenLinks(db, { userId }, ['set_password'], clock.now());
+      const token = await issueLink({ userId }, 'set_password', config.setPasswordLinkTtlMs);
+      const invitedAs =
+        account.role === 'coordinator' && account.clientName
+          ? `coordinator for ${account.clientName}`
+          : roleLabels[account.role].toLowerCase();
+      const mail = staffSetPasswordMail({
+        name: account.displayName,
+        invitedAs,
+        url: `${config.publicUrl}/password/${token}`,
+        ttlMs: config.setPasswordLinkTtlMs,
+      });
+      await mailer.send({ to: account.email, ...mail });
+    },
+
+    async completePasswordLink(input: SetPasswordRequest, meta: RequestMeta): Promise<StartedSession> {
+      const now = clock.now();
+      const passwordHash = await hashPassword(input.password);
+      const outcome = await db.transaction().execute(async (trx) => {
+        const link = await repo.consumeLinkToken(
+          trx,
+          hashToken(input.token),
+          ['set_password', 'reset_password'],
+          now,
+        );
+        if (!link?.userId) return null;
+        const account = await repo.findStaffById(trx, link.userId);
+        if (!account?.active) return null;
+        await repo.setPasswordHash(trx, account.id, passwordHash);
+        // A new password ends every other session of the account.
+        await repo.deleteSessionsOfUser(trx, account.id);
+        return account;
+      });
+      if (!outcome) return explainDeadLink(input.token);
+      const started = await startSession({ userId: outcome.id }, meta);
+      await repo.touchStaffSignIn(db, outcome.id, now);
+      return { token: started.token, viewer: staffViewer(outcome, started.session) };
+    },
+  };
+}

@@ -1,0 +1,39 @@
+import { z } from 'zod';
+
+export const roles = ['studio_admin', 'photographer', 'coordinator', 'sitter'] as const;
+export const roleSchema = z.enum(roles);
+export type Role = z.infer<typeof roleSchema>;
+
+export const staffRoles = ['studio_admin', 'photographer', 'coordinator'] as const;
+export const staffRoleSchema = z.enum(staffRoles);
+export type StaffRole = z.infer<typeof staffRoleSchema>;
+
+export const roleLabels: Record<Role, string> = {
+  studio_admin: 'Studio admin',
+  photographer: 'Photographer',
+  coordinator: 'Coordinator',
+  sitter: 'Sitter',
+};
+
+/** Trimmed and case-folded before the syntax check, so "  Ana@X.example " is accepted. */
+export const emailSchema = z
+  .string({ error: 'Enter an e-mail address.' })
+  .trim()
+  .toLowerCase()
+  .pipe(z.email({ error: 'Enter a valid e-mail address, like name@example.com.' }));
+
+export const newPasswordSchema = z
+  .string({ error: 'Choose a password.' })
+  .min(12, { error: 'Use at least 12 characters.' })
+  .max(200, { error: 'Use at most 200 characters.' });
+
+export const uuidSchema = z.uuid({ error: 'Not a valid identifier.' });
+
+export const apiErrorSchema = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    details: z.unknown().optional(),
+  }),
+});
+export type ApiErrorBody = z.infer<typeof apiErrorSchema>;

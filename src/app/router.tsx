@@ -1,0 +1,61 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter } from 'react-router-dom';
+import { RouteError } from './routes/route-error';
+import { RootLayout } from './routes/root-layout';
+
+/** Each page is loaded on demand, with a loader that fills the query cache first. */
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter([
+    {
+      element: <RootLayout />,
+      errorElement: <RouteError />,
+      children: [
+        {
+          path: '/sign-in',
+          lazy: async () => {
+            const page = await import('./routes/sign-in');
+            return { Component: page.SignInPage, loader: page.makeLoader(queryClient) };
+          },
+        },
+        { path: '/forgot-password', lazy: async () => ({ Component: (await import('./routes/forgot-password')).ForgotPasswordPage }) },
+        { path: '/link/:token', lazy: async () => ({ Component: (await import('./routes/link')).LinkPage }) },
+        { path: '/password/:token', lazy: async () => ({ Component: (await import('./routes/password')).PasswordPage }) },
+        {
+          lazy: async () => {
+            const layout = await import('./routes/signed-in-layout');
+            return { Component: layout.SignedInLayout, loader: layout.makeLoader(queryClient) };
+          },
+          errorElement: <RouteError />,
+          children: [
+            {
+              index: true,
+              lazy: async () => ({ Component: (await import('./routes/home')).HomePage }),
+            },
+            {
+              path: '/studio/clients',
+              lazy: async () => {
+                const page = await import('./routes/studio/clients');
+                return { Component: page.ClientsPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/studio/team',
+              lazy: async () => {
+                const page = await import('./routes/studio/team');
+                return { Component: page.TeamPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/studio/mailbox',
+              lazy: async () => {
+                const page = await import('./routes/studio/mailbox');
+                return { Component: page.MailboxPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+          ],
+        },
+        { path: '*', lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundPage }) },
+      ],
+    },
+  ]);
+}

@@ -1,0 +1,78 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { NavLink, Outlet, useNavigate, type LoaderFunctionArgs } from 'react-router-dom';
+import type { Role } from '../../../server/schemas/common';
+import { roleLabels } from '../../../server/schemas/common';
+import { Button } from '../../components/ui/button';
+import { Logo } from '../../components/ui/logo';
+import { useSession } from '../../features/auth/api/get-session';
+import { useSignOut } from '../../features/auth/api/sign-out';
+import { requireSession } from '../guards';
+
+export const makeLoader =
+  (queryClient: QueryClient) =>
+  async ({ request }: LoaderFunctionArgs) => {
+    await requireSession(queryClient, request);
+    return null;
+  };
+
+const navigation: Record<Role, Array<{ to: string; label: string }>> = {
+  studio_admin: [
+    { to: '/', label: 'Overview' },
+    { to: '/studio/clients', label: 'Clients' },
+    { to: '/studio/team', label: 'Team' },
+    { to: '/studio/mailbox', label: 'Mailbox' },
+  ],
+  photographer: [{ to: '/', label: 'My days' }],
+  coordinator: [{ to: '/', label: 'Overview' }],
+  sitter: [{ to: '/', label: 'My portrait' }],
+};
+
+export function SignedInLayout() {
+  const { data: session } = useSession();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  if (!session) return null;
+  const { user } = session;
+
+  return (
+    <>
+      <header className="border-b border-line bg-paper-raised">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
+          <Logo size={28} />
+          <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1">
+            {navigation[user.role].map((item) => (
+              <NavLink
+                key={item.to}
+                to={item.to}
+                end
+                className={({ isActive }) =>
+                  `inline-flex min-h-touch items-center rounded-control px-3 font-medium ${
+                    isActive ? 'bg-spruce-50 text-spruce-700' : 'text-ink-muted hover:text-ink'
+                  }`
+                }
+              >
+                {item.label}
+              </NavLink>
+            ))}
+          </nav>
+          <div className="flex items-center gap-3 text-sm">
+            <span className="text-ink-muted">
+              <span className="font-medium text-ink">{user.displayName}</span> · {roleLabels[user.role]}
+              {user.clientName ? ` · ${user.clientName}` : ''}
+            </span>
+            <Button
+              variant="secondary"
+              busy={signOut.isPending}
+              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
+            >
+              Sign out
+            </Button>
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto w-full max-w-6xl px-4 py-6">
+        <Outlet />
+      </main>
+    </>
+  );
+}

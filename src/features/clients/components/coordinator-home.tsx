@@ -1,0 +1,52 @@
+import { Card } from '../../../components/ui/card';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { PageHeading } from '../../../components/ui/page-heading';
+import { plural } from '../../../lib/format';
+import { useClients } from '../api/list-clients';
+
+export function CoordinatorHome({ name }: { name: string }) {
+  const clients = useClients();
+  const client = clients.data?.clients[0];
+
+  return (
+    <>
+      <PageHeading title={`Welcome, ${name.split(' ')[0]}`}>
+        {client ? `Portrait day planning for ${client.name}.` : 'Loading your company…'}
+      </PageHeading>
+      {client ? (
+        <div className="grid gap-5 md:grid-cols-2">
+          <Card title="Your roster">
+            {client.activePeople === 0 ? (
+              <EmptyState title="Nobody is on the roster yet">
+                Your staff list is the first step: every booking invitation goes to the people on it.
+              </EmptyState>
+            ) : (
+              <>
+                <p className="mb-3">
+                  {plural(client.activePeople, 'person', 'people')} across {plural(client.offices.length, 'office')}.
+                </p>
+                <ul className="flex flex-col divide-y divide-line">
+                  {client.offices.map((office) => (
+                    <li key={office.id} className="flex justify-between py-2">
+                      <span>
+                        <span className="font-medium">{office.name}</span>{' '}
+                        <span className="text-sm text-ink-muted">({office.timeZone})</span>
+                      </span>
+                      <span>{plural(office.activePeople, 'person', 'people')}</span>
+                    </li>
+                  ))}
+                </ul>
+              </>
+            )}
+          </Card>
+          <Card title="What happens next">
+            <p className="text-ink-muted">
+              The studio schedules a shoot day for each office. Everyone on the roster then gets an e-mail with a
+              personal link to book a five-minute slot, and you can follow who has booked from here.
+            </p>
+          </Card>
+        </div>
+      ) : null}
+    </>
+  );
+}
