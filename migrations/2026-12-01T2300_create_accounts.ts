@@ -81,10 +81,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('expires_at', 'timestamptz', (col) => col.notNull())
     .addColumn('ip_address', 'text')
     .addColumn('user_agent', 'text')
-    .addCheckConstraint(
-      'sessions_one_subject',
-      sql`(user_id is null) <> (person_id is null)`,
-    )
+    .addCheckConstraint('sessions_one_subject', sql`(user_id is null) <> (person_id is null)`)
     .execute();
 
   await db.schema
@@ -103,10 +100,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('created_at', 'timestamptz', (col) => col.notNull().defaultTo(sql`now()`))
     .addColumn('expires_at', 'timestamptz', (col) => col.notNull())
     .addColumn('used_at', 'timestamptz')
-    .addCheckConstraint(
-      'link_tokens_one_subject',
-      sql`(user_id is null) <> (person_id is null)`,
-    )
+    .addCheckConstraint('link_tokens_one_subject', sql`(user_id is null) <> (person_id is null)`)
     .execute();
 
   await db.schema

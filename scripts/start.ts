@@ -10,14 +10,28 @@ import { parseEnvironment, toAppConfig } from '../server/config';
 import { createDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
 import { createLogger } from '../server/lib/logger';
-import { DEMO_PASSWORD, demoCoordinators, demoStaff, firstDemoSitterEmail, loadDemoScenario } from './lib/demo-scenario';
-import { chooseDataFolder, ensureDatabase, startCluster, type RunningCluster } from './lib/postgres-cluster';
+import {
+  DEMO_PASSWORD,
+  demoCoordinators,
+  demoStaff,
+  firstDemoSitterEmail,
+  loadDemoScenario,
+} from './lib/demo-scenario';
+import {
+  chooseDataFolder,
+  ensureDatabase,
+  startCluster,
+  type RunningCluster,
+} from './lib/postgres-cluster';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const mode = process.env.LIKENESS_MODE === 'dev' ? 'dev' : 'start';
 const say = (line: string) => process.stdout.write(`[likeness] ${line}\n`);
 
-const raw = parseEnvironment({ NODE_ENV: mode === 'dev' ? 'development' : 'production', ...process.env });
+const raw = parseEnvironment({
+  NODE_ENV: mode === 'dev' ? 'development' : 'production',
+  ...process.env,
+});
 const config = toAppConfig(raw);
 const logger = createLogger(raw.LOG_LEVEL);
 
@@ -60,7 +74,11 @@ async function openDatabase(): Promise<string> {
 async function frontend(): Promise<AppDeps['frontend']> {
   const vite = await import('vite');
   if (mode === 'dev') {
-    const server = await vite.createServer({ root, server: { middlewareMode: true }, appType: 'spa' });
+    const server = await vite.createServer({
+      root,
+      server: { middlewareMode: true },
+      appType: 'spa',
+    });
     cleanups.push(() => server.close());
     return { kind: 'middleware', handler: server.middlewares };
   }
@@ -88,7 +106,9 @@ async function main() {
     const started = catcher;
     cleanups.push(() => started.close());
     smtpUrl = catcher.smtpUrl;
-    say(`Local mail catcher listening on ${catcher.smtpUrl}: read it at ${config.publicUrl}/studio/mailbox`);
+    say(
+      `Local mail catcher listening on ${catcher.smtpUrl}: read it at ${config.publicUrl}/studio/mailbox`,
+    );
   }
   const mailer = createSmtpMailer({ smtpUrl, from: config.mailFrom });
   cleanups.push(() => mailer.close());
@@ -115,13 +135,18 @@ async function main() {
   );
 
   say('');
-  say(`Likeness is running at ${config.publicUrl}  (${mode === 'dev' ? 'development, hot reload' : 'built app'})`);
+  say(
+    `Likeness is running at ${config.publicUrl}  (${mode === 'dev' ? 'development, hot reload' : 'built app'})`,
+  );
   if (raw.LOAD_DEMO) {
     say(`Demo sign-ins (password "${DEMO_PASSWORD}" for every staff account):`);
     for (const member of demoStaff) say(`  ${member.role.padEnd(13)} ${member.email}`);
-    for (const coordinator of demoCoordinators) say(`  coordinator   ${coordinator.email}  (${coordinator.client})`);
-    say(`  sitter        ${firstDemoSitterEmail()}  (no password: ask for a link on the sign-in page,`);
-    say('                then open it from the studio admin\'s mailbox)');
+    for (const coordinator of demoCoordinators)
+      say(`  coordinator   ${coordinator.email}  (${coordinator.client})`);
+    say(
+      `  sitter        ${firstDemoSitterEmail()}  (no password: ask for a link on the sign-in page,`,
+    );
+    say("                then open it from the studio admin's mailbox)");
   }
   say('Press Ctrl-C to stop.');
 }

@@ -49,7 +49,8 @@ const requireJsonForMutations: RequestHandler = (req, _res, next) => {
 export function createApp(deps: AppDeps) {
   const { db, config, mailer, mailbox, clock, logger } = deps;
   const app = express();
-  app.set('trust proxy', config.trustProxy);
+  // One reverse proxy in front (its X-Forwarded-* headers are believed), or none.
+  app.set('trust proxy', config.trustProxy ? 1 : false);
   app.disable('x-powered-by');
 
   app.use((req, res, next) => {

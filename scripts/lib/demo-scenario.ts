@@ -10,14 +10,30 @@ import { hashPassword } from '../../server/lib/secrets';
 export const DEMO_PASSWORD = 'northlight-demo';
 
 export const demoStaff = [
-  { email: 'admin@northlight.example', displayName: 'Ines Calloway', role: 'studio_admin' as const },
+  {
+    email: 'admin@northlight.example',
+    displayName: 'Ines Calloway',
+    role: 'studio_admin' as const,
+  },
   { email: 'tomas@northlight.example', displayName: 'Tomas Reyne', role: 'photographer' as const },
-  { email: 'lotte@northlight.example', displayName: 'Lotte Brandvik', role: 'photographer' as const },
+  {
+    email: 'lotte@northlight.example',
+    displayName: 'Lotte Brandvik',
+    role: 'photographer' as const,
+  },
 ];
 
 export const demoCoordinators = [
-  { email: 'people@halvorsen-pike.example', displayName: 'Priya Holmwood', client: 'Halvorsen & Pike Engineering' },
-  { email: 'hr@aldermoor.example', displayName: 'Gareth Pennock', client: 'Aldermoor Housing Trust' },
+  {
+    email: 'people@halvorsen-pike.example',
+    displayName: 'Priya Holmwood',
+    client: 'Halvorsen & Pike Engineering',
+  },
+  {
+    email: 'hr@aldermoor.example',
+    displayName: 'Gareth Pennock',
+    client: 'Aldermoor Housing Trust',
+  },
 ];
 
 const offices = [
@@ -25,22 +41,110 @@ const offices = [
     name: 'Leeds',
     timeZone: 'Europe/London',
     share: 100,
-    given: ['Oliver', 'Amelia', 'Harry', 'Isla', 'George', 'Ava', 'Jack', 'Grace', 'Noah', 'Freya', 'Leo', 'Poppy', 'Arthur', 'Ruby', 'Alfie', 'Evie'],
-    family: ['Thornton', 'Ashworth', 'Hebden', 'Marsh', 'Pickering', 'Holt', 'Whitaker', 'Greenwood', 'Barraclough', 'Sutcliffe', 'Crowther', 'Ackroyd'],
+    given: [
+      'Oliver',
+      'Amelia',
+      'Harry',
+      'Isla',
+      'George',
+      'Ava',
+      'Jack',
+      'Grace',
+      'Noah',
+      'Freya',
+      'Leo',
+      'Poppy',
+      'Arthur',
+      'Ruby',
+      'Alfie',
+      'Evie',
+    ],
+    family: [
+      'Thornton',
+      'Ashworth',
+      'Hebden',
+      'Marsh',
+      'Pickering',
+      'Holt',
+      'Whitaker',
+      'Greenwood',
+      'Barraclough',
+      'Sutcliffe',
+      'Crowther',
+      'Ackroyd',
+    ],
   },
   {
     name: 'Rotterdam',
     timeZone: 'Europe/Amsterdam',
     share: 80,
-    given: ['Daan', 'Emma', 'Sem', 'Julia', 'Lucas', 'Mila', 'Finn', 'Tess', 'Levi', 'Sara', 'Milan', 'Zoë', 'Bram', 'Noor', 'Ruben', 'Fenna'],
-    family: ['de Vries', 'Bakker', 'Visser', 'Smit', 'Meijer', 'de Boer', 'Mulder', 'Bos', 'Vos', 'Peters', 'Hendriks', 'Dekker'],
+    given: [
+      'Daan',
+      'Emma',
+      'Sem',
+      'Julia',
+      'Lucas',
+      'Mila',
+      'Finn',
+      'Tess',
+      'Levi',
+      'Sara',
+      'Milan',
+      'Zoë',
+      'Bram',
+      'Noor',
+      'Ruben',
+      'Fenna',
+    ],
+    family: [
+      'de Vries',
+      'Bakker',
+      'Visser',
+      'Smit',
+      'Meijer',
+      'de Boer',
+      'Mulder',
+      'Bos',
+      'Vos',
+      'Peters',
+      'Hendriks',
+      'Dekker',
+    ],
   },
   {
     name: 'Porto',
     timeZone: 'Europe/Lisbon',
     share: 60,
-    given: ['João', 'Maria', 'Tiago', 'Beatriz', 'Rodrigo', 'Matilde', 'Duarte', 'Leonor', 'Tomás', 'Carolina', 'Gonçalo', 'Inês', 'Afonso', 'Mariana'],
-    family: ['Silva', 'Santos', 'Ferreira', 'Pereira', 'Oliveira', 'Costa', 'Rodrigues', 'Martins', 'Sousa', 'Fernandes', 'Gonçalves', 'Lopes'],
+    given: [
+      'João',
+      'Maria',
+      'Tiago',
+      'Beatriz',
+      'Rodrigo',
+      'Matilde',
+      'Duarte',
+      'Leonor',
+      'Tomás',
+      'Carolina',
+      'Gonçalo',
+      'Inês',
+      'Afonso',
+      'Mariana',
+    ],
+    family: [
+      'Silva',
+      'Santos',
+      'Ferreira',
+      'Pereira',
+      'Oliveira',
+      'Costa',
+      'Rodrigues',
+      'Martins',
+      'Sousa',
+      'Fernandes',
+      'Gonçalves',
+      'Lopes',
+    ],
   },
 ];
 
@@ -87,7 +191,7 @@ export interface DemoPerson {
 
 export function generateDemoPeople(): DemoPerson[] {
   const random = seededRandom(20270304);
-  const pick = <T,>(list: readonly T[]): T => list[Math.floor(random() * list.length)] as T;
+  const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)] as T;
   const used = new Set<string>();
   const people: DemoPerson[] = [];
   let serial = 1;
@@ -132,13 +236,20 @@ export async function loadDemoScenario(db: Db): Promise<boolean> {
       ['Halvorsen & Pike Engineering', 'halvorsen-and-pike-engineering'],
       ['Aldermoor Housing Trust', 'aldermoor-housing-trust'],
     ] as const) {
-      const row = await trx.insertInto('clients').values({ name, slug }).returning('id').executeTakeFirstOrThrow();
+      const row = await trx
+        .insertInto('clients')
+        .values({ name, slug })
+        .returning('id')
+        .executeTakeFirstOrThrow();
       clientIds.set(name, row.id);
     }
     const mainClient = clientIds.get('Halvorsen & Pike Engineering') as string;
 
     for (const member of demoStaff) {
-      await trx.insertInto('users').values({ ...member, clientId: null, passwordHash }).execute();
+      await trx
+        .insertInto('users')
+        .values({ ...member, clientId: null, passwordHash })
+        .execute();
     }
     for (const coordinator of demoCoordinators) {
       await trx

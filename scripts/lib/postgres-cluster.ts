@@ -136,7 +136,12 @@ export async function startCluster(options: ClusterOptions): Promise<RunningClus
     `-c listen_addresses=127.0.0.1`,
     `-c unix_socket_directories=${dataFolder}`,
     ...(options.disposable
-      ? ['-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off', '-c max_connections=300']
+      ? [
+          '-c fsync=off',
+          '-c synchronous_commit=off',
+          '-c full_page_writes=off',
+          '-c max_connections=300',
+        ]
       : []),
   ].join(' ');
   const start = runAsOwner(pgCtl, [

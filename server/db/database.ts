@@ -4,7 +4,10 @@ import type { Database } from './types';
 
 export type Db = Kysely<Database>;
 
-export function createDatabase(connectionString: string, options: { maxConnections?: number } = {}): Db {
+export function createDatabase(
+  connectionString: string,
+  options: { maxConnections?: number } = {},
+): Db {
   const pool = new pg.Pool({ connectionString, max: options.maxConnections ?? 10 });
   return new Kysely<Database>({
     dialect: new PostgresDialect({ pool }),

@@ -4,7 +4,10 @@ import { fileURLToPath } from 'node:url';
 import { FileMigrationProvider, Kysely, Migrator, PostgresDialect } from 'kysely';
 import pg from 'pg';
 
-const migrationFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../migrations');
+const migrationFolder = path.resolve(
+  path.dirname(fileURLToPath(import.meta.url)),
+  '../../migrations',
+);
 
 /** Runs every pending migration; throws with the failing migration's name. */
 export async function migrateToLatest(connectionString: string): Promise<string[]> {

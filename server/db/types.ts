@@ -4,7 +4,8 @@ type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 
 export type StaffRole = 'studio_admin' | 'photographer' | 'coordinator';
-export type LinkPurpose = 'sitter_sign_in' | 'sitter_invitation' | 'set_password' | 'reset_password';
+export type LinkPurpose =
+  'sitter_sign_in' | 'sitter_invitation' | 'set_password' | 'reset_password';
 
 export interface ClientsTable {
   id: Generated<string>;

@@ -46,7 +46,10 @@ class PostgresRateLimitStore implements Store {
   }
 
   async resetKey(key: string): Promise<void> {
-    await this.db.deleteFrom('rateLimitCounters').where('key', '=', this.prefix + key).execute();
+    await this.db
+      .deleteFrom('rateLimitCounters')
+      .where('key', '=', this.prefix + key)
+      .execute();
   }
 }
 

@@ -27,7 +27,13 @@ export class RouteTable {
     private readonly prefix = '/api',
   ) {}
 
-  add(method: HttpMethod, path: string, access: Access, handler: Handler, ...before: RequestHandler[]) {
+  add(
+    method: HttpMethod,
+    path: string,
+    access: Access,
+    handler: Handler,
+    ...before: RequestHandler[]
+  ) {
     this.entries.push({ method, path: this.prefix + path, access });
     this.router[method](path, ...before, async (req: Request, res: Response) => {
       checkAccess(req.viewer, access);

@@ -18,7 +18,10 @@ export function hashPassword(password: string): Promise<string> {
 // so an unknown e-mail cannot be told apart from a wrong password by timing.
 const decoyHash = hash(randomBytes(16).toString('hex'));
 
-export async function verifyPassword(storedHash: string | null, password: string): Promise<boolean> {
+export async function verifyPassword(
+  storedHash: string | null,
+  password: string,
+): Promise<boolean> {
   if (!storedHash) {
     await verify(await decoyHash, password);
     return false;

@@ -2,7 +2,10 @@ import { z } from 'zod';
 import { AppError } from './errors';
 
 /** Parses input at the edge; a failure becomes a 400 with a message per field. */
-export function parseInput<Schema extends z.ZodType>(schema: Schema, input: unknown): z.output<Schema> {
+export function parseInput<Schema extends z.ZodType>(
+  schema: Schema,
+  input: unknown,
+): z.output<Schema> {
   const result = schema.safeParse(input);
   if (result.success) return result.data;
   const flat = z.flattenError(result.error);

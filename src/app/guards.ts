@@ -5,7 +5,10 @@ import type { SessionResponse } from '../../server/schemas/auth';
 import { sessionQueryOptions } from '../features/auth/api/get-session';
 
 /** Loader helper: the session, or a redirect to sign-in that comes back here afterwards. */
-export async function requireSession(queryClient: QueryClient, request: Request): Promise<SessionResponse> {
+export async function requireSession(
+  queryClient: QueryClient,
+  request: Request,
+): Promise<SessionResponse> {
   const session = await queryClient.ensureQueryData(sessionQueryOptions());
   if (!session) {
     const url = new URL(request.url);
@@ -15,7 +18,11 @@ export async function requireSession(queryClient: QueryClient, request: Request)
   return session;
 }
 
-export async function requireRole(queryClient: QueryClient, request: Request, roles: readonly Role[]) {
+export async function requireRole(
+  queryClient: QueryClient,
+  request: Request,
+  roles: readonly Role[],
+) {
   const session = await requireSession(queryClient, request);
   if (!roles.includes(session.user.role)) {
     throw new Response('Your role does not give access to this page.', { status: 403 });

@@ -17,9 +17,20 @@ export function createAppRouter(queryClient: QueryClient) {
             return { Component: page.SignInPage, loader: page.makeLoader(queryClient) };
           },
         },
-        { path: '/forgot-password', lazy: async () => ({ Component: (await import('./routes/forgot-password')).ForgotPasswordPage }) },
-        { path: '/link/:token', lazy: async () => ({ Component: (await import('./routes/link')).LinkPage }) },
-        { path: '/password/:token', lazy: async () => ({ Component: (await import('./routes/password')).PasswordPage }) },
+        {
+          path: '/forgot-password',
+          lazy: async () => ({
+            Component: (await import('./routes/forgot-password')).ForgotPasswordPage,
+          }),
+        },
+        {
+          path: '/link/:token',
+          lazy: async () => ({ Component: (await import('./routes/link')).LinkPage }),
+        },
+        {
+          path: '/password/:token',
+          lazy: async () => ({ Component: (await import('./routes/password')).PasswordPage }),
+        },
         {
           lazy: async () => {
             const layout = await import('./routes/signed-in-layout');
@@ -54,7 +65,10 @@ export function createAppRouter(queryClient: QueryClient) {
             },
           ],
         },
-        { path: '*', lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundPage }) },
+        {
+          path: '*',
+          lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundPage }),
+        },
       ],
     },
   ]);

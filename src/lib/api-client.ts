@@ -15,7 +15,10 @@ export class ApiError extends Error {
 
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
-export async function api<T>(path: string, options: { method?: Method; body?: unknown } = {}): Promise<T> {
+export async function api<T>(
+  path: string,
+  options: { method?: Method; body?: unknown } = {},
+): Promise<T> {
   let response: Response;
   try {
     response = await fetch(`/api${path}`, {
@@ -25,7 +28,11 @@ export async function api<T>(path: string, options: { method?: Method; body?: un
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
     });
   } catch {
-    throw new ApiError(0, 'network', 'No connection to the server. Check the network and try again.');
+    throw new ApiError(
+      0,
+      'network',
+      'No connection to the server. Check the network and try again.',
+    );
   }
   if (response.status === 204) return undefined as T;
   const payload: unknown = await response.json().catch(() => null);
@@ -34,8 +41,14 @@ export async function api<T>(path: string, options: { method?: Method; body?: un
     if (!parsed.success) {
       throw new ApiError(response.status, 'unexpected', `The server answered ${response.status}.`);
     }
-    const details = parsed.data.error.details as { fieldErrors?: Record<string, string[]> } | undefined;
-    throw new ApiError(response.status, parsed.data.error.code, parsed.data.error.message, details?.fieldErrors ?? {});
+    const details = parsed.data.error.details as
+      { fieldErrors?: Record<string, string[]> } | undefined;
+    throw new ApiError(
+      response.status,
+      parsed.data.error.code,
+      parsed.data.error.message,
+      details?.fieldErrors ?? {},
+    );
   }
   return payload as T;
 }

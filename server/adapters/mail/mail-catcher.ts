@@ -21,7 +21,10 @@ export interface MailCatcher extends Mailbox {
   port: number;
   smtpUrl: string;
   /** Resolves with the first message to `address` received after `since` (or already held). */
-  waitFor(address: string, options?: { timeoutMs?: number; subjectIncludes?: string }): Promise<CaughtMail>;
+  waitFor(
+    address: string,
+    options?: { timeoutMs?: number; subjectIncludes?: string },
+  ): Promise<CaughtMail>;
   clear(): void;
   close(): Promise<void>;
 }

@@ -7,7 +7,12 @@ const minutesOrHours = (ms: number) => {
   return hours % 24 === 0 ? `${hours / 24} days` : `${hours} hours`;
 };
 
-export function sitterSignInMail(input: { name: string; clientName: string; url: string; ttlMs: number }) {
+export function sitterSignInMail(input: {
+  name: string;
+  clientName: string;
+  url: string;
+  ttlMs: number;
+}) {
   return {
     subject: `Your sign-in link for the ${input.clientName} portrait day`,
     ...renderMail({
@@ -21,7 +26,12 @@ export function sitterSignInMail(input: { name: string; clientName: string; url:
   };
 }
 
-export function staffSetPasswordMail(input: { name: string; invitedAs: string; url: string; ttlMs: number }) {
+export function staffSetPasswordMail(input: {
+  name: string;
+  invitedAs: string;
+  url: string;
+  ttlMs: number;
+}) {
   return {
     subject: 'You have been invited to Likeness',
     ...renderMail({

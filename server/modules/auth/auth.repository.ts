@@ -51,7 +51,10 @@ const staffColumns = [
   'users.active',
 ] as const;
 
-export async function findStaffByEmail(db: Executor, email: string): Promise<StaffAccount | undefined> {
+export async function findStaffByEmail(
+  db: Executor,
+  email: string,
+): Promise<StaffAccount | undefined> {
   return db
     .selectFrom('users')
     .leftJoin('clients', 'clients.id', 'users.clientId')
@@ -77,9 +80,7 @@ const sitterQuery = (db: Executor) =>
     .select((eb) => [
       'people.id',
       'people.email',
-      eb.fn
-        .coalesce('people.preferredName', 'people.givenName')
-        .as('firstName'),
+      eb.fn.coalesce('people.preferredName', 'people.givenName').as('firstName'),
       'people.familyName',
       'people.clientId',
       'clients.name as clientName',
@@ -109,7 +110,10 @@ function toSitter(row: {
 }
 
 /** A person may be on several clients' rosters with one address: all active matches. */
-export async function findActiveSittersByEmail(db: Executor, email: string): Promise<SitterAccount[]> {
+export async function findActiveSittersByEmail(
+  db: Executor,
+  email: string,
+): Promise<SitterAccount[]> {
   const rows = await sitterQuery(db)
     .where((eb) => eb(eb.fn('lower', ['people.email']), '=', email.toLowerCase()))
     .where('people.active', '=', true)
@@ -199,7 +203,10 @@ export async function consumeLinkToken(
     .executeTakeFirst();
 }
 
-export async function findLinkToken(db: Executor, tokenHash: string): Promise<LinkRecord | undefined> {
+export async function findLinkToken(
+  db: Executor,
+  tokenHash: string,
+): Promise<LinkRecord | undefined> {
   return db
     .selectFrom('linkTokens')
     .select(['id', 'purpose', 'userId', 'personId', 'expiresAt', 'usedAt'])
@@ -207,7 +214,11 @@ export async function findLinkToken(db: Executor, tokenHash: string): Promise<Li
     .executeTakeFirst();
 }
 
-export async function setPasswordHash(db: Executor, userId: string, passwordHash: string): Promise<void> {
+export async function setPasswordHash(
+  db: Executor,
+  userId: string,
+  passwordHash: string,
+): Promise<void> {
   await db.updateTable('users').set({ passwordHash }).where('id', '=', userId).execute();
 }
 

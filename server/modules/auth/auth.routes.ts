@@ -19,7 +19,12 @@ const LINK_SENT =
 const RESET_SENT =
   'If that address belongs to an active account, a link to choose a new password is on its way.';
 
-export function registerAuthRoutes(routes: RouteTable, auth: AuthService, db: Db, config: AppConfig) {
+export function registerAuthRoutes(
+  routes: RouteTable,
+  auth: AuthService,
+  db: Db,
+  config: AppConfig,
+) {
   const signInLimits = createRateLimits(db, 'sign-in', config.rateLimit);
   const linkLimits = createRateLimits(db, 'sign-in-link', config.rateLimit);
   const resetLimits = createRateLimits(db, 'password-reset', config.rateLimit);
@@ -38,9 +43,14 @@ export function registerAuthRoutes(routes: RouteTable, auth: AuthService, db: Db
     ...signInLimits,
   );
 
-  routes.add('get', '/session', ['studio_admin', 'photographer', 'coordinator', 'sitter'], async (req, res) => {
-    res.json(await auth.describe(viewerOf(req)));
-  });
+  routes.add(
+    'get',
+    '/session',
+    ['studio_admin', 'photographer', 'coordinator', 'sitter'],
+    async (req, res) => {
+      res.json(await auth.describe(viewerOf(req)));
+    },
+  );
 
   routes.add('delete', '/session', 'public', async (req, res) => {
     if (req.viewer) await auth.signOut(req.viewer.sessionId);

@@ -30,7 +30,11 @@ export interface StartedSession {
 }
 
 const wrongCredentials = () =>
-  new AppError('wrong_credentials', 401, 'That e-mail and password do not match an active account.');
+  new AppError(
+    'wrong_credentials',
+    401,
+    'That e-mail and password do not match an active account.',
+  );
 
 const deadLink = (reason: 'used' | 'expired' | 'unknown') =>
   new AppError(
@@ -172,7 +176,11 @@ export function createAuthService(deps: AuthDeps) {
     async requestSitterLink(email: string): Promise<void> {
       const sitters = await repo.findActiveSittersByEmail(db, email);
       for (const sitter of sitters) {
-        const token = await issueLink({ personId: sitter.id }, 'sitter_sign_in', config.signInLinkTtlMs);
+        const token = await issueLink(
+          { personId: sitter.id },
+          'sitter_sign_in',
+          config.signInLinkTtlMs,
+        );
         const mail = sitterSignInMail({
           name: sitter.displayName.split(' ')[0] ?? sitter.displayName,
           clientName: sitter.clientName,
@@ -208,7 +216,11 @@ export function createAuthService(deps: AuthDeps) {
       const account = await repo.findStaffByEmail(db, email);
       if (!account?.active) return;
       await repo.retireOpenLinks(db, { userId: account.id }, ['reset_password'], clock.now());
-      const token = await issueLink({ userId: account.id }, 'reset_password', config.passwordResetTtlMs);
+      const token = await issueLink(
+        { userId: account.id },
+        'reset_password',
+        config.passwordResetTtlMs,
+      );
       const mail = passwordResetMail({
         name: account.displayName,
         url: `${config.publicUrl}/password/${token}`,
@@ -236,7 +248,10 @@ export function createAuthService(deps: AuthDeps) {
       await mailer.send({ to: account.email, ...mail });
     },
 
-    async completePasswordLink(input: SetPasswordRequest, meta: RequestMeta): Promise<StartedSession> {
+    async completePasswordLink(
+      input: SetPasswordRequest,
+      meta: RequestMeta,
+    ): Promise<StartedSession> {
       const now = clock.now();
       const passwordHash = await hashPassword(input.password);
       const outcome = await db.transaction().execute(async (trx) => {

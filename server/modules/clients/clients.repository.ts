@@ -73,7 +73,11 @@ export async function listClients(db: Db, onlyId: string | null): Promise<Client
 }
 
 export async function slugExists(db: Db, slug: string): Promise<boolean> {
-  const row = await db.selectFrom('clients').select('id').where('slug', '=', slug).executeTakeFirst();
+  const row = await db
+    .selectFrom('clients')
+    .select('id')
+    .where('slug', '=', slug)
+    .executeTakeFirst();
   return row !== undefined;
 }
 
@@ -86,7 +90,14 @@ export async function nameExists(db: Db, name: string): Promise<boolean> {
   return row !== undefined;
 }
 
-export async function insertClient(db: Db, values: { name: string; slug: string }): Promise<string> {
-  const row = await db.insertInto('clients').values(values).returning('id').executeTakeFirstOrThrow();
+export async function insertClient(
+  db: Db,
+  values: { name: string; slug: string },
+): Promise<string> {
+  const row = await db
+    .insertInto('clients')
+    .values(values)
+    .returning('id')
+    .executeTakeFirstOrThrow();
   return row.id;
 }

@@ -13,6 +13,11 @@ export function slugify(name: string): string {
       .normalize('NFKD')
       .replace(/[\u0300-\u036f]/g, '')
       .toLowerCase()
+      // Letters that do not decompose into a base letter and an accent.
+      .replace(/[øœ]/g, 'o')
+      .replace(/æ/g, 'ae')
+      .replace(/ß/g, 'ss')
+      .replace(/[łđ]/g, (letter) => (letter === 'ł' ? 'l' : 'd'))
       .replace(/&/g, ' and ')
       .replace(/[^a-z0-9]+/g, '-')
       .replace(/^-+|-+$/g, '')
@@ -48,7 +53,12 @@ export function createClientsService(deps: { db: Db }) {
       let slug = base;
       for (let n = 2; await repo.slugExists(db, slug); n += 1) slug = `${base}-${n}`;
       const id = await repo.insertClient(db, { name: input.name, slug });
-      await recordAudit(db, { actorUserId: actor.id, action: 'client.created', subjectType: 'client', subjectId: id });
+      await recordAudit(db, {
+        actorUserId: actor.id,
+        action: 'client.created',
+        subjectType: 'client',
+        subjectId: id,
+      });
       const [client] = await repo.listClients(db, id);
       if (!client) throw notFound('That client');
       return client;

@@ -9,7 +9,11 @@ import type { RouteTable } from '../../lib/route-table';
 export function registerDevMailboxRoutes(routes: RouteTable, mailbox: Mailbox | null) {
   const requireMailbox = (): Mailbox => {
     if (!mailbox) {
-      throw new AppError('mailbox_off', 404, 'The development mailbox is off: mail goes to a real server.');
+      throw new AppError(
+        'mailbox_off',
+        404,
+        'The development mailbox is off: mail goes to a real server.',
+      );
     }
     return mailbox;
   };

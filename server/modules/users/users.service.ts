@@ -16,9 +16,15 @@ export function createUsersService(deps: { db: Db; auth: AuthService }) {
 
     async invite(
       actor: Viewer,
-      input: { email: string; displayName: string; role: StaffUser['role']; clientId: string | null },
+      input: {
+        email: string;
+        displayName: string;
+        role: StaffUser['role'];
+        clientId: string | null;
+      },
     ): Promise<StaffUser> {
-      if (input.clientId && !(await findClientName(db, input.clientId))) throw notFound('That client');
+      if (input.clientId && !(await findClientName(db, input.clientId)))
+        throw notFound('That client');
       if (await repo.emailTaken(db, input.email)) {
         throw new AppError('email_taken', 409, 'Someone on the team already uses that e-mail.', {
           fieldErrors: { email: ['Someone on the team already uses that e-mail.'] },
@@ -43,7 +49,12 @@ export function createUsersService(deps: { db: Db; auth: AuthService }) {
       if (!user) throw notFound('That account');
       if (!user.active) throw new AppError('inactive', 409, 'Reactivate the account first.');
       await auth.sendSetPasswordLink(id);
-      await recordAudit(db, { actorUserId: actor.id, action: 'staff.link_sent', subjectType: 'user', subjectId: id });
+      await recordAudit(db, {
+        actorUserId: actor.id,
+        action: 'staff.link_sent',
+        subjectType: 'user',
+        subjectId: id,
+      });
     },
 
     async setActive(actor: Viewer, id: string, active: boolean): Promise<StaffUser> {

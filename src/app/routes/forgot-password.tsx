@@ -25,7 +25,12 @@ export function ForgotPasswordPage() {
         {request.isSuccess ? (
           <Notice tone="success">{request.data.message}</Notice>
         ) : (
-          <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Ask for a password link">
+          <form
+            onSubmit={submit}
+            noValidate
+            className="flex flex-col gap-4"
+            aria-label="Ask for a password link"
+          >
             {form.formError ? <Notice tone="danger">{form.formError}</Notice> : null}
             <TextField
               label="E-mail"

@@ -20,14 +20,22 @@ export function PasswordPage() {
     event.preventDefault();
     const input = form.validate();
     if (input) {
-      save.mutate(input, { onSuccess: () => navigate('/', { replace: true }), onError: form.showServerError });
+      save.mutate(input, {
+        onSuccess: () => navigate('/', { replace: true }),
+        onError: form.showServerError,
+      });
     }
   };
 
   return (
     <PublicFrame title="Choose your password">
       <Card>
-        <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Choose a password">
+        <form
+          onSubmit={submit}
+          noValidate
+          className="flex flex-col gap-4"
+          aria-label="Choose a password"
+        >
           {form.formError ? <Notice tone="danger">{form.formError}</Notice> : null}
           <TextField
             label="New password"

@@ -5,7 +5,11 @@ export function RootLayout() {
   return (
     <div className="min-h-dvh bg-paper font-sans text-ink">
       {navigation.state === 'loading' ? (
-        <div role="progressbar" aria-label="Loading page" className="fixed inset-x-0 top-0 h-1 animate-pulse bg-clay-500" />
+        <div
+          role="progressbar"
+          aria-label="Loading page"
+          className="fixed inset-x-0 top-0 h-1 animate-pulse bg-clay-500"
+        />
       ) : null}
       <Outlet />
     </div>

@@ -23,7 +23,11 @@ export function RouteError() {
         <Link to="/" className="font-medium text-spruce-700 underline">
           Go to my home page
         </Link>
-        <button type="button" className="font-medium text-spruce-700 underline" onClick={() => window.location.reload()}>
+        <button
+          type="button"
+          className="font-medium text-spruce-700 underline"
+          onClick={() => window.location.reload()}
+        >
           Try again
         </button>
       </div>

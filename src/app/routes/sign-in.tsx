@@ -30,7 +30,8 @@ export function SignInPage() {
       </Card>
       <Card title="Having your portrait taken?">
         <p className="mb-4 text-ink-muted">
-          No password needed. Enter your work e-mail and we will send you a link to your booking page.
+          No password needed. Enter your work e-mail and we will send you a link to your booking
+          page.
         </p>
         <SignInLinkForm />
       </Card>

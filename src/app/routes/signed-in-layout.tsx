@@ -57,13 +57,18 @@ export function SignedInLayout() {
           </nav>
           <div className="flex items-center gap-3 text-sm">
             <span className="text-ink-muted">
-              <span className="font-medium text-ink">{user.displayName}</span> · {roleLabels[user.role]}
+              <span className="font-medium text-ink">{user.displayName}</span> ·{' '}
+              {roleLabels[user.role]}
               {user.clientName ? ` · ${user.clientName}` : ''}
             </span>
             <Button
               variant="secondary"
               busy={signOut.isPending}
-              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
+              onClick={() =>
+                signOut.mutate(undefined, {
+                  onSuccess: () => navigate('/sign-in', { replace: true }),
+                })
+              }
             >
               Sign out
             </Button>

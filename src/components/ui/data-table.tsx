@@ -1,7 +1,15 @@
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef } from '@tanstack/react-table';
 
 /** A plain accessible table over TanStack Table's model. */
-export function DataTable<Row>({ columns, data, caption }: { columns: ColumnDef<Row, unknown>[]; data: Row[]; caption: string }) {
+export function DataTable<Row>({
+  columns,
+  data,
+  caption,
+}: {
+  columns: ColumnDef<Row, unknown>[];
+  data: Row[];
+  caption: string;
+}) {
   const table = useReactTable({ data, columns, getCoreRowModel: getCoreRowModel() });
   return (
     <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
@@ -12,7 +20,9 @@ export function DataTable<Row>({ columns, data, caption }: { columns: ColumnDef<
             <tr key={group.id}>
               {group.headers.map((header) => (
                 <th key={header.id} scope="col" className="px-4 py-3 font-semibold">
-                  {header.isPlaceholder ? null : flexRender(header.column.columnDef.header, header.getContext())}
+                  {header.isPlaceholder
+                    ? null
+                    : flexRender(header.column.columnDef.header, header.getContext())}
                 </th>
               ))}
             </tr>

@@ -11,7 +11,8 @@ function FieldFrame({ label, error, hint, children }: FieldFrameProps) {
   const inputId = useId();
   const hintId = `${inputId}-hint`;
   const errorId = `${inputId}-error`;
-  const describedBy = [hint ? hintId : null, error ? errorId : null].filter(Boolean).join(' ') || undefined;
+  const describedBy =
+    [hint ? hintId : null, error ? errorId : null].filter(Boolean).join(' ') || undefined;
   return (
     <div className="flex flex-col gap-1.5">
       <label htmlFor={inputId} className="text-sm font-medium text-ink">
@@ -37,7 +38,10 @@ const controlClass = (error?: string) =>
     error ? 'border-danger-600' : 'border-line-strong'
   }`;
 
-export interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'onChange' | 'value'> {
+export interface TextFieldProps extends Omit<
+  InputHTMLAttributes<HTMLInputElement>,
+  'onChange' | 'value'
+> {
   label: string;
   value: string;
   onChange: (value: string) => void;
@@ -63,7 +67,10 @@ export function TextField({ label, value, onChange, error, hint, ...rest }: Text
   );
 }
 
-export interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectElement>, 'onChange' | 'value'> {
+export interface SelectFieldProps extends Omit<
+  SelectHTMLAttributes<HTMLSelectElement>,
+  'onChange' | 'value'
+> {
   label: string;
   value: string;
   onChange: (value: string) => void;
@@ -72,7 +79,15 @@ export interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectEl
   hint?: ReactNode;
 }
 
-export function SelectField({ label, value, onChange, options, error, hint, ...rest }: SelectFieldProps) {
+export function SelectField({
+  label,
+  value,
+  onChange,
+  options,
+  error,
+  hint,
+  ...rest
+}: SelectFieldProps) {
   return (
     <FieldFrame label={label} error={error} hint={hint}>
       {({ inputId, describedBy }) => (

@@ -12,7 +12,10 @@ const tones: Record<Tone, string> = {
 /** A message box; errors are announced to screen readers as alerts. */
 export function Notice({ tone = 'info', children }: { tone?: Tone; children: ReactNode }) {
   return (
-    <div role={tone === 'danger' ? 'alert' : 'status'} className={`rounded-control border-l-4 px-4 py-3 ${tones[tone]}`}>
+    <div
+      role={tone === 'danger' ? 'alert' : 'status'}
+      className={`rounded-control border-l-4 px-4 py-3 ${tones[tone]}`}
+    >
       {children}
     </div>
   );

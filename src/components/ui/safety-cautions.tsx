@@ -7,12 +7,13 @@ export function SafetyCautions() {
         <li>Tape down or ramp cables; do not chain extension leads.</li>
         <li>Flash packs can hold a dangerous charge, and modelling lamps get hot.</li>
         <li>
-          Ask sitters about flash sensitivity (photosensitive epilepsy): use single flashes only, never burst or strobe
-          modes, and offer continuous light instead.
+          Ask sitters about flash sensitivity (photosensitive epilepsy): use single flashes only,
+          never burst or strobe modes, and offer continuous light instead.
         </li>
       </ul>
       <p className="mt-3 text-ink-muted">
-        These are common practice, not a substitute for the venue&apos;s rules and local regulations, which come first.
+        These are common practice, not a substitute for the venue&apos;s rules and local
+        regulations, which come first.
       </p>
     </div>
   );

@@ -25,7 +25,9 @@ export function ClientsPage() {
       <div className="grid gap-5 lg:grid-cols-[2fr_1fr]">
         <div className="flex flex-col gap-4">
           {clients.length === 0 ? (
-            <EmptyState title="No clients yet">Add the first company with the form on this page.</EmptyState>
+            <EmptyState title="No clients yet">
+              Add the first company with the form on this page.
+            </EmptyState>
           ) : (
             clients.map((client) => (
               <Card key={client.id} title={client.name}>
@@ -36,7 +38,10 @@ export function ClientsPage() {
                 {client.offices.length > 0 ? (
                   <ul className="mt-2 flex flex-wrap gap-2">
                     {client.offices.map((office) => (
-                      <li key={office.id} className="rounded-control bg-paper-sunk px-2 py-1 text-sm">
+                      <li
+                        key={office.id}
+                        className="rounded-control bg-paper-sunk px-2 py-1 text-sm"
+                      >
                         {office.name} · {office.timeZone} · {office.activePeople}
                       </li>
                     ))}

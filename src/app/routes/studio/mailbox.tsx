@@ -28,11 +28,14 @@ export function MailboxPage() {
   return (
     <>
       <PageHeading title="Mailbox">
-        Development only: mail is caught here instead of being delivered, so you can follow every link.
+        Development only: mail is caught here instead of being delivered, so you can follow every
+        link.
       </PageHeading>
       {mailbox.isError ? <Notice tone="caution">{mailbox.error.message}</Notice> : null}
       {!mailbox.isError && messages.length === 0 ? (
-        <EmptyState title="No mail yet">Invite someone or ask for a sign-in link, and the message appears here.</EmptyState>
+        <EmptyState title="No mail yet">
+          Invite someone or ask for a sign-in link, and the message appears here.
+        </EmptyState>
       ) : null}
       {messages.length > 0 && open ? (
         <div className="grid gap-5 lg:grid-cols-[1fr_2fr]">
@@ -44,7 +47,9 @@ export function MailboxPage() {
                   onClick={() => setOpenId(message.id)}
                   aria-current={message.id === open.id ? 'true' : undefined}
                   className={`w-full rounded-control border px-3 py-2 text-left ${
-                    message.id === open.id ? 'border-spruce-500 bg-spruce-50' : 'border-line bg-paper-raised'
+                    message.id === open.id
+                      ? 'border-spruce-500 bg-spruce-50'
+                      : 'border-line bg-paper-raised'
                   }`}
                 >
                   <span className="block font-medium">{message.subject}</span>

@@ -19,7 +19,12 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
   };
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Sign in with a password">
+    <form
+      onSubmit={submit}
+      noValidate
+      className="flex flex-col gap-4"
+      aria-label="Sign in with a password"
+    >
       {form.formError ? <Notice tone="danger">{form.formError}</Notice> : null}
       <TextField
         label="E-mail"

@@ -21,7 +21,12 @@ export function SignInLinkForm({ initialEmail = '' }: { initialEmail?: string })
   if (request.isSuccess) return <Notice tone="success">{request.data.message}</Notice>;
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Get a sign-in link">
+    <form
+      onSubmit={submit}
+      noValidate
+      className="flex flex-col gap-4"
+      aria-label="Get a sign-in link"
+    >
       {form.formError ? <Notice tone="danger">{form.formError}</Notice> : null}
       <TextField
         label="Work e-mail"

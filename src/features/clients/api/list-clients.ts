@@ -4,6 +4,7 @@ import { api } from '../../../lib/api-client';
 
 export const listClients = () => api<ClientList>('/clients');
 
-export const clientsQueryOptions = () => queryOptions({ queryKey: ['clients'], queryFn: listClients });
+export const clientsQueryOptions = () =>
+  queryOptions({ queryKey: ['clients'], queryFn: listClients });
 
 export const useClients = () => useQuery(clientsQueryOptions());

@@ -18,12 +18,14 @@ export function CoordinatorHome({ name }: { name: string }) {
           <Card title="Your roster">
             {client.activePeople === 0 ? (
               <EmptyState title="Nobody is on the roster yet">
-                Your staff list is the first step: every booking invitation goes to the people on it.
+                Your staff list is the first step: every booking invitation goes to the people on
+                it.
               </EmptyState>
             ) : (
               <>
                 <p className="mb-3">
-                  {plural(client.activePeople, 'person', 'people')} across {plural(client.offices.length, 'office')}.
+                  {plural(client.activePeople, 'person', 'people')} across{' '}
+                  {plural(client.offices.length, 'office')}.
                 </p>
                 <ul className="flex flex-col divide-y divide-line">
                   {client.offices.map((office) => (
@@ -41,8 +43,9 @@ export function CoordinatorHome({ name }: { name: string }) {
           </Card>
           <Card title="What happens next">
             <p className="text-ink-muted">
-              The studio schedules a shoot day for each office. Everyone on the roster then gets an e-mail with a
-              personal link to book a five-minute slot, and you can follow who has booked from here.
+              The studio schedules a shoot day for each office. Everyone on the roster then gets an
+              e-mail with a personal link to book a five-minute slot, and you can follow who has
+              booked from here.
             </p>
           </Card>
         </div>

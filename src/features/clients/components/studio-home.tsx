@@ -15,7 +15,9 @@ export function StudioHome({ name }: { name: string }) {
 
   return (
     <>
-      <PageHeading title={`Good to see you, ${name.split(' ')[0]}`}>The studio at a glance.</PageHeading>
+      <PageHeading title={`Good to see you, ${name.split(' ')[0]}`}>
+        The studio at a glance.
+      </PageHeading>
       <div className="grid gap-5 md:grid-cols-2">
         <Card title="Next steps">
           <NextSteps
@@ -30,7 +32,8 @@ export function StudioHome({ name }: { name: string }) {
                 label: "Invite each client's coordinator",
                 detail: 'They import the staff list and follow bookings for their company.',
                 to: '/studio/team',
-                done: clientList.length > 0 && clientList.every((client) => client.coordinators > 0),
+                done:
+                  clientList.length > 0 && clientList.every((client) => client.coordinators > 0),
               },
               {
                 label: 'Invite your photographers',
@@ -51,13 +54,17 @@ export function StudioHome({ name }: { name: string }) {
                   <p className="font-medium">{client.name}</p>
                   <p className="text-sm text-ink-muted">
                     {plural(client.activePeople, 'person', 'people')} on the roster ·{' '}
-                    {plural(client.offices.length, 'office')} · {plural(client.coordinators, 'coordinator')}
+                    {plural(client.offices.length, 'office')} ·{' '}
+                    {plural(client.coordinators, 'coordinator')}
                   </p>
                 </li>
               ))}
             </ul>
           )}
-          <Link to="/studio/clients" className="mt-3 inline-block font-medium text-spruce-700 underline">
+          <Link
+            to="/studio/clients"
+            className="mt-3 inline-block font-medium text-spruce-700 underline"
+          >
             Manage clients
           </Link>
         </Card>

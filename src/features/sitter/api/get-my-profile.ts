@@ -4,6 +4,7 @@ import { api } from '../../../lib/api-client';
 
 export const getMyProfile = () => api<SitterProfile>('/sitters/me');
 
-export const myProfileQueryOptions = () => queryOptions({ queryKey: ['sitters', 'me'], queryFn: getMyProfile });
+export const myProfileQueryOptions = () =>
+  queryOptions({ queryKey: ['sitters', 'me'], queryFn: getMyProfile });
 
 export const useMyProfile = () => useQuery(myProfileQueryOptions());

@@ -17,7 +17,8 @@ export function SitterHome() {
       </PageHeading>
       <Card title="Your booking">
         <p className="text-ink-muted">
-          When the studio opens booking for your office, you will get an e-mail and can pick a five-minute slot here.
+          When the studio opens booking for your office, you will get an e-mail and can pick a
+          five-minute slot here.
         </p>
       </Card>
       <Card title="What to wear">
@@ -30,8 +31,8 @@ export function SitterHome() {
         <p className="mt-3 text-sm text-ink-muted">Common studio advice, not a dress code.</p>
       </Card>
       <Notice tone="caution">
-        If flash photography is a problem for you (for example photosensitive epilepsy), say so when you book: the
-        studio will use continuous light instead of flash.
+        If flash photography is a problem for you (for example photosensitive epilepsy), say so when
+        you book: the studio will use continuous light instead of flash.
       </Notice>
       <Card title="Your details on the roster">
         <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">

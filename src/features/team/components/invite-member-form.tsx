@@ -29,7 +29,8 @@ export function InviteMemberForm() {
     const input = form.validate();
     if (!input) return;
     invite.mutate(input, {
-      onSuccess: () => form.setValues({ email: '', displayName: '', role: input.role, clientId: input.clientId }),
+      onSuccess: () =>
+        form.setValues({ email: '', displayName: '', role: input.role, clientId: input.clientId }),
       onError: form.showServerError,
     });
   };
@@ -40,11 +41,17 @@ export function InviteMemberForm() {
   ];
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Invite a team member">
+    <form
+      onSubmit={submit}
+      noValidate
+      className="flex flex-col gap-4"
+      aria-label="Invite a team member"
+    >
       {form.formError ? <Notice tone="danger">{form.formError}</Notice> : null}
       {invite.isSuccess ? (
         <Notice tone="success">
-          {invite.data.displayName} was invited: a link to choose a password is on its way to {invite.data.email}.
+          {invite.data.displayName} was invited: a link to choose a password is on its way to{' '}
+          {invite.data.email}.
         </Notice>
       ) : null}
       <TextField

@@ -6,7 +6,9 @@ import { SafetyCautions } from '../../../components/ui/safety-cautions';
 export function PhotographerHome({ name }: { name: string }) {
   return (
     <>
-      <PageHeading title={`Hello, ${name.split(' ')[0]}`}>Your shoot days and stations.</PageHeading>
+      <PageHeading title={`Hello, ${name.split(' ')[0]}`}>
+        Your shoot days and stations.
+      </PageHeading>
       <div className="grid gap-5 md:grid-cols-2">
         <Card title="Assigned days">
           <EmptyState title="No shoot days assigned to you yet">

@@ -1,0 +1,118 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Role } from '../../server/schemas/common';
+import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
+import { startTestApp, type TestApp } from '../setup/test-app';
+import { signedInAgent, signedInSitter } from './helpers';
+
+/**
+ * The role x route matrix. Every API route must have a line here saying who may call it;
+ * a route added without one fails the first test. "public" routes answer anyone.
+ */
+const expectedAccess: Record<string, readonly Role[] | 'public'> = {
+  'GET /api/health': 'public',
+  'POST /api/session': 'public',
+  'GET /api/session': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
+  'DELETE /api/session': 'public',
+  'POST /api/sign-in-links': 'public',
+  'POST /api/sign-in-links/redeem': 'public',
+  'POST /api/password-resets': 'public',
+  'POST /api/passwords': 'public',
+  'GET /api/users': ['studio_admin'],
+  'POST /api/users': ['studio_admin'],
+  'PATCH /api/users/:userId': ['studio_admin'],
+  'POST /api/users/:userId/invitation': ['studio_admin'],
+  'GET /api/clients': ['studio_admin', 'coordinator'],
+  'POST /api/clients': ['studio_admin'],
+  'GET /api/clients/:clientId': ['studio_admin', 'coordinator'],
+  'GET /api/sitters/me': ['sitter'],
+  'GET /api/dev/mailbox': ['studio_admin'],
+  'GET /api/dev/mailbox/:messageId': ['studio_admin'],
+};
+
+const allRoles: Role[] = ['studio_admin', 'photographer', 'coordinator', 'sitter'];
+
+let t: TestApp;
+let agents: Record<Role, ReturnType<typeof request.agent>>;
+let params: Record<string, string>;
+
+beforeAll(async () => {
+  t = await startTestApp({
+    env: { RATE_LIMIT_PER_ADDRESS: '10000', RATE_LIMIT_PER_ACCOUNT: '10000' },
+  });
+  const client = await insertClient(t.db);
+  const office = await insertOffice(t.db, client.id);
+  const admin = await insertStaff(t.db, { role: 'studio_admin' });
+  const photographer = await insertStaff(t.db, { role: 'photographer' });
+  const coordinator = await insertStaff(t.db, { role: 'coordinator', clientId: client.id });
+  const person = await insertPerson(t.db, client.id, { officeId: office.id });
+  const target = await insertStaff(t.db, { role: 'photographer' });
+  agents = {
+    studio_admin: await signedInAgent(t, admin.email),
+    photographer: await signedInAgent(t, photographer.email),
+    coordinator: await signedInAgent(t, coordinator.email),
+    sitter: await signedInSitter(t, person.email),
+  };
+  // Ids that exist and that each role could legitimately ask about, so a refusal means the role rule.
+  params = {
+    clientId: client.id,
+    userId: target.id,
+    messageId: t.mail.list()[0]?.id ?? 'none',
+  };
+});
+afterAll(() => t.close());
+
+function concretePath(path: string): string {
+  return path.replace(/:(\w+)/g, (_match, name: string) => {
+    const value = params[name];
+    if (!value) throw new Error(`The matrix test has no sample value for :${name}`);
+    return value;
+  });
+}
+
+// Sending the mutating requests empty keeps the matrix from changing data: an allowed caller
+// gets past the role check and is stopped by validation (400) instead.
+function call(
+  agent: ReturnType<typeof request.agent> | ReturnType<typeof request>,
+  method: string,
+  path: string,
+) {
+  const verb = method.toLowerCase() as 'get' | 'post' | 'patch' | 'put' | 'delete';
+  const pending = agent[verb](concretePath(path));
+  return verb === 'get' || verb === 'delete' ? pending : pending.send({});
+}
+
+describe('role x route matrix', () => {
+  it('has an entry for every route the app serves, and no stale ones', () => {
+    const served = t.routeTable
+      .map((route) => `${route.method.toUpperCase()} ${route.path}`)
+      .sort();
+    expect(served).toEqual(Object.keys(expectedAccess).sort());
+  });
+
+  it('declares the same access in the app as in this matrix', () => {
+    for (const route of t.routeTable) {
+      const key = `${route.method.toUpperCase()} ${route.path}`;
+      expect(route.access, key).toEqual(expectedAccess[key]);
+    }
+  });
+
+  const routes = Object.entries(expectedAccess).filter(([key]) => key !== 'DELETE /api/session');
+  for (const [key, access] of routes) {
+    const [method = 'GET', path = '/'] = key.split(' ');
+    it(`${key}: signed out is ${access === 'public' ? 'allowed' : 'refused with 401'}`, async () => {
+      const response = await call(request(t.app), method, path);
+      if (access === 'public') expect([401, 403]).not.toContain(response.status);
+      else expect(response.status).toBe(401);
+    });
+    for (const role of allRoles) {
+      const allowed = access === 'public' || access.includes(role);
+      it(`${key}: ${role} is ${allowed ? 'allowed' : 'refused with 403'}`, async () => {
+        const response = await call(agents[role], method, path);
+        if (allowed)
+          expect([401, 403], JSON.stringify(response.body)).not.toContain(response.status);
+        else expect(response.status).toBe(403);
+      });
+    }
+  }
+});
