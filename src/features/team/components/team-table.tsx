@@ -38,7 +38,11 @@ export function TeamTable({ members, viewerId }: { members: StaffUser[]; viewerI
           !row.original.active ? (
             <span className="text-danger-700">Deactivated</span>
           ) : row.original.hasPassword ? (
-            <span>Last sign-in {formatDateTime(row.original.lastSignedInAt)}</span>
+            <span>
+              {row.original.lastSignedInAt
+                ? `Last sign-in ${formatDateTime(row.original.lastSignedInAt)}`
+                : 'Not signed in yet'}
+            </span>
           ) : (
             <span className="text-caution-600">Invitation not yet accepted</span>
           ),
