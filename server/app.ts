@@ -14,9 +14,13 @@ import type { Logger } from './lib/logger';
 import { RouteTable } from './lib/route-table';
 import { loadViewer } from './lib/session-cookie';
 import { registerAuthRoutes } from './modules/auth/auth.routes';
+import { registerBookingRoutes } from './modules/booking/booking.routes';
+import { createBookingService } from './modules/booking/booking.service';
 import { createAuthService } from './modules/auth/auth.service';
 import { registerClientsRoutes } from './modules/clients/clients.routes';
 import { createClientsService } from './modules/clients/clients.service';
+import { registerDaysRoutes } from './modules/days/days.routes';
+import { createDaysService } from './modules/days/days.service';
 import { registerDevMailboxRoutes } from './modules/dev-mailbox/dev-mailbox.routes';
 import { registerHealthRoutes } from './modules/health/health.routes';
 import { registerSittersRoutes } from './modules/sitters/sitters.routes';
@@ -77,6 +81,8 @@ export function createApp(deps: AppDeps) {
   const auth = createAuthService({ db, clock, mailer, config, logger });
   const users = createUsersService({ db, auth });
   const clients = createClientsService({ db });
+  const days = createDaysService({ db });
+  const booking = createBookingService({ db, clock, mailer, config, logger });
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
@@ -94,6 +100,8 @@ export function createApp(deps: AppDeps) {
   registerUsersRoutes(routes, users);
   registerClientsRoutes(routes, clients);
   registerSittersRoutes(routes, db);
+  registerDaysRoutes(routes, days, booking);
+  registerBookingRoutes(routes, booking);
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());
   api.use(errorHandler(logger));

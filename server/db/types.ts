@@ -94,6 +94,85 @@ export interface InstallationFactsTable {
   recordedAt: DefaultedTimestamp;
 }
 
+export interface ShootDaysTable {
+  id: Generated<string>;
+  clientId: string;
+  officeId: string;
+  /** A calendar date; repositories read it with to_char(day_date, 'YYYY-MM-DD'). */
+  dayDate: ColumnType<string, string, string>;
+  timeZone: string;
+  address: string;
+  room: Generated<string>;
+  opensAt: string;
+  closesAt: string;
+  breaks: ColumnType<Array<{ start: string; end: string }>, string | undefined, string>;
+  slotMinutes: Generated<number>;
+  bookingOpensAt: Timestamp;
+  bookingClosesAt: Timestamp;
+  changesCloseAt: Timestamp;
+  inviteBy: 'office' | 'department' | 'list';
+  inviteDepartments: ColumnType<string[], string | undefined, string>;
+  status: 'proposed' | 'confirmed';
+  reminderRounds: Generated<number>;
+  createdByUserId: string | null;
+  createdAt: DefaultedTimestamp;
+}
+
+export interface StationsTable {
+  id: Generated<string>;
+  dayId: string;
+  position: number;
+  name: string;
+  photographerId: string | null;
+}
+
+export interface DayInviteesTable {
+  dayId: string;
+  personId: string;
+}
+
+export interface BookingsTable {
+  id: Generated<string>;
+  dayId: string;
+  stationId: string;
+  personId: string;
+  startsAt: Timestamp;
+  status: Generated<'active' | 'cancelled'>;
+  passToken: string;
+  calendarUid: string;
+  sequence: Generated<number>;
+  preferredName: string | null;
+  glasses: Generated<boolean>;
+  accessNeeds: string | null;
+  flashSensitive: Generated<boolean>;
+  bookedByUserId: string | null;
+  createdAt: DefaultedTimestamp;
+  updatedAt: DefaultedTimestamp;
+}
+
+export interface DayMailingsTable {
+  id: Generated<string>;
+  dayId: string;
+  personId: string;
+  kind: 'invitation' | 'reminder' | 'day_before';
+  round: Generated<number>;
+  status: Generated<'queued' | 'sent' | 'failed'>;
+  reason: string | null;
+  queuedAt: DefaultedTimestamp;
+  sentAt: Timestamp | null;
+}
+
+export interface JobQueueTable {
+  id: Generated<string>;
+  kind: string;
+  payload: ColumnType<unknown, string, string>;
+  runAt: DefaultedTimestamp;
+  attempts: Generated<number>;
+  lockedUntil: Timestamp | null;
+  doneAt: Timestamp | null;
+  lastError: string | null;
+}
+
 export interface Database {
   clients: ClientsTable;
   users: UsersTable;
@@ -104,6 +183,12 @@ export interface Database {
   rateLimitCounters: RateLimitCountersTable;
   auditEvents: AuditEventsTable;
   installationFacts: InstallationFactsTable;
+  shootDays: ShootDaysTable;
+  stations: StationsTable;
+  dayInvitees: DayInviteesTable;
+  bookings: BookingsTable;
+  dayMailings: DayMailingsTable;
+  jobQueue: JobQueueTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

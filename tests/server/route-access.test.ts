@@ -2,6 +2,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '../../server/schemas/common';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
+import { insertDay } from '../factories/days';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { signedInAgent, signedInSitter } from './helpers';
 
@@ -28,6 +29,21 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/sitters/me': ['sitter'],
   'GET /api/dev/mailbox': ['studio_admin'],
   'GET /api/dev/mailbox/:messageId': ['studio_admin'],
+  'GET /api/days': ['studio_admin', 'coordinator', 'photographer'],
+  'POST /api/days': ['studio_admin', 'coordinator'],
+  'GET /api/days/:dayId': ['studio_admin', 'coordinator', 'photographer'],
+  'POST /api/days/:dayId/confirmation': ['studio_admin'],
+  'GET /api/days/:dayId/slots': ['studio_admin', 'coordinator', 'photographer', 'sitter'],
+  'GET /api/sitters/me/days': ['sitter'],
+  'POST /api/bookings': ['sitter', 'coordinator', 'studio_admin'],
+  'PATCH /api/bookings/:bookingId': ['sitter', 'coordinator', 'studio_admin'],
+  'DELETE /api/bookings/:bookingId': ['sitter', 'coordinator', 'studio_admin'],
+  'GET /api/bookings/:bookingId/pass.png': [
+    'sitter',
+    'coordinator',
+    'studio_admin',
+    'photographer',
+  ],
 };
 
 const allRoles: Role[] = ['studio_admin', 'photographer', 'coordinator', 'sitter'];
@@ -47,6 +63,24 @@ beforeAll(async () => {
   const coordinator = await insertStaff(t.db, { role: 'coordinator', clientId: client.id });
   const person = await insertPerson(t.db, client.id, { officeId: office.id });
   const target = await insertStaff(t.db, { role: 'photographer' });
+  // A day staffed by the signed-in photographer, inviting the sitter, who holds a booking.
+  const day = await insertDay(t.db, {
+    clientId: client.id,
+    officeId: office.id,
+    photographerIds: [photographer.id],
+  });
+  const booking = await t.db
+    .insertInto('bookings')
+    .values({
+      dayId: day.id,
+      stationId: day.stations[0]!.id,
+      personId: person.id,
+      startsAt: new Date(`${day.date}T09:00:00Z`),
+      passToken: 'ABCDEFGHIJKLMNOPQRSTUVWXYZ',
+      calendarUid: 'route-access@likeness',
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
   agents = {
     studio_admin: await signedInAgent(t, admin.email),
     photographer: await signedInAgent(t, photographer.email),
@@ -58,6 +92,8 @@ beforeAll(async () => {
     clientId: client.id,
     userId: target.id,
     messageId: t.mail.list()[0]?.id ?? 'none',
+    dayId: day.id,
+    bookingId: booking.id,
   };
 });
 afterAll(() => t.close());

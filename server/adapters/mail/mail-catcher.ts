@@ -10,6 +10,8 @@ export interface CaughtMail {
   subject: string;
   text: string;
   html: string;
+  /** Attachments and calendar parts, content base64-encoded, so tests can decode them. */
+  attachments: Array<{ filename: string; contentType: string; content: string }>;
 }
 
 export interface Mailbox {
@@ -50,6 +52,11 @@ export async function startMailCatcher(port = 0, keep = 500): Promise<MailCatche
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',
             html: typeof parsed.html === 'string' ? parsed.html : '',
+            attachments: parsed.attachments.map((attachment) => ({
+              filename: attachment.filename ?? '',
+              contentType: attachment.contentType,
+              content: attachment.content.toString('base64'),
+            })),
           });
           messages.splice(keep);
           for (const wake of waiters) wake();

@@ -5,6 +5,15 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** Files; an image with a cid can be shown inside the HTML part as <img src="cid:...">. */
+  attachments?: Array<{
+    filename: string;
+    content: Buffer | string;
+    contentType: string;
+    cid?: string;
+  }>;
+  /** A calendar part (text/calendar; method=...), as RFC 6047 asks for iTIP over e-mail. */
+  calendar?: { method: 'REQUEST' | 'CANCEL'; content: string; filename: string };
 }
 
 /** Sends mail; the real and the local implementation both speak SMTP through nodemailer. */
@@ -28,7 +37,12 @@ export function createSmtpMailer(options: { smtpUrl: string; from: string }): Ma
   });
   return {
     async send(mail) {
-      await transport.sendMail({ from: options.from, ...mail });
+      const { calendar, ...rest } = mail;
+      await transport.sendMail({
+        from: options.from,
+        ...rest,
+        ...(calendar ? { icalEvent: calendar } : {}),
+      });
     },
     close() {
       transport.close();

@@ -1,0 +1,325 @@
+import { randomUUID } from 'node:crypto';
+import type { Clock } from '../../adapters/clock';
+import type { Mailer } from '../../adapters/mail/mailer';
+import type { AppConfig } from '../../config';
+import type { Db } from '../../db/database';
+import { AppError, notFound } from '../../lib/errors';
+import type { Logger } from '../../lib/logger';
+import type { Viewer } from '../../lib/viewer';
+import type { Booking, CreateBookingInput, SitterDay } from '../../schemas/booking';
+import type { SlotList } from '../../schemas/days';
+import * as daysRepo from '../days/days.repository';
+import { hoursOf, staffMaySee } from '../days/days.service';
+import { generateSlots, isSlotStart } from '../days/slots';
+import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
+import { bookingMail } from './booking.mails';
+import * as repo from './booking.repository';
+import { writeIcs } from './ics';
+import { newPassToken, passPng } from './pass';
+
+export type BookingService = ReturnType<typeof createBookingService>;
+
+const conflict = (code: string, message: string) => new AppError(code, 409, message);
+
+const isUniqueViolation = (error: unknown) =>
+  typeof error === 'object' && error !== null && (error as { code?: unknown }).code === '23505';
+
+export function createBookingService(deps: {
+  db: Db;
+  clock: Clock;
+  mailer: Mailer;
+  config: AppConfig;
+  logger: Logger;
+}) {
+  const { db, clock, mailer, config, logger } = deps;
+  const organizerEmail = /<([^>]+)>/.exec(config.mailFrom)?.[1] ?? config.mailFrom;
+
+  async function isInvited(day: daysRepo.DayRecord, personId: string): Promise<boolean> {
+    const row = await daysRepo
+      .invitedPeopleQuery(db, day)
+      .where('people.id', '=', personId)
+      .executeTakeFirst();
+    return row !== undefined;
+  }
+
+  /** A day as a sitter may see it: confirmed and inviting them; anything else is 404. */
+  async function sitterDay(viewer: Viewer, dayId: string): Promise<daysRepo.DayRecord> {
+    const day = await daysRepo.findDay(db, dayId);
+    if (!day || day.status !== 'confirmed' || !(await isInvited(day, viewer.id))) {
+      throw notFound('That shoot day');
+    }
+    return day;
+  }
+
+  async function dayFor(viewer: Viewer, dayId: string): Promise<daysRepo.DayRecord> {
+    if (viewer.role === 'sitter') return sitterDay(viewer, dayId);
+    const day = await daysRepo.findDay(db, dayId);
+    if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
+    return day;
+  }
+
+  /** A booking the viewer may act on: their own as a sitter, their client's as a coordinator. */
+  async function visibleBooking(viewer: Viewer, id: string) {
+    const booking = await repo.findBooking(db, id);
+    if (!booking) throw notFound('That booking');
+    const day = await daysRepo.findDay(db, booking.dayId);
+    if (!day) throw notFound('That booking');
+    const allowed =
+      viewer.role === 'sitter' ? booking.personId === viewer.id : staffMaySee(viewer, day);
+    if (!allowed) throw notFound('That booking');
+    return { booking, day };
+  }
+
+  function toDto(booking: repo.BookingRecord, day: daysRepo.DayRecord, viewer: Viewer): Booking {
+    const wall = wallClockAt(booking.startsAt.getTime(), day.timeZone);
+    return {
+      id: booking.id,
+      dayId: booking.dayId,
+      personId: booking.personId,
+      personName: booking.personName,
+      stationName: booking.stationName,
+      startsAt: booking.startsAt.toISOString(),
+      localTime: wall.time,
+      localDate: wall.date,
+      offset: formatOffset(offsetMinutesAt(booking.startsAt.getTime(), day.timeZone)),
+      timeZone: day.timeZone,
+      status: booking.status,
+      sequence: booking.sequence,
+      preferredName: booking.preferredName,
+      glasses: booking.glasses,
+      accessNeeds: booking.accessNeeds,
+      flashSensitive: booking.flashSensitive,
+      canChange: booking.status === 'active' && mayChange(viewer, day),
+    };
+  }
+
+  /** Sitters change until the cut-off; the studio and coordinators until the day is over. */
+  function mayChange(viewer: Viewer, day: daysRepo.DayRecord): boolean {
+    const now = clock.now();
+    if (viewer.role === 'sitter') return now < day.changesCloseAt;
+    const slots = generateSlots(hoursOf(day));
+    const last = slots.at(-1);
+    return last ? now.getTime() < Date.parse(last.endsAt) : false;
+  }
+
+  function checkSlot(day: daysRepo.DayRecord, startsAt: Date) {
+    if (!isSlotStart(hoursOf(day), startsAt)) {
+      throw new AppError('invalid_input', 400, 'That is not one of the day’s slots.', {
+        fieldErrors: { startsAt: ['Pick one of the listed slots.'] },
+      });
+    }
+  }
+
+  async function sendMail(
+    kind: 'booked' | 'moved' | 'cancelled' | 'day_before',
+    bookingId: string,
+  ): Promise<void> {
+    const booking = await repo.findBooking(db, bookingId);
+    const day = booking ? await daysRepo.findDay(db, booking.dayId) : undefined;
+    if (!booking || !day) return;
+    const endsAt = new Date(booking.startsAt.getTime() + day.slotMinutes * 60_000);
+    const ics = writeIcs({
+      method: kind === 'cancelled' ? 'CANCEL' : 'REQUEST',
+      uid: booking.calendarUid,
+      sequence: booking.sequence,
+      stampedAt: clock.now(),
+      startsAt: booking.startsAt,
+      endsAt,
+      timeZone: day.timeZone,
+      summary: `Portrait sitting (${day.clientName})`,
+      location: day.room ? `${day.room}, ${day.address}` : day.address,
+      description: `Station ${booking.stationName}. Show your pass at the station.`,
+      organizer: { name: 'Likeness bookings', email: organizerEmail },
+      attendee: { name: booking.personName, email: booking.personEmail },
+    });
+    await mailer.send(
+      bookingMail({
+        kind,
+        to: booking.personEmail,
+        name: booking.preferredName ?? booking.personName,
+        day,
+        startsAt: booking.startsAt,
+        passPng: kind === 'cancelled' ? null : await passPng(booking.passToken),
+        ics,
+        url: `${config.publicUrl}/`,
+      }),
+    );
+  }
+
+  /** Mail goes out after the commit; a mail failure is logged and never undoes the booking. */
+  function mailLater(kind: 'booked' | 'moved' | 'cancelled', bookingId: string) {
+    sendMail(kind, bookingId).catch((error: unknown) =>
+      logger.error({ err: error, bookingId }, 'booking mail failed'),
+    );
+  }
+
+  return {
+    sendMail,
+
+    async sitterDays(viewer: Viewer): Promise<SitterDay[]> {
+      if (!viewer.clientId) return [];
+      const ids = await repo.confirmedDaysOfClient(db, viewer.clientId);
+      const days = await daysRepo.listDays(db, { dayIds: ids });
+      const now = clock.now();
+      const result: SitterDay[] = [];
+      for (const day of days) {
+        if (!(await isInvited(day, viewer.id))) continue;
+        const booking = await repo.activeBookingOf(db, day.id, viewer.id);
+        result.push({
+          id: day.id,
+          clientName: day.clientName,
+          officeName: day.officeName,
+          date: day.date,
+          timeZone: day.timeZone,
+          address: day.address,
+          room: day.room,
+          bookingOpensAt: day.bookingOpensAt.toISOString(),
+          bookingClosesAt: day.bookingClosesAt.toISOString(),
+          changesCloseAt: day.changesCloseAt.toISOString(),
+          bookingOpen: now >= day.bookingOpensAt && now < day.bookingClosesAt,
+          booking: booking ? toDto(booking, day, viewer) : null,
+        });
+      }
+      return result;
+    },
+
+    async slots(viewer: Viewer, dayId: string): Promise<SlotList> {
+      const day = await dayFor(viewer, dayId);
+      const taken = await repo.takenSeatsByStart(db, dayId);
+      const stations = day.stations.length;
+      const now = clock.now().getTime();
+      return {
+        timeZone: day.timeZone,
+        slots: generateSlots(hoursOf(day))
+          .filter((slot) => viewer.role !== 'sitter' || Date.parse(slot.startsAt) > now)
+          .map((slot) => ({
+            ...slot,
+            free: Math.max(0, stations - (taken.get(slot.startsAt) ?? 0)),
+          })),
+      };
+    },
+
+    async create(
+      viewer: Viewer,
+      input: CreateBookingInput,
+    ): Promise<{ booking: Booking; created: boolean }> {
+      const personId = viewer.role === 'sitter' ? viewer.id : input.personId;
+      if (!personId) {
+        throw new AppError('invalid_input', 400, 'Say who the booking is for.', {
+          fieldErrors: { personId: ['Pick the person to book.'] },
+        });
+      }
+      const day = await dayFor(viewer, input.dayId);
+      if (day.status !== 'confirmed')
+        throw conflict('day_not_confirmed', 'This day is not confirmed yet.');
+      if (viewer.role !== 'sitter' && !(await isInvited(day, personId))) {
+        throw notFound('That person');
+      }
+      const now = clock.now();
+      if (viewer.role === 'sitter' && (now < day.bookingOpensAt || now >= day.bookingClosesAt)) {
+        throw conflict('booking_closed', 'Booking for this day is not open right now.');
+      }
+      const startsAt = new Date(input.startsAt);
+      checkSlot(day, startsAt);
+      if (startsAt <= now) throw conflict('slot_past', 'That slot has already begun.');
+
+      const outcome = await db.transaction().execute(async (trx) => {
+        const person = await repo.lockPerson(trx, personId);
+        if (!person?.active || person.clientId !== day.clientId) throw notFound('That person');
+        const existing = await repo.activeBookingOf(trx, day.id, personId);
+        if (existing) {
+          // A second click on the same slot is the same booking, not an error.
+          if (existing.startsAt.getTime() === startsAt.getTime()) {
+            return { id: existing.id, created: false };
+          }
+          throw conflict('already_booked', 'You already have a slot that day: move it instead.');
+        }
+        for (const stationId of await repo.freeStationsAt(trx, day.id, startsAt)) {
+          const id = await repo.insertBookingIfFree(trx, {
+            dayId: day.id,
+            stationId,
+            personId,
+            startsAt,
+            passToken: newPassToken(),
+            calendarUid: `${randomUUID()}@likeness`,
+            preferredName: input.preferredName,
+            glasses: input.glasses,
+            accessNeeds: input.accessNeeds,
+            flashSensitive: input.flashSensitive,
+            bookedByUserId: viewer.kind === 'staff' ? viewer.id : null,
+          });
+          if (id) return { id, created: true };
+        }
+        throw conflict('slot_taken', 'That slot has just been taken. Please pick another.');
+      });
+      const booking = await repo.findBooking(db, outcome.id);
+      if (!booking) throw notFound('That booking');
+      if (outcome.created) mailLater('booked', booking.id);
+      return { booking: toDto(booking, day, viewer), created: outcome.created };
+    },
+
+    async move(viewer: Viewer, id: string, startsAtText: string): Promise<Booking> {
+      const { day } = await visibleBooking(viewer, id);
+      if (!mayChange(viewer, day)) {
+        throw conflict(
+          'changes_closed',
+          'Changes are closed for this day: contact your coordinator.',
+        );
+      }
+      const startsAt = new Date(startsAtText);
+      checkSlot(day, startsAt);
+      if (startsAt <= clock.now()) throw conflict('slot_past', 'That slot has already begun.');
+      let moved = false;
+      try {
+        await db.transaction().execute(async (trx) => {
+          const locked = await repo.lockBooking(trx, id);
+          if (locked?.status !== 'active')
+            throw conflict('booking_cancelled', 'That booking was cancelled.');
+          const current = await repo.findBooking(trx, id);
+          if (current?.startsAt.getTime() === startsAt.getTime()) return;
+          const [stationId] = await repo.freeStationsAt(trx, day.id, startsAt);
+          if (!stationId) throw conflict('slot_taken', 'That slot is full. Please pick another.');
+          await repo.moveBooking(trx, id, stationId, startsAt, clock.now());
+          moved = true;
+        });
+      } catch (error) {
+        // Another sitter took the seat between our read and our write: the index refused it.
+        if (isUniqueViolation(error)) {
+          throw conflict('slot_taken', 'That slot has just been taken. Please pick another.');
+        }
+        throw error;
+      }
+      if (moved) mailLater('moved', id);
+      const booking = await repo.findBooking(db, id);
+      if (!booking) throw notFound('That booking');
+      return toDto(booking, day, viewer);
+    },
+
+    async cancel(viewer: Viewer, id: string): Promise<Booking> {
+      const { day } = await visibleBooking(viewer, id);
+      if (!mayChange(viewer, day)) {
+        throw conflict(
+          'changes_closed',
+          'Changes are closed for this day: contact your coordinator.',
+        );
+      }
+      let cancelled = false;
+      await db.transaction().execute(async (trx) => {
+        const locked = await repo.lockBooking(trx, id);
+        if (locked?.status !== 'active') return;
+        await repo.cancelBooking(trx, id, clock.now());
+        cancelled = true;
+      });
+      if (cancelled) mailLater('cancelled', id);
+      const booking = await repo.findBooking(db, id);
+      if (!booking) throw notFound('That booking');
+      return toDto(booking, day, viewer);
+    },
+
+    async pass(viewer: Viewer, id: string): Promise<Buffer> {
+      const { booking } = await visibleBooking(viewer, id);
+      if (booking.status !== 'active') throw notFound('That pass');
+      return passPng(booking.passToken);
+    },
+  };
+}

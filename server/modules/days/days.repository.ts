@@ -1,0 +1,289 @@
+import { sql, type Transaction } from 'kysely';
+import type { Db } from '../../db/database';
+import type { Database } from '../../db/types';
+import type { CreateDayInput } from '../../schemas/days';
+
+type Executor = Db | Transaction<Database>;
+
+export interface DayRecord {
+  id: string;
+  clientId: string;
+  clientName: string;
+  officeId: string;
+  officeName: string;
+  date: string;
+  timeZone: string;
+  address: string;
+  room: string;
+  opensAt: string;
+  closesAt: string;
+  breaks: Array<{ start: string; end: string }>;
+  slotMinutes: number;
+  bookingOpensAt: Date;
+  bookingClosesAt: Date;
+  changesCloseAt: Date;
+  inviteBy: 'office' | 'department' | 'list';
+  inviteDepartments: string[];
+  status: 'proposed' | 'confirmed';
+  reminderRounds: number;
+  stations: Array<{
+    id: string;
+    name: string;
+    photographerId: string | null;
+    photographerName: string | null;
+  }>;
+}
+
+export interface DayFilter {
+  clientId?: string | null;
+  photographerId?: string | null;
+  dayIds?: string[];
+}
+
+function dayQuery(db: Executor) {
+  return db
+    .selectFrom('shootDays')
+    .innerJoin('clients', 'clients.id', 'shootDays.clientId')
+    .innerJoin('offices', 'offices.id', 'shootDays.officeId')
+    .select([
+      'shootDays.id',
+      'shootDays.clientId',
+      'clients.name as clientName',
+      'shootDays.officeId',
+      'offices.name as officeName',
+      sql<string>`to_char(shoot_days.day_date, 'YYYY-MM-DD')`.as('date'),
+      'shootDays.timeZone',
+      'shootDays.address',
+      'shootDays.room',
+      'shootDays.opensAt',
+      'shootDays.closesAt',
+      'shootDays.breaks',
+      'shootDays.slotMinutes',
+      'shootDays.bookingOpensAt',
+      'shootDays.bookingClosesAt',
+      'shootDays.changesCloseAt',
+      'shootDays.inviteBy',
+      'shootDays.inviteDepartments',
+      'shootDays.status',
+      'shootDays.reminderRounds',
+    ]);
+}
+
+export async function listDays(db: Executor, filter: DayFilter): Promise<DayRecord[]> {
+  let query = dayQuery(db).orderBy('shootDays.dayDate').orderBy('offices.name');
+  if (filter.clientId) query = query.where('shootDays.clientId', '=', filter.clientId);
+  if (filter.dayIds) {
+    if (filter.dayIds.length === 0) return [];
+    query = query.where('shootDays.id', 'in', filter.dayIds);
+  }
+  if (filter.photographerId) {
+    const photographerId = filter.photographerId;
+    query = query.where((eb) =>
+      eb.exists(
+        eb
+          .selectFrom('stations')
+          .select('stations.id')
+          .whereRef('stations.dayId', '=', 'shootDays.id')
+          .where('stations.photographerId', '=', photographerId),
+      ),
+    );
+  }
+  const rows = await query.execute();
+  if (rows.length === 0) return [];
+  const stations = await db
+    .selectFrom('stations')
+    .leftJoin('users', 'users.id', 'stations.photographerId')
+    .select([
+      'stations.id',
+      'stations.dayId',
+      'stations.name',
+      'stations.photographerId',
+      'users.displayName as photographerName',
+    ])
+    .where(
+      'stations.dayId',
+      'in',
+      rows.map((row) => row.id),
+    )
+    .orderBy('stations.position')
+    .execute();
+  return rows.map((row) => ({
+    ...row,
+    stations: stations
+      .filter((station) => station.dayId === row.id)
+      .map(({ dayId: _dayId, ...station }) => station),
+  }));
+}
+
+export async function findDay(db: Executor, id: string): Promise<DayRecord | undefined> {
+  const [day] = await listDays(db, { dayIds: [id] });
+  return day;
+}
+
+/** Locks the day row: used when a change must not race with another change to the day. */
+export async function lockDay(trx: Transaction<Database>, id: string): Promise<void> {
+  await trx.selectFrom('shootDays').select('id').where('id', '=', id).forUpdate().execute();
+}
+
+export async function officeTimeZone(
+  db: Executor,
+  officeId: string,
+  clientId: string,
+): Promise<string | undefined> {
+  const row = await db
+    .selectFrom('offices')
+    .select('timeZone')
+    .where('id', '=', officeId)
+    .where('clientId', '=', clientId)
+    .executeTakeFirst();
+  return row?.timeZone;
+}
+
+export async function activePhotographerIds(db: Executor, ids: string[]): Promise<Set<string>> {
+  if (ids.length === 0) return new Set();
+  const rows = await db
+    .selectFrom('users')
+    .select('id')
+    .where('id', 'in', ids)
+    .where('role', '=', 'photographer')
+    .where('active', '=', true)
+    .execute();
+  return new Set(rows.map((row) => row.id));
+}
+
+export async function peopleOfClient(db: Executor, clientId: string, ids: string[]) {
+  if (ids.length === 0) return [];
+  return db
+    .selectFrom('people')
+    .select('id')
+    .where('clientId', '=', clientId)
+    .where('id', 'in', ids)
+    .execute();
+}
+
+export async function insertDay(
+  trx: Transaction<Database>,
+  input: CreateDayInput & { timeZone: string; status: 'proposed' | 'confirmed' },
+  createdByUserId: string,
+): Promise<string> {
+  const row = await trx
+    .insertInto('shootDays')
+    .values({
+      clientId: input.clientId,
+      officeId: input.officeId,
+      dayDate: input.date,
+      timeZone: input.timeZone,
+      address: input.address,
+      room: input.room,
+      opensAt: input.opensAt,
+      closesAt: input.closesAt,
+      breaks: JSON.stringify(input.breaks),
+      slotMinutes: input.slotMinutes,
+      bookingOpensAt: input.bookingOpensAt,
+      bookingClosesAt: input.bookingClosesAt,
+      changesCloseAt: input.changesCloseAt,
+      inviteBy: input.inviteBy,
+      inviteDepartments: JSON.stringify(input.inviteDepartments),
+      status: input.status,
+      createdByUserId,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  await trx
+    .insertInto('stations')
+    .values(
+      input.stations.map((station, index) => ({
+        dayId: row.id,
+        position: index + 1,
+        name: station.name,
+        photographerId: station.photographerId,
+      })),
+    )
+    .execute();
+  if (input.inviteBy === 'list' && input.invitePersonIds.length > 0) {
+    await trx
+      .insertInto('dayInvitees')
+      .values([...new Set(input.invitePersonIds)].map((personId) => ({ dayId: row.id, personId })))
+      .execute();
+  }
+  return row.id;
+}
+
+export async function assignPhotographers(
+  trx: Transaction<Database>,
+  dayId: string,
+  assignments: Array<{ id: string; photographerId: string }>,
+): Promise<void> {
+  for (const assignment of assignments) {
+    await trx
+      .updateTable('stations')
+      .set({ photographerId: assignment.photographerId })
+      .where('id', '=', assignment.id)
+      .where('dayId', '=', dayId)
+      .execute();
+  }
+  await trx.updateTable('shootDays').set({ status: 'confirmed' }).where('id', '=', dayId).execute();
+}
+
+export interface InvitedPerson {
+  id: string;
+  name: string;
+  email: string;
+  department: string | null;
+  officeName: string | null;
+}
+
+/**
+ * The people a day invites, from its rule: the office's active people, the named departments
+ * of the client, or a hand-picked list. Read live, so roster changes count.
+ */
+export function invitedPeopleQuery(
+  db: Executor,
+  day: Pick<DayRecord, 'id' | 'clientId' | 'officeId' | 'inviteBy' | 'inviteDepartments'>,
+) {
+  let query = db
+    .selectFrom('people')
+    .leftJoin('offices', 'offices.id', 'people.officeId')
+    .select([
+      'people.id',
+      sql<string>`coalesce(people.preferred_name, people.given_name) || ' ' || people.family_name`.as(
+        'name',
+      ),
+      'people.email',
+      'people.department',
+      'offices.name as officeName',
+    ])
+    .where('people.clientId', '=', day.clientId)
+    .where('people.active', '=', true);
+  if (day.inviteBy === 'office') query = query.where('people.officeId', '=', day.officeId);
+  else if (day.inviteBy === 'department') {
+    query = query.where(
+      'people.department',
+      'in',
+      day.inviteDepartments.length ? day.inviteDepartments : ['\u0000'],
+    );
+  } else {
+    query = query.where((eb) =>
+      eb.exists(
+        eb
+          .selectFrom('dayInvitees')
+          .select('dayInvitees.personId')
+          .where('dayInvitees.dayId', '=', day.id)
+          .whereRef('dayInvitees.personId', '=', 'people.id'),
+      ),
+    );
+  }
+  return query;
+}
+
+export async function bookedCounts(db: Executor, dayIds: string[]): Promise<Map<string, number>> {
+  if (dayIds.length === 0) return new Map();
+  const rows = await db
+    .selectFrom('bookings')
+    .select(['dayId', db.fn.countAll<string>().as('n')])
+    .where('dayId', 'in', dayIds)
+    .where('status', '=', 'active')
+    .groupBy('dayId')
+    .execute();
+  return new Map(rows.map((row) => [row.dayId, Number(row.n)]));
+}
