@@ -23,6 +23,10 @@ import { registerDaysRoutes } from './modules/days/days.routes';
 import { createDaysService } from './modules/days/days.service';
 import { registerDevMailboxRoutes } from './modules/dev-mailbox/dev-mailbox.routes';
 import { registerHealthRoutes } from './modules/health/health.routes';
+import { registerPeopleRoutes } from './modules/people/people.routes';
+import { createPeopleService } from './modules/people/people.service';
+import { registerRosterRoutes } from './modules/roster/roster.routes';
+import { createRosterService } from './modules/roster/roster.service';
 import { registerSittersRoutes } from './modules/sitters/sitters.routes';
 import { registerUsersRoutes } from './modules/users/users.routes';
 import { createUsersService } from './modules/users/users.service';
@@ -39,11 +43,14 @@ export interface AppDeps {
   frontend?: { kind: 'static'; folder: string } | { kind: 'middleware'; handler: RequestHandler };
 }
 
-/** Mutations must be JSON: a cross-site form cannot send that without a preflight. */
+/**
+ * Mutations must be JSON (or raw bytes, for file uploads): a cross-site form can send neither
+ * without a preflight.
+ */
 const requireJsonForMutations: RequestHandler = (req, _res, next) => {
   const mutating = !['GET', 'HEAD', 'OPTIONS'].includes(req.method);
   const hasBody = Number(req.get('content-length') ?? 0) > 0 || req.get('transfer-encoding');
-  if (mutating && hasBody && !req.is('application/json')) {
+  if (mutating && hasBody && !req.is(['application/json', 'application/octet-stream'])) {
     next(new AppError('unsupported_media_type', 415, 'Send the request as JSON.'));
     return;
   }
@@ -81,6 +88,8 @@ export function createApp(deps: AppDeps) {
   const auth = createAuthService({ db, clock, mailer, config, logger });
   const users = createUsersService({ db, auth });
   const clients = createClientsService({ db });
+  const roster = createRosterService({ db });
+  const people = createPeopleService({ db });
   const days = createDaysService({ db });
   const booking = createBookingService({ db, clock, mailer, config, logger });
 
@@ -100,6 +109,8 @@ export function createApp(deps: AppDeps) {
   registerUsersRoutes(routes, users);
   registerClientsRoutes(routes, clients);
   registerSittersRoutes(routes, db);
+  registerRosterRoutes(routes, roster);
+  registerPeopleRoutes(routes, people);
   registerDaysRoutes(routes, days, booking);
   registerBookingRoutes(routes, booking);
   registerDevMailboxRoutes(routes, mailbox);

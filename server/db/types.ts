@@ -1,4 +1,10 @@
 import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
+import type {
+  RosterImportDraftsTable,
+  RosterImportRowsTable,
+  RosterImportsTable,
+  RosterMappingsTable,
+} from './roster-types';
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
@@ -45,6 +51,8 @@ export interface PeopleTable {
   employeeId: string | null;
   department: string | null;
   jobTitle: string | null;
+  /** Roster columns kept as they came (see roster-types.ts). */
+  extras: ColumnType<Record<string, string>, string | undefined, string>;
   active: Generated<boolean>;
   createdAt: DefaultedTimestamp;
   updatedAt: DefaultedTimestamp;
@@ -183,6 +191,10 @@ export interface Database {
   rateLimitCounters: RateLimitCountersTable;
   auditEvents: AuditEventsTable;
   installationFacts: InstallationFactsTable;
+  rosterImportDrafts: RosterImportDraftsTable;
+  rosterImportRows: RosterImportRowsTable;
+  rosterImports: RosterImportsTable;
+  rosterMappings: RosterMappingsTable;
   shootDays: ShootDaysTable;
   stations: StationsTable;
   dayInvitees: DayInviteesTable;

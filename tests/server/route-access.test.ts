@@ -29,6 +29,18 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/sitters/me': ['sitter'],
   'GET /api/dev/mailbox': ['studio_admin'],
   'GET /api/dev/mailbox/:messageId': ['studio_admin'],
+  'POST /api/clients/:clientId/roster/imports': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/roster/imports/:importId': ['studio_admin', 'coordinator'],
+  'PUT /api/clients/:clientId/roster/imports/:importId/mapping': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/roster/imports/:importId/rows': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/roster/imports/:importId/errors.csv': ['studio_admin', 'coordinator'],
+  'POST /api/clients/:clientId/roster/imports/:importId/commit': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/roster/history': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/people': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/people/export.csv': ['studio_admin', 'coordinator'],
+  'POST /api/clients/:clientId/people': ['studio_admin', 'coordinator'],
+  'PATCH /api/clients/:clientId/people/:personId': ['studio_admin', 'coordinator'],
+  'POST /api/clients/:clientId/people/:personId/erasure': ['studio_admin', 'coordinator'],
   'GET /api/days': ['studio_admin', 'coordinator', 'photographer'],
   'POST /api/days': ['studio_admin', 'coordinator'],
   'GET /api/days/:dayId': ['studio_admin', 'coordinator', 'photographer'],
@@ -63,6 +75,8 @@ beforeAll(async () => {
   const coordinator = await insertStaff(t.db, { role: 'coordinator', clientId: client.id });
   const person = await insertPerson(t.db, client.id, { officeId: office.id });
   const target = await insertStaff(t.db, { role: 'photographer' });
+  // Not the sitter: roster routes may change this person without ending the sitter's session.
+  const rosterPerson = await insertPerson(t.db, client.id);
   // A day staffed by the signed-in photographer, inviting the sitter, who holds a booking.
   const day = await insertDay(t.db, {
     clientId: client.id,
@@ -92,6 +106,9 @@ beforeAll(async () => {
     clientId: client.id,
     userId: target.id,
     messageId: t.mail.list()[0]?.id ?? 'none',
+    personId: rosterPerson.id,
+    // An import that does not exist: allowed roles get 404, which is past the role check.
+    importId: '00000000-0000-4000-8000-000000000000',
     dayId: day.id,
     bookingId: booking.id,
   };

@@ -1,0 +1,53 @@
+import type { ColumnType, Generated } from 'kysely';
+
+/** Table types of the roster import (migration 2026-12-02T0900_roster_import). */
+type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
+type Json<T> = ColumnType<T, string, string>;
+
+export interface RosterImportDraftsTable {
+  id: Generated<string>;
+  clientId: string;
+  createdBy: string | null;
+  fileName: string;
+  encoding: string;
+  delimiter: string;
+  headers: Json<string[]>;
+  rawRows: Json<string[][]>;
+  mapping: Json<string[]>;
+  counts: Json<Record<string, number>>;
+  newOffices: Json<string[]>;
+  rosterVersion: string;
+  createdAt: DefaultedTimestamp;
+  expiresAt: ColumnType<Date, Date | string, Date | string>;
+}
+
+export interface RosterImportRowsTable {
+  draftId: string;
+  position: number;
+  rowNumber: number | null;
+  kind: 'add' | 'update' | 'unchanged' | 'error' | 'missing';
+  personId: string | null;
+  sortName: string;
+  email: string;
+  data: Json<unknown>;
+}
+
+export interface RosterImportsTable {
+  id: Generated<string>;
+  clientId: string;
+  importedBy: string | null;
+  fileName: string;
+  importedAt: DefaultedTimestamp;
+  added: number;
+  updated: number;
+  unchanged: number;
+  deactivated: number;
+  skipped: number;
+  officesCreated: number;
+}
+
+export interface RosterMappingsTable {
+  clientId: string;
+  mapping: Json<Record<string, string>>;
+  updatedAt: DefaultedTimestamp;
+}

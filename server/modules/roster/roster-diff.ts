@@ -1,0 +1,178 @@
+import type { PreviewKind, PreviewRow, PreviewValues, RosterField } from '../../schemas/roster';
+import type { CheckedRow } from './roster-rows';
+
+/** A person already on the client's roster, as the diff needs them. */
+export interface ExistingPerson {
+  id: string;
+  givenName: string;
+  familyName: string;
+  preferredName: string | null;
+  email: string;
+  employeeId: string | null;
+  department: string | null;
+  jobTitle: string | null;
+  officeName: string | null;
+  extras: Record<string, string>;
+  active: boolean;
+}
+
+export interface RosterDiff {
+  rows: PreviewRow[];
+  newOffices: string[];
+}
+
+const comparedFields: RosterField[] = [
+  'givenName',
+  'familyName',
+  'preferredName',
+  'email',
+  'employeeId',
+  'department',
+  'jobTitle',
+  'office',
+];
+
+function currentValues(person: ExistingPerson): PreviewValues {
+  const { officeName, extras, active, ...rest } = person;
+  return { ...rest, office: officeName, extras, active };
+}
+
+function sameExtras(a: Record<string, string>, b: Record<string, string>): boolean {
+  const keys = Object.keys(a);
+  return keys.length === Object.keys(b).length && keys.every((key) => a[key] === b[key]);
+}
+
+/**
+ * Classifies checked rows against the roster. A row matches a person by employee id first,
+ * then by e-mail (case-insensitive). Only the columns the mapping uses are compared and later
+ * written; a column left out keeps what the person has. Active people no row matches are
+ * "missing". The result is what commit applies, row for row.
+ */
+export function diffRoster(
+  checked: readonly CheckedRow[],
+  existing: readonly ExistingPerson[],
+  knownOffices: readonly string[],
+  mappedFields: ReadonlySet<RosterField>,
+  extrasMapped: boolean,
+): RosterDiff {
+  const byEmployeeId = new Map<string, ExistingPerson>();
+  const byEmail = new Map<string, ExistingPerson>();
+  for (const person of existing) {
+    if (person.employeeId) byEmployeeId.set(person.employeeId, person);
+    byEmail.set(person.email.toLowerCase(), person);
+  }
+  const officeKeys = new Set(knownOffices.map((name) => name.toLowerCase()));
+  const newOffices = new Map<string, string>();
+  const claimed = new Map<string, number>();
+  const rows: PreviewRow[] = [];
+
+  const find = (employeeId: string | null | undefined, email: string | null | undefined) =>
+    (employeeId ? byEmployeeId.get(employeeId.trim()) : undefined) ??
+    (email ? byEmail.get(email.trim().toLowerCase()) : undefined);
+
+  for (const item of checked) {
+    const position = rows.length + 1;
+    const base = { position, rowNumber: item.rowNumber, changedFields: [] as string[] };
+    const match = find(item.values.employeeId, item.values.email);
+    if (match) {
+      // An error row still protects its person from being marked missing.
+      if (!claimed.has(match.id)) claimed.set(match.id, item.rowNumber);
+      else if (item.row) {
+        item.errors.email = `This person is already on row ${claimed.get(match.id)}.`;
+        item.row = null;
+      }
+    }
+    if (!item.row) {
+      rows.push({
+        ...base,
+        kind: 'error',
+        personId: null,
+        values: { ...item.values, extras: item.extras },
+        before: null,
+        errors: item.errors,
+      });
+      continue;
+    }
+    const row = item.row;
+    if (row.office && !officeKeys.has(row.office.toLowerCase())) {
+      newOffices.set(
+        row.office.toLowerCase(),
+        newOffices.get(row.office.toLowerCase()) ?? row.office,
+      );
+    }
+    if (match) {
+      const emailOwner = byEmail.get(row.email);
+      if (emailOwner && emailOwner.id !== match.id) {
+        rows.push({
+          ...base,
+          kind: 'error',
+          personId: null,
+          values: { ...row, extras: item.extras },
+          before: null,
+          errors: { email: 'This e-mail belongs to another person on the roster.' },
+        });
+        continue;
+      }
+    }
+    if (!match) {
+      rows.push({
+        ...base,
+        kind: 'add',
+        personId: null,
+        values: { ...row, extras: item.extras, active: true },
+        before: null,
+        errors: {},
+      });
+      continue;
+    }
+    const before = currentValues(match);
+    const after: PreviewValues = { ...before };
+    const changed: string[] = [];
+    for (const field of comparedFields) {
+      if (!mappedFields.has(field)) continue;
+      const next = row[field] ?? null;
+      const previous = before[field] ?? null;
+      const same =
+        field === 'office' || field === 'email'
+          ? (next ?? '').toLowerCase() === (previous ?? '').toLowerCase()
+          : next === previous;
+      if (!same) {
+        after[field] = next;
+        changed.push(field);
+      }
+    }
+    if (extrasMapped && !sameExtras(item.extras, match.extras)) {
+      after.extras = item.extras;
+      changed.push('extras');
+    }
+    if (!match.active) {
+      after.active = true;
+      changed.push('active');
+    }
+    const kind: PreviewKind = changed.length > 0 ? 'update' : 'unchanged';
+    rows.push({
+      ...base,
+      kind,
+      personId: match.id,
+      values: after,
+      before: kind === 'update' ? before : null,
+      changedFields: changed,
+      errors: {},
+    });
+  }
+
+  for (const person of existing) {
+    if (!person.active || claimed.has(person.id)) continue;
+    rows.push({
+      position: rows.length + 1,
+      rowNumber: null,
+      kind: 'missing',
+      personId: person.id,
+      values: { ...currentValues(person), active: false },
+      before: currentValues(person),
+      changedFields: ['active'],
+      errors: {},
+    });
+  }
+  return { rows, newOffices: [...newOffices.values()].sort() };
+}

@@ -1,0 +1,228 @@
+import type { Db } from '../../db/database';
+import { recordAudit } from '../../lib/audit';
+import { AppError, notFound } from '../../lib/errors';
+import type { Viewer } from '../../lib/viewer';
+import {
+  columnMappingSchema,
+  commitImportRequestSchema,
+  previewQuerySchema,
+  type ColumnMapping,
+  type ColumnTarget,
+  type CommitImportRequest,
+  type ImportSummary,
+  type PreviewCounts,
+  type PreviewQuery,
+  type PreviewRow,
+  type RosterDraft,
+  type RosterField,
+} from '../../schemas/roster';
+import { assertClientAccess } from './client-access';
+import { mappingToRemember, suggestMapping } from './column-mapping';
+import { toCsv } from './csv-export';
+import { parseRosterFile } from './csv-decode';
+import { diffRoster } from './roster-diff';
+import { checkRows } from './roster-rows';
+import * as repo from './roster.repository';
+import { applyImport } from './apply-import';
+
+export type RosterService = ReturnType<typeof createRosterService>;
+
+const draftLifetimeMs = 24 * 60 * 60 * 1000;
+
+export function mappingProblems(mapping: ColumnMapping): string[] {
+  const result = columnMappingSchema.safeParse(mapping);
+  return result.success ? [] : result.error.issues.map((issue) => issue.message);
+}
+
+function countKinds(rows: readonly PreviewRow[]): PreviewCounts {
+  const counts: PreviewCounts = { add: 0, update: 0, unchanged: 0, error: 0, missing: 0 };
+  for (const row of rows) counts[row.kind] += 1;
+  return counts;
+}
+
+/** Validates and diffs the file against the roster as it is now. Reads only. */
+async function computePreview(
+  db: Db,
+  clientId: string,
+  headers: string[],
+  rawRows: string[][],
+  mapping: ColumnMapping,
+) {
+  const version = await repo.rosterVersion(db, clientId);
+  if (mappingProblems(mapping).length > 0) {
+    return { rows: [], counts: countKinds([]), newOffices: [], version };
+  }
+  const [existing, offices] = await Promise.all([
+    repo.loadRoster(db, clientId),
+    repo.listOffices(db, clientId),
+  ]);
+  const checked = checkRows(headers, rawRows, mapping);
+  const mapped = new Set(mapping.filter((target) => target !== 'extra' && target !== 'ignore'));
+  const diff = diffRoster(
+    checked,
+    existing,
+    offices.map((office) => office.name),
+    mapped as Set<RosterField>,
+    mapping.includes('extra'),
+  );
+  return { rows: diff.rows, counts: countKinds(diff.rows), newOffices: diff.newOffices, version };
+}
+
+export function createRosterService(deps: { db: Db }) {
+  const { db } = deps;
+
+  async function view(clientId: string, draft: repo.DraftRecord): Promise<RosterDraft> {
+    return {
+      id: draft.id,
+      fileName: draft.fileName,
+      encoding: draft.encoding,
+      delimiter: draft.delimiter,
+      rowCount: draft.rawRows.length,
+      headers: draft.headers,
+      sampleRows: draft.rawRows.slice(0, 3),
+      mapping: draft.mapping,
+      mappingProblems: mappingProblems(draft.mapping),
+      counts: draft.counts,
+      newOffices: draft.newOffices,
+      knownOffices: await repo.listOffices(db, clientId),
+      expiresAt: draft.expiresAt.toISOString(),
+    };
+  }
+
+  async function draftOf(clientId: string, draftId: string, forUpdate = false) {
+    const draft = await repo.findDraft(db, clientId, draftId, { forUpdate });
+    if (!draft) throw notFound('That import (it may have expired: upload the file again)');
+    return draft;
+  }
+
+  return {
+    /** Parses the upload and previews it with the suggested mapping. The roster is untouched. */
+    async upload(viewer: Viewer, clientId: string, fileName: string, bytes: Uint8Array) {
+      await assertClientAccess(db, viewer, clientId);
+      const parsed = parseRosterFile(bytes);
+      const saved = (await repo.savedMapping(db, clientId)) as Record<string, ColumnTarget>;
+      const mapping = suggestMapping(parsed.headers, saved);
+      const preview = await computePreview(db, clientId, parsed.headers, parsed.rows, mapping);
+      const draft = await db.transaction().execute(async (trx) => {
+        await repo.deleteStaleDrafts(trx, clientId);
+        const record = {
+          clientId,
+          fileName,
+          encoding: parsed.encoding,
+          delimiter: parsed.delimiter,
+          headers: parsed.headers,
+          rawRows: parsed.rows,
+          mapping,
+          counts: preview.counts,
+          newOffices: preview.newOffices,
+          rosterVersion: preview.version,
+          expiresAt: new Date(Date.now() + draftLifetimeMs),
+        };
+        const id = await repo.insertDraft(trx, { ...record, createdBy: viewer.id });
+        await repo.replacePreviewRows(trx, id, preview.rows);
+        return { id, ...record };
+      });
+      return view(clientId, draft);
+    },
+
+    async get(viewer: Viewer, clientId: string, draftId: string) {
+      await assertClientAccess(db, viewer, clientId);
+      return view(clientId, await draftOf(clientId, draftId));
+    },
+
+    async remap(viewer: Viewer, clientId: string, draftId: string, mapping: ColumnMapping) {
+      await assertClientAccess(db, viewer, clientId);
+      const draft = await draftOf(clientId, draftId);
+      if (mapping.length !== draft.headers.length) {
+        throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
+      }
+      const preview = await computePreview(db, clientId, draft.headers, draft.rawRows, mapping);
+      await db.transaction().execute(async (trx) => {
+        await repo.updateDraftPreview(trx, draftId, {
+          mapping,
+          counts: preview.counts,
+          newOffices: preview.newOffices,
+          rosterVersion: preview.version,
+        });
+        await repo.replacePreviewRows(trx, draftId, preview.rows);
+      });
+      return view(clientId, {
+        ...draft,
+        mapping,
+        counts: preview.counts,
+        newOffices: preview.newOffices,
+      });
+    },
+
+    async previewRows(viewer: Viewer, clientId: string, draftId: string, query: PreviewQuery) {
+      await assertClientAccess(db, viewer, clientId);
+      await draftOf(clientId, draftId);
+      return repo.previewPage(db, draftId, previewQuerySchema.parse(query));
+    },
+
+    /** The rows in error as CSV: the file's own columns plus what to fix, ready to correct. */
+    async errorCsv(viewer: Viewer, clientId: string, draftId: string): Promise<string> {
+      await assertClientAccess(db, viewer, clientId);
+      const draft = await draftOf(clientId, draftId);
+      const errors = await repo.previewRowsOfKinds(db, draftId, ['error']);
+      const records = errors.map((row) => [
+        ...(draft.rawRows[(row.rowNumber ?? 2) - 2] ?? []),
+        Object.values(row.errors).join(' '),
+      ]);
+      return toCsv([[...draft.headers, 'What to fix'], ...records]);
+    },
+
+    /** Applies exactly the previewed rows in one transaction; nothing is written if any fails. */
+    async commit(
+      viewer: Viewer,
+      clientId: string,
+      draftId: string,
+      request: CommitImportRequest,
+    ): Promise<ImportSummary> {
+      await assertClientAccess(db, viewer, clientId);
+      const input = commitImportRequestSchema.parse(request);
+      const summary = await db.transaction().execute(async (trx) => {
+        await repo.lockClient(trx, clientId);
+        const draft = await repo.findDraft(trx, clientId, draftId, { forUpdate: true });
+        if (!draft) throw notFound('That import (it may have expired: upload the file again)');
+        if (mappingProblems(draft.mapping).length > 0) {
+          throw new AppError('mapping_incomplete', 409, 'Finish the column mapping first.');
+        }
+        if ((await repo.rosterVersion(trx, clientId)) !== draft.rosterVersion) {
+          throw new AppError(
+            'roster_changed',
+            409,
+            'The roster changed since this preview. Check the preview again, then confirm.',
+          );
+        }
+        const result = await applyImport(trx, clientId, draft, input);
+        await repo.saveMapping(trx, clientId, mappingToRemember(draft.headers, draft.mapping));
+        const id = await repo.insertImport(trx, {
+          clientId,
+          importedBy: viewer.kind === 'staff' ? viewer.id : null,
+          fileName: draft.fileName,
+          ...result,
+        });
+        await repo.deleteDraft(trx, draftId);
+        await recordAudit(trx, {
+          actorUserId: viewer.id,
+          action: 'roster.imported',
+          subjectType: 'client',
+          subjectId: clientId,
+          details: { importId: id, ...result },
+        });
+        return { id, ...result };
+      });
+      const [entry] = (await repo.listImports(db, clientId)).filter(
+        (item) => item.id === summary.id,
+      );
+      if (!entry) throw notFound('That import');
+      return entry;
+    },
+
+    async history(viewer: Viewer, clientId: string) {
+      await assertClientAccess(db, viewer, clientId);
+      return repo.listImports(db, clientId);
+    },
+  };
+}

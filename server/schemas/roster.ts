@@ -1,0 +1,205 @@
+import { z } from 'zod';
+import { emailSchema } from './common';
+
+/** Our own fields a roster column can fill. */
+export const rosterFields = [
+  'givenName',
+  'familyName',
+  'preferredName',
+  'email',
+  'employeeId',
+  'department',
+  'jobTitle',
+  'office',
+] as const;
+export type RosterField = (typeof rosterFields)[number];
+
+export const rosterFieldLabels: Record<RosterField, string> = {
+  givenName: 'Given name',
+  familyName: 'Family name',
+  preferredName: 'Preferred name',
+  email: 'Work e-mail',
+  employeeId: 'Employee id',
+  department: 'Department',
+  jobTitle: 'Job title',
+  office: 'Office',
+};
+
+/** Each column goes to one of our fields, is kept as an extra as it is, or is left out. */
+export const columnTargetSchema = z.enum([...rosterFields, 'extra', 'ignore']);
+export type ColumnTarget = z.infer<typeof columnTargetSchema>;
+
+export const columnMappingSchema = z
+  .array(columnTargetSchema)
+  .max(200)
+  .superRefine((mapping, context) => {
+    for (const field of rosterFields) {
+      if (mapping.filter((target) => target === field).length > 1) {
+        context.addIssue({
+          code: 'custom',
+          message: `Only one column can be the ${rosterFieldLabels[field].toLowerCase()}.`,
+        });
+      }
+    }
+    for (const field of ['givenName', 'familyName', 'email'] as const) {
+      if (!mapping.includes(field)) {
+        context.addIssue({
+          code: 'custom',
+          message: `Choose the column that holds the ${rosterFieldLabels[field].toLowerCase()}.`,
+        });
+      }
+    }
+  });
+export type ColumnMapping = z.infer<typeof columnMappingSchema>;
+
+const requiredText = (what: string) =>
+  z
+    .string({ error: `Enter the ${what}.` })
+    .trim()
+    .min(1, { error: `Enter the ${what}.` })
+    .max(200, { error: 'Use at most 200 characters.' });
+
+/** Empty means "none": stored as null. */
+const optionalText = z
+  .string()
+  .trim()
+  .max(200, { error: 'Use at most 200 characters.' })
+  .transform((value) => (value === '' ? null : value))
+  .nullable()
+  .optional()
+  .transform((value) => value ?? null);
+
+/** One person as a roster row or the hand-edit form gives it. */
+export const personFieldsSchema = z.object({
+  givenName: requiredText('given name'),
+  familyName: requiredText('family name'),
+  preferredName: optionalText,
+  email: emailSchema,
+  employeeId: optionalText,
+  department: optionalText,
+  jobTitle: optionalText,
+});
+export type PersonFields = z.infer<typeof personFieldsSchema>;
+
+export const rosterRowSchema = personFieldsSchema.extend({ office: optionalText });
+export type RosterRow = z.infer<typeof rosterRowSchema>;
+
+export const savePersonRequestSchema = personFieldsSchema.extend({
+  officeId: z
+    .union([z.uuid({ error: 'Choose an office from the list.' }), z.literal('')])
+    .optional()
+    .transform((value) => (value ? value : null)),
+});
+export type SavePersonRequest = z.input<typeof savePersonRequestSchema>;
+
+export const setActiveRequestSchema = z
+  .object({ active: z.boolean({ error: 'Say whether the person is active.' }) })
+  .strict();
+
+export const erasePersonRequestSchema = z.object({
+  confirmEmail: z
+    .string({ error: "Type the person's e-mail address to confirm." })
+    .trim()
+    .toLowerCase()
+    .min(1, { error: "Type the person's e-mail address to confirm." }),
+});
+
+export const previewKinds = ['add', 'update', 'unchanged', 'error', 'missing'] as const;
+export type PreviewKind = (typeof previewKinds)[number];
+
+export const previewCountsSchema = z.object({
+  add: z.number(),
+  update: z.number(),
+  unchanged: z.number(),
+  error: z.number(),
+  missing: z.number(),
+});
+export type PreviewCounts = z.infer<typeof previewCountsSchema>;
+
+export interface RosterDraft {
+  id: string;
+  fileName: string;
+  encoding: string;
+  delimiter: string;
+  rowCount: number;
+  headers: string[];
+  sampleRows: string[][];
+  mapping: ColumnMapping;
+  /** Why the mapping cannot be previewed yet (a required field without a column...). */
+  mappingProblems: string[];
+  counts: PreviewCounts;
+  newOffices: string[];
+  knownOffices: Array<{ id: string; name: string; timeZone: string }>;
+  expiresAt: string;
+}
+
+/** Field values as shown in the preview; `extras` holds the kept-as-is columns. */
+export type PreviewValues = Partial<Record<RosterField, string | null>> & {
+  extras?: Record<string, string>;
+  active?: boolean;
+};
+
+export interface PreviewRow {
+  position: number;
+  rowNumber: number | null;
+  kind: PreviewKind;
+  personId: string | null;
+  values: PreviewValues;
+  before: PreviewValues | null;
+  changedFields: string[];
+  errors: Record<string, string>;
+}
+
+export const previewQuerySchema = z.object({
+  kind: z.enum([...previewKinds, 'all']).default('all'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(5).max(200).default(25),
+  sort: z.enum(['position', 'name', 'email', 'kind']).default('position'),
+  direction: z.enum(['asc', 'desc']).default('asc'),
+  q: z.string().trim().max(200).default(''),
+});
+export type PreviewQuery = z.input<typeof previewQuerySchema>;
+
+export interface PreviewPage {
+  rows: PreviewRow[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export const remapRequestSchema = z.object({ mapping: z.array(columnTargetSchema).max(200) });
+
+export const uploadQuerySchema = z.object({
+  fileName: z.string().trim().min(1).max(200).catch('roster.csv'),
+});
+
+export const commitImportRequestSchema = z.object({
+  officeTimeZones: z.record(
+    z.string(),
+    z.string().refine(isTimeZone, { error: 'Choose a time zone from the list.' }),
+  ),
+  deactivateMissing: z.boolean().default(true),
+});
+export type CommitImportRequest = z.input<typeof commitImportRequestSchema>;
+
+export function isTimeZone(value: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: value });
+    return value.includes('/') || value === 'UTC';
+  } catch {
+    return false;
+  }
+}
+
+export interface ImportSummary {
+  id: string;
+  fileName: string;
+  importedAt: string;
+  importedBy: string | null;
+  added: number;
+  updated: number;
+  unchanged: number;
+  deactivated: number;
+  skipped: number;
+  officesCreated: number;
+}
