@@ -9,6 +9,7 @@ import { createApp, type AppDeps } from '../server/app';
 import { parseEnvironment, toAppConfig } from '../server/config';
 import { createDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
+import { startDayJobsWorker } from '../server/jobs/day-jobs';
 import { createLogger } from '../server/lib/logger';
 import {
   DEMO_PASSWORD,
@@ -126,6 +127,9 @@ async function main() {
     const listening = app.listen(raw.PORT, raw.HOST, () => resolve(listening));
     listening.once('error', reject);
   });
+  // Invitations, reminders and day-before mail go out from the PostgreSQL job queue.
+  const worker = startDayJobsWorker({ db, clock: systemClock, mailer, config, logger });
+  cleanups.push(() => worker.stop());
   cleanups.push(
     () =>
       new Promise<void>((resolve) => {

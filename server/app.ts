@@ -20,6 +20,9 @@ import { createAuthService } from './modules/auth/auth.service';
 import { registerClientsRoutes } from './modules/clients/clients.routes';
 import { createClientsService } from './modules/clients/clients.service';
 import { registerDaysRoutes } from './modules/days/days.routes';
+import { createInvitationsService } from './modules/invitations/invitations.service';
+import { registerProgressRoutes } from './modules/progress/progress.routes';
+import { createProgressService } from './modules/progress/progress.service';
 import { createDaysService } from './modules/days/days.service';
 import { registerDevMailboxRoutes } from './modules/dev-mailbox/dev-mailbox.routes';
 import { registerHealthRoutes } from './modules/health/health.routes';
@@ -92,6 +95,15 @@ export function createApp(deps: AppDeps) {
   const people = createPeopleService({ db });
   const days = createDaysService({ db });
   const booking = createBookingService({ db, clock, mailer, config, logger });
+  const invitations = createInvitationsService({
+    db,
+    clock,
+    mailer,
+    days,
+    booking,
+    issueSitterInvitationLink: (personId) => auth.issueSitterInvitationLink(personId),
+  });
+  const progress = createProgressService({ db, days });
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
@@ -113,6 +125,7 @@ export function createApp(deps: AppDeps) {
   registerPeopleRoutes(routes, people);
   registerDaysRoutes(routes, days, booking);
   registerBookingRoutes(routes, booking);
+  registerProgressRoutes(routes, progress, invitations);
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());
   api.use(errorHandler(logger));

@@ -136,3 +136,50 @@ export interface QueuedMailings {
   queued: number;
   alreadyQueued: number;
 }
+
+export interface ProgressGroup {
+  label: string;
+  invited: number;
+  booked: number;
+}
+export interface DayProgress {
+  invited: number;
+  booked: number;
+  unbooked: number;
+  byOffice: ProgressGroup[];
+  byDepartment: ProgressGroup[];
+  unbookedPeople: Array<{
+    id: string;
+    name: string;
+    email: string;
+    department: string | null;
+    officeName: string | null;
+  }>;
+}
+
+export interface ScheduleEntry {
+  bookingId: string;
+  personId: string;
+  startsAt: string;
+  localTime: string;
+  name: string;
+  preferredName: string | null;
+  glasses: boolean;
+  flashSensitive: boolean;
+  accessNeeds: string | null;
+}
+export interface DaySchedule {
+  dayId: string;
+  clientName: string;
+  officeName: string;
+  date: string;
+  timeZone: string;
+  address: string;
+  room: string;
+  stations: Array<{
+    id: string;
+    name: string;
+    photographerName: string | null;
+    entries: ScheduleEntry[];
+  }>;
+}

@@ -56,6 +56,12 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
     'studio_admin',
     'photographer',
   ],
+  'GET /api/days/:dayId/progress': ['studio_admin', 'coordinator'],
+  'GET /api/days/:dayId/schedule': ['studio_admin', 'coordinator', 'photographer'],
+  'GET /api/days/:dayId/schedule.csv': ['studio_admin', 'coordinator', 'photographer'],
+  'POST /api/days/:dayId/invitations': ['studio_admin', 'coordinator'],
+  'POST /api/days/:dayId/reminders': ['studio_admin', 'coordinator'],
+  'GET /api/days/:dayId/mailings': ['studio_admin', 'coordinator'],
 };
 
 const allRoles: Role[] = ['studio_admin', 'photographer', 'coordinator', 'sitter'];

@@ -1,0 +1,158 @@
+import type { Clock } from '../../adapters/clock';
+import type { Mailer } from '../../adapters/mail/mailer';
+import type { Db } from '../../db/database';
+import { enqueueJobs, type JobHandlers } from '../../jobs/job-queue';
+import { recordAudit } from '../../lib/audit';
+import { AppError } from '../../lib/errors';
+import type { Viewer } from '../../lib/viewer';
+import type { MailingLog, QueuedMailings } from '../../schemas/days';
+import type { BookingService } from '../booking/booking.service';
+import * as bookingRepo from '../booking/booking.repository';
+import * as daysRepo from '../days/days.repository';
+import type { DaysService } from '../days/days.service';
+import { zonedTimeToInstant } from '../days/zoned-time';
+import { invitationMail } from './invitations.mails';
+import * as repo from './invitations.repository';
+
+export type InvitationsService = ReturnType<typeof createInvitationsService>;
+export const dayMailJob = 'day-mail';
+
+export function createInvitationsService(deps: {
+  db: Db;
+  clock: Clock;
+  mailer: Mailer;
+  days: DaysService;
+  booking: BookingService;
+  issueSitterInvitationLink: (personId: string) => Promise<string>;
+}) {
+  const { db, clock, mailer, days, booking } = deps;
+
+  async function confirmedDay(viewer: Viewer, dayId: string) {
+    const day = await days.visibleDay(viewer, dayId);
+    if (day.status !== 'confirmed') {
+      throw new AppError('day_not_confirmed', 409, 'The studio has not confirmed this day yet.');
+    }
+    return day;
+  }
+
+  async function invitedIds(day: daysRepo.DayRecord): Promise<string[]> {
+    const people = await daysRepo.invitedPeopleQuery(db, day).execute();
+    return people.map((person) => person.id);
+  }
+
+  /** Mailings and their jobs are written together: a job never exists without its row. */
+  async function queue(
+    viewer: Viewer | null,
+    day: daysRepo.DayRecord,
+    kind: 'invitation' | 'reminder' | 'day_before',
+    personIds: string[],
+  ): Promise<QueuedMailings> {
+    const inserted = await db.transaction().execute(async (trx) => {
+      await daysRepo.lockDay(trx, day.id);
+      const round = kind === 'reminder' ? await repo.bumpReminderRound(trx, day.id) : 1;
+      const ids = await repo.insertMailings(trx, day.id, personIds, kind, round);
+      await enqueueJobs(
+        trx,
+        dayMailJob,
+        ids.map((mailingId) => ({ mailingId })),
+      );
+      await recordAudit(trx, {
+        actorUserId: viewer?.kind === 'staff' ? viewer.id : null,
+        action: `day.${kind}_queued`,
+        subjectType: 'shoot_day',
+        subjectId: day.id,
+        details: { count: ids.length },
+      });
+      return ids.length;
+    });
+    return { queued: inserted, alreadyQueued: personIds.length - inserted };
+  }
+
+  async function sendMailing(mailingId: string, lastAttempt: boolean): Promise<void> {
+    const mailing = await repo.findMailing(db, mailingId);
+    if (!mailing || mailing.status !== 'queued') return; // already handled: never send twice
+    const day = await daysRepo.findDay(db, mailing.dayId);
+    const now = clock.now();
+    if (!day || !mailing.active) {
+      await repo.markMailing(db, mailingId, 'failed', 'No longer on the roster', now);
+      return;
+    }
+    try {
+      if (mailing.kind === 'day_before') {
+        const held = await bookingRepo.activeBookingOf(db, day.id, mailing.personId);
+        if (!held) {
+          await repo.markMailing(db, mailingId, 'failed', 'Not sent: booking cancelled', now);
+          return;
+        }
+        await booking.sendMail('day_before', held.id);
+      } else {
+        const held = await bookingRepo.activeBookingOf(db, day.id, mailing.personId);
+        if (held && mailing.kind === 'reminder') {
+          await repo.markMailing(db, mailingId, 'failed', 'Not sent: booked meanwhile', now);
+          return;
+        }
+        const url = await deps.issueSitterInvitationLink(mailing.personId);
+        await mailer.send(
+          invitationMail({ kind: mailing.kind, to: mailing.email, name: mailing.name, day, url }),
+        );
+      }
+      await repo.markMailing(db, mailingId, 'sent', null, clock.now());
+    } catch (error) {
+      // Stays queued while the queue will retry; the reason is kept once it gives up.
+      if (lastAttempt) {
+        const reason = error instanceof Error ? error.message : String(error);
+        await repo.markMailing(db, mailingId, 'failed', reason.slice(0, 300), clock.now());
+      }
+      throw error;
+    }
+  }
+
+  return {
+    async invite(viewer: Viewer, dayId: string): Promise<QueuedMailings> {
+      const day = await confirmedDay(viewer, dayId);
+      const already = await repo.personIdsWithMailing(db, dayId, 'invitation');
+      const fresh = (await invitedIds(day)).filter((id) => !already.has(id));
+      const result = await queue(viewer, day, 'invitation', fresh);
+      return { ...result, alreadyQueued: result.alreadyQueued + already.size };
+    },
+
+    async remind(viewer: Viewer, dayId: string): Promise<QueuedMailings> {
+      const day = await confirmedDay(viewer, dayId);
+      const booked = await repo.bookedPersonIds(db, dayId);
+      const unbooked = (await invitedIds(day)).filter((id) => !booked.has(id));
+      if (unbooked.length === 0) return { queued: 0, alreadyQueued: 0 };
+      return queue(viewer, day, 'reminder', unbooked);
+    },
+
+    async log(viewer: Viewer, dayId: string): Promise<MailingLog> {
+      await days.visibleDay(viewer, dayId);
+      return repo.mailingLog(db, dayId);
+    },
+
+    /** Queues the day-before message for days starting within the next 36 hours. */
+    async queueDueDayBefore(): Promise<number> {
+      const now = clock.now().getTime();
+      let queued = 0;
+      for (const id of await repo.upcomingDayIds(db, clock.now())) {
+        const day = await daysRepo.findDay(db, id);
+        if (!day) continue;
+        const opens = zonedTimeToInstant(day.date, day.opensAt, day.timeZone);
+        if (opens - now > 36 * 3_600_000 || opens <= now) continue;
+        const booked = [...(await repo.bookedPersonIds(db, id))];
+        const sent = await repo.personIdsWithMailing(db, id, 'day_before');
+        const due = booked.filter((personId) => !sent.has(personId));
+        if (due.length > 0) queued += (await queue(null, day, 'day_before', due)).queued;
+      }
+      return queued;
+    },
+
+    handlers(): JobHandlers {
+      return {
+        [dayMailJob]: async (payload, attempt) => {
+          const mailingId = (payload as { mailingId?: unknown }).mailingId;
+          if (typeof mailingId === 'string') await sendMailing(mailingId, attempt.lastAttempt);
+        },
+      };
+    },
+  };
+}
