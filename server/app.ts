@@ -30,6 +30,8 @@ import { registerPeopleRoutes } from './modules/people/people.routes';
 import { createPeopleService } from './modules/people/people.service';
 import { registerRosterRoutes } from './modules/roster/roster.routes';
 import { createRosterService } from './modules/roster/roster.service';
+import { registerSetupCardsRoutes } from './modules/setup-cards/setup-cards.routes';
+import { createSetupCardsService } from './modules/setup-cards/setup-cards.service';
 import { registerSittersRoutes } from './modules/sitters/sitters.routes';
 import { registerUsersRoutes } from './modules/users/users.routes';
 import { createUsersService } from './modules/users/users.service';
@@ -126,6 +128,7 @@ export function createApp(deps: AppDeps) {
   registerDaysRoutes(routes, days, booking);
   registerBookingRoutes(routes, booking);
   registerProgressRoutes(routes, progress, invitations);
+  registerSetupCardsRoutes(routes, createSetupCardsService({ db }));
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());
   api.use(errorHandler(logger));

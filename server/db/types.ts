@@ -1,4 +1,5 @@
 import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
+import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
   RosterImportRowsTable,
@@ -191,6 +192,7 @@ export interface Database {
   rateLimitCounters: RateLimitCountersTable;
   auditEvents: AuditEventsTable;
   installationFacts: InstallationFactsTable;
+  setupCards: SetupCardsTable;
   rosterImportDrafts: RosterImportDraftsTable;
   rosterImportRows: RosterImportRowsTable;
   rosterImports: RosterImportsTable;

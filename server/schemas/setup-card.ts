@@ -72,3 +72,39 @@ export const setupCardSchema = z
   );
 export type SetupCard = z.infer<typeof setupCardSchema>;
 export type SetupCardInput = z.input<typeof setupCardSchema>;
+
+export const stationCardSchema = z.object({
+  stationId: z.string(),
+  stationName: z.string(),
+  position: z.number(),
+  photographerName: z.string().nullable(),
+  card: setupCardSchema.nullable(),
+  updatedAt: z.string().nullable(),
+});
+export type StationCard = z.infer<typeof stationCardSchema>;
+
+export const daySetupCardsSchema = z.object({
+  dayId: z.string(),
+  dayDate: z.string(),
+  clientName: z.string(),
+  officeName: z.string(),
+  address: z.string(),
+  room: z.string(),
+  stations: z.array(stationCardSchema),
+});
+export type DaySetupCards = z.infer<typeof daySetupCardsSchema>;
+
+export const saveSetupCardRequestSchema = z.object({ card: setupCardSchema });
+export type SaveSetupCardRequest = z.input<typeof saveSetupCardRequestSchema>;
+
+export const copySetupCardRequestSchema = z.object({
+  fromStationId: z.uuid({ error: 'Choose the station to copy from.' }),
+});
+export type CopySetupCardRequest = z.infer<typeof copySetupCardRequestSchema>;
+
+export const cardSourceSchema = z.object({
+  stationId: z.string(),
+  label: z.string(),
+});
+export const cardSourceListSchema = z.object({ sources: z.array(cardSourceSchema) });
+export type CardSourceList = z.infer<typeof cardSourceListSchema>;

@@ -57,6 +57,20 @@ export function createAppRouter(queryClient: QueryClient) {
               },
             },
             {
+              path: '/days/:dayId/setup',
+              lazy: async () => {
+                const page = await import('./routes/setup/setup-cards');
+                return { Component: page.SetupCardsPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/days/:dayId/setup/print',
+              lazy: async () => {
+                const page = await import('./routes/setup/setup-print');
+                return { Component: page.SetupPrintPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/studio/mailbox',
               lazy: async () => {
                 const page = await import('./routes/studio/mailbox');

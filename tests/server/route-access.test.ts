@@ -41,6 +41,10 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'POST /api/clients/:clientId/people': ['studio_admin', 'coordinator'],
   'PATCH /api/clients/:clientId/people/:personId': ['studio_admin', 'coordinator'],
   'POST /api/clients/:clientId/people/:personId/erasure': ['studio_admin', 'coordinator'],
+  'GET /api/days/:dayId/setup-cards': ['studio_admin', 'photographer'],
+  'GET /api/setup-card-sources': ['studio_admin', 'photographer'],
+  'PUT /api/stations/:stationId/setup-card': ['studio_admin', 'photographer'],
+  'POST /api/stations/:stationId/setup-card/copy': ['studio_admin', 'photographer'],
   'GET /api/days': ['studio_admin', 'coordinator', 'photographer'],
   'POST /api/days': ['studio_admin', 'coordinator'],
   'GET /api/days/:dayId': ['studio_admin', 'coordinator', 'photographer'],
@@ -116,6 +120,7 @@ beforeAll(async () => {
     // An import that does not exist: allowed roles get 404, which is past the role check.
     importId: '00000000-0000-4000-8000-000000000000',
     dayId: day.id,
+    stationId: day.stations[0]!.id,
     bookingId: booking.id,
   };
 });

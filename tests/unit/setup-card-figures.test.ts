@@ -48,20 +48,45 @@ describe('setup card figures', () => {
     expect(figures.lights[1]?.stopsRelativeToKey).toBeCloseTo(-3, 10);
   });
 
-  it.each([
-    ['shutter_slow', (input: SetupCardInput) => void (input.camera.shutterSeconds = 1 / 30)],
-    ['shutter_over_sync', (input: SetupCardInput) => void (input.camera.shutterSeconds = 1 / 500)],
-    ['iso_above_base', (input: SetupCardInput) => void (input.camera.iso = 400)],
+  const changes: Array<[string, (input: SetupCardInput) => void]> = [
+    [
+      'shutter_slow',
+      (input) => {
+        input.camera.shutterSeconds = 1 / 30;
+      },
+    ],
+    [
+      'shutter_over_sync',
+      (input) => {
+        input.camera.shutterSeconds = 1 / 500;
+      },
+    ],
+    [
+      'iso_above_base',
+      (input) => {
+        input.camera.iso = 400;
+      },
+    ],
     [
       'fill_brighter_than_key',
-      (input: SetupCardInput) => void ((input.lights[1] as { power: number }).power = 1),
+      (input) => {
+        input.lights[1] = { role: 'fill', power: 1, distanceMetres: 1.2 };
+      },
     ],
     [
       'background_close',
-      (input: SetupCardInput) => void (input.camera.sitterToBackgroundMetres = 1),
+      (input) => {
+        input.camera.sitterToBackgroundMetres = 1;
+      },
     ],
-    ['depth_too_shallow', (input: SetupCardInput) => void (input.camera.aperture = 1.2)],
-  ] as const)('warns %s', (code, change) => {
+    [
+      'depth_too_shallow',
+      (input) => {
+        input.camera.aperture = 1.2;
+      },
+    ],
+  ];
+  it.each(changes)('warns %s', (code, change) => {
     expect(card(change).warnings.map((warning) => warning.code)).toContain(code);
   });
 
