@@ -84,6 +84,8 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addCheckConstraint('sessions_one_subject', sql`(user_id is null) <> (person_id is null)`)
     .execute();
 
+  await sql`create index sessions_expires_at on sessions (expires_at)`.execute(db);
+
   await db.schema
     .createTable('link_tokens')
     .addColumn('id', 'uuid', (col) => col.primaryKey().defaultTo(sql`gen_random_uuid()`))

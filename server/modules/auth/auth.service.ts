@@ -125,6 +125,8 @@ export function createAuthService(deps: AuthDeps) {
       if (!account || !account.active || !passwordMatches) throw wrongCredentials();
       const { token, session } = await startSession({ userId: account.id }, meta);
       await repo.touchStaffSignIn(db, account.id, clock.now());
+      // Sign-ins are rare enough to carry the sweep of expired sessions.
+      await repo.deleteExpiredSessions(db, clock.now());
       return { token, viewer: staffViewer(account, session) };
     },
 
