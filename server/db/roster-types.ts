@@ -27,9 +27,23 @@ export interface RosterImportRowsTable {
   rowNumber: number | null;
   kind: 'add' | 'update' | 'unchanged' | 'error' | 'missing';
   personId: string | null;
-  sortName: string;
-  email: string;
-  data: Json<unknown>;
+  givenName: string | null;
+  familyName: string | null;
+  preferredName: string | null;
+  email: string | null;
+  employeeId: string | null;
+  department: string | null;
+  jobTitle: string | null;
+  office: string | null;
+  extras: Json<Record<string, string> | null>;
+  detail: Json<PreviewDetail | null>;
+}
+
+/** The preview's extra facts about a row, beside the values. */
+export interface PreviewDetail {
+  before?: Record<string, unknown> | null;
+  changedFields?: string[];
+  errors?: Record<string, string>;
 }
 
 export interface RosterImportsTable {

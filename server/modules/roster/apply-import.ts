@@ -1,7 +1,8 @@
 import type { Db } from '../../db/database';
 import { AppError } from '../../lib/errors';
-import { isTimeZone, type PreviewRow, type PreviewValues } from '../../schemas/roster';
-import * as repo from './roster.repository';
+import { isTimeZone } from '../../schemas/roster';
+import * as writes from './roster-import.repository';
+import type { DraftRecord } from './roster.repository';
 
 interface ApplyInput {
   officeTimeZones: Record<string, string>;
@@ -15,7 +16,7 @@ interface ApplyInput {
 export async function applyImport(
   trx: Db,
   clientId: string,
-  draft: repo.DraftRecord,
+  draft: DraftRecord,
   input: ApplyInput,
 ) {
   const zones = new Map(
@@ -32,37 +33,16 @@ export async function applyImport(
       ),
     });
   }
-  const created = await repo.insertOffices(
+  const created = await writes.insertOffices(
     trx,
     clientId,
     draft.newOffices.map((name) => ({ name, timeZone: zones.get(name.toLowerCase()) ?? 'UTC' })),
   );
-  const offices = [...(await repo.listOffices(trx, clientId))];
-  const officeIds = new Map(offices.map((office) => [office.name.toLowerCase(), office.id]));
-
-  const rows = await repo.previewRowsOfKinds(trx, draft.id, ['add', 'update', 'missing']);
-  const toWrite = (row: PreviewRow): repo.PersonWrite => {
-    const values: PreviewValues = row.values;
-    return {
-      id: row.personId,
-      givenName: values.givenName ?? '',
-      familyName: values.familyName ?? '',
-      preferredName: values.preferredName ?? null,
-      email: values.email ?? '',
-      employeeId: values.employeeId ?? null,
-      department: values.department ?? null,
-      jobTitle: values.jobTitle ?? null,
-      officeId: values.office ? (officeIds.get(values.office.toLowerCase()) ?? null) : null,
-      extras: values.extras ?? {},
-    };
-  };
-  const additions = rows.filter((row) => row.kind === 'add').map(toWrite);
-  const updates = rows.filter((row) => row.kind === 'update').map(toWrite);
-  const missing = rows.filter((row) => row.kind === 'missing').flatMap((row) => row.personId ?? []);
-
+  let added: number;
+  let updated: number;
   try {
-    await repo.insertPeople(trx, clientId, additions);
-    await repo.updatePeople(trx, clientId, updates);
+    added = await writes.insertPreviewedPeople(trx, clientId, draft.id);
+    updated = await writes.updatePreviewedPeople(trx, clientId, draft.id);
   } catch (error) {
     if (isUniqueViolation(error)) {
       throw new AppError(
@@ -73,12 +53,14 @@ export async function applyImport(
     }
     throw error;
   }
-  if (input.deactivateMissing) await repo.deactivatePeople(trx, clientId, missing);
+  const deactivated = input.deactivateMissing
+    ? await writes.deactivateMissingPeople(trx, clientId, draft.id)
+    : 0;
   return {
-    added: additions.length,
-    updated: updates.length,
+    added,
+    updated,
     unchanged: draft.counts.unchanged,
-    deactivated: input.deactivateMissing ? missing.length : 0,
+    deactivated,
     skipped: draft.counts.error,
     officesCreated: created.length,
   };

@@ -23,6 +23,7 @@ import { parseRosterFile } from './csv-decode';
 import { diffRoster } from './roster-diff';
 import { checkRows } from './roster-rows';
 import * as repo from './roster.repository';
+import { insertImport, listImports } from './roster-import.repository';
 import { applyImport } from './apply-import';
 
 export type RosterService = ReturnType<typeof createRosterService>;
@@ -77,9 +78,9 @@ export function createRosterService(deps: { db: Db }) {
       fileName: draft.fileName,
       encoding: draft.encoding,
       delimiter: draft.delimiter,
-      rowCount: draft.rawRows.length,
+      rowCount: draft.rowCount,
       headers: draft.headers,
-      sampleRows: draft.rawRows.slice(0, 3),
+      sampleRows: draft.sampleRows,
       mapping: draft.mapping,
       mappingProblems: mappingProblems(draft.mapping),
       counts: draft.counts,
@@ -107,18 +108,23 @@ export function createRosterService(deps: { db: Db }) {
         await repo.deleteStaleDrafts(trx, clientId);
         const record = {
           clientId,
+          rowCount: parsed.rows.length,
+          sampleRows: parsed.rows.slice(0, 3),
           fileName,
           encoding: parsed.encoding,
           delimiter: parsed.delimiter,
           headers: parsed.headers,
-          rawRows: parsed.rows,
           mapping,
           counts: preview.counts,
           newOffices: preview.newOffices,
           rosterVersion: preview.version,
           expiresAt: new Date(Date.now() + draftLifetimeMs),
         };
-        const id = await repo.insertDraft(trx, { ...record, createdBy: viewer.id });
+        const id = await repo.insertDraft(trx, {
+          ...record,
+          rawRows: parsed.rows,
+          createdBy: viewer.id,
+        });
         await repo.replacePreviewRows(trx, id, preview.rows);
         return { id, ...record };
       });
@@ -136,7 +142,8 @@ export function createRosterService(deps: { db: Db }) {
       if (mapping.length !== draft.headers.length) {
         throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
       }
-      const preview = await computePreview(db, clientId, draft.headers, draft.rawRows, mapping);
+      const rawRows = await repo.loadRawRows(db, draftId);
+      const preview = await computePreview(db, clientId, draft.headers, rawRows, mapping);
       await db.transaction().execute(async (trx) => {
         await repo.updateDraftPreview(trx, draftId, {
           mapping,
@@ -165,8 +172,9 @@ export function createRosterService(deps: { db: Db }) {
       await assertClientAccess(db, viewer, clientId);
       const draft = await draftOf(clientId, draftId);
       const errors = await repo.previewRowsOfKinds(db, draftId, ['error']);
+      const rawRows = await repo.loadRawRows(db, draftId);
       const records = errors.map((row) => [
-        ...(draft.rawRows[(row.rowNumber ?? 2) - 2] ?? []),
+        ...(rawRows[(row.rowNumber ?? 2) - 2] ?? []),
         Object.values(row.errors).join(' '),
       ]);
       return toCsv([[...draft.headers, 'What to fix'], ...records]);
@@ -197,7 +205,7 @@ export function createRosterService(deps: { db: Db }) {
         }
         const result = await applyImport(trx, clientId, draft, input);
         await repo.saveMapping(trx, clientId, mappingToRemember(draft.headers, draft.mapping));
-        const id = await repo.insertImport(trx, {
+        const id = await insertImport(trx, {
           clientId,
           importedBy: viewer.kind === 'staff' ? viewer.id : null,
           fileName: draft.fileName,
@@ -213,16 +221,14 @@ export function createRosterService(deps: { db: Db }) {
         });
         return { id, ...result };
       });
-      const [entry] = (await repo.listImports(db, clientId)).filter(
-        (item) => item.id === summary.id,
-      );
+      const [entry] = (await listImports(db, clientId)).filter((item) => item.id === summary.id);
       if (!entry) throw notFound('That import');
       return entry;
     },
 
     async history(viewer: Viewer, clientId: string) {
       await assertClientAccess(db, viewer, clientId);
-      return repo.listImports(db, clientId);
+      return listImports(db, clientId);
     },
   };
 }
