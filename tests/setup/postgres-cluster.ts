@@ -26,23 +26,35 @@ export async function startTestCluster(): Promise<TestCluster> {
     rmSync(folder, { recursive: true, force: true });
     throw error;
   }
-  const adminUrl = cluster.urlFor('postgres');
-  const client = new pg.Client({ connectionString: adminUrl });
-  await client.connect();
-  await client.query(`create database ${TEMPLATE_DATABASE}`);
-  await client.end();
-  // The migrator imports .ts migration files natively; tsx teaches Node to load them here.
-  const unregister = register();
-  try {
-    await migrateToLatest(cluster.urlFor(TEMPLATE_DATABASE));
-  } finally {
-    await unregister();
-  }
-  return {
-    adminUrl,
-    stop() {
-      cluster.stop();
-      rmSync(folder, { recursive: true, force: true });
-    },
+  const stop = () => {
+    cluster.stop();
+    rmSync(folder, { recursive: true, force: true });
   };
+  // A run that is interrupted still stops its server (pg_ctl is synchronous, so this works on exit).
+  process.once('exit', stop);
+  try {
+    const adminUrl = cluster.urlFor('postgres');
+    const client = new pg.Client({ connectionString: adminUrl });
+    await client.connect();
+    await client.query(`create database ${TEMPLATE_DATABASE}`);
+    await client.end();
+    // The migrator imports .ts migration files natively; tsx teaches Node to load them here.
+    const unregister = register();
+    try {
+      await migrateToLatest(cluster.urlFor(TEMPLATE_DATABASE));
+    } finally {
+      await unregister();
+    }
+    return {
+      adminUrl,
+      stop() {
+        process.removeListener('exit', stop);
+        stop();
+      },
+    };
+  } catch (error) {
+    process.removeListener('exit', stop);
+    stop();
+    throw error;
+  }
 }
