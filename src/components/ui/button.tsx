@@ -30,7 +30,7 @@ export function Button({
       {...rest}
       disabled={disabled || busy}
       aria-busy={busy || undefined}
-      className={`inline-flex min-h-touch items-center justify-center gap-2 rounded-control px-4 font-medium transition-colors disabled:cursor-not-allowed ${variants[variant]} ${className}`}
+      className={`inline-flex min-h-touch items-center justify-center gap-2 whitespace-nowrap rounded-control px-4 font-medium transition-colors disabled:cursor-not-allowed ${variants[variant]} ${className}`}
     >
       {busy ? (
         <span
