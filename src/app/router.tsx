@@ -77,6 +77,27 @@ export function createAppRouter(queryClient: QueryClient) {
                 return { Component: page.MailboxPage, loader: page.makeLoader(queryClient) };
               },
             },
+            {
+              path: '/days',
+              lazy: async () => {
+                const page = await import('./routes/days/days');
+                return { Component: page.DaysPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/days/:dayId',
+              lazy: async () => {
+                const page = await import('./routes/days/day');
+                return { Component: page.DayPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/days/:dayId/sheet',
+              lazy: async () => {
+                const page = await import('./routes/days/day-sheet');
+                return { Component: page.DaySheetPage, loader: page.makeLoader(queryClient) };
+              },
+            },
           ],
         },
         {

@@ -19,11 +19,15 @@ const navigation: Record<Role, Array<{ to: string; label: string }>> = {
   studio_admin: [
     { to: '/', label: 'Overview' },
     { to: '/studio/clients', label: 'Clients' },
+    { to: '/days', label: 'Shoot days' },
     { to: '/studio/team', label: 'Team' },
     { to: '/studio/mailbox', label: 'Mailbox' },
   ],
   photographer: [{ to: '/', label: 'My days' }],
-  coordinator: [{ to: '/', label: 'Overview' }],
+  coordinator: [
+    { to: '/', label: 'Overview' },
+    { to: '/days', label: 'Shoot days' },
+  ],
   sitter: [{ to: '/', label: 'My portrait' }],
 };
 

@@ -1,6 +1,7 @@
 import { Card } from '../../../components/ui/card';
 import { Notice } from '../../../components/ui/notice';
 import { PageHeading } from '../../../components/ui/page-heading';
+import { SitterBookings } from '../../booking/components/sitter-bookings';
 import { useMyProfile } from '../api/get-my-profile';
 
 export function SitterHome() {
@@ -15,12 +16,7 @@ export function SitterHome() {
         Your portrait for {me.clientName}
         {me.office ? `, ${me.office.name} office` : ''}.
       </PageHeading>
-      <Card title="Your booking">
-        <p className="text-ink-muted">
-          When the studio opens booking for your office, you will get an e-mail and can pick a
-          five-minute slot here.
-        </p>
-      </Card>
+      <SitterBookings />
       <Card title="What to wear">
         <ul className="flex list-disc flex-col gap-1.5 pl-5">
           <li>Solid, mid-tone colours photograph best.</li>

@@ -1,0 +1,77 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Card } from '../../../components/ui/card';
+import { PageHeading } from '../../../components/ui/page-heading';
+import { useSession } from '../../../features/auth/api/get-session';
+import { dayQueryOptions, useDay } from '../../../features/days/api/get-day';
+import { MailingPanel } from '../../../features/progress/components/mailing-panel';
+import { ProgressDashboard } from '../../../features/progress/components/progress-dashboard';
+import { requireRole } from '../../guards';
+
+export const makeLoader =
+  (queryClient: QueryClient) =>
+  async ({ request, params }: LoaderFunctionArgs) => {
+    await requireRole(queryClient, request, ['studio_admin', 'coordinator', 'photographer']);
+    await queryClient.ensureQueryData(dayQueryOptions(params.dayId ?? ''));
+    return null;
+  };
+
+export function DayPage() {
+  const dayId = useParams().dayId ?? '';
+  const { data: session } = useSession();
+  const { data: day } = useDay(dayId);
+  if (!day) return null;
+  const manages = session?.user.role === 'studio_admin' || session?.user.role === 'coordinator';
+  return (
+    <>
+      <PageHeading title={`${day.officeName} · ${day.date}`}>
+        {day.clientName} · {day.opensAt}–{day.closesAt} ({day.timeZone}) ·{' '}
+        {day.room ? `${day.room}, ` : ''}
+        {day.address}
+      </PageHeading>
+      <div className="grid gap-5 lg:grid-cols-2">
+        <Card title="Stations and seats">
+          <p className="mb-3">
+            {day.booked} of {day.seats} seats booked, {day.slotMinutes}-minute slots
+            {day.breaks.length > 0
+              ? `, break ${day.breaks.map((pause) => `${pause.start}–${pause.end}`).join(', ')}`
+              : ''}
+            .
+          </p>
+          <ul className="mb-4 flex flex-col gap-1">
+            {day.stations.map((station) => (
+              <li key={station.id}>
+                {station.name}: {station.photographerName ?? 'no photographer yet'}
+              </li>
+            ))}
+          </ul>
+          <div className="flex flex-wrap gap-3">
+            <Link
+              to={`/days/${day.id}/sheet`}
+              className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+            >
+              Printable day sheet
+            </Link>
+            <a
+              href={`/api/days/${day.id}/schedule.csv`}
+              download
+              className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+            >
+              Download the schedule (CSV)
+            </a>
+          </div>
+        </Card>
+        {manages ? (
+          <>
+            <Card title="Invitations and reminders">
+              <MailingPanel dayId={day.id} confirmed={day.status === 'confirmed'} />
+            </Card>
+            <Card title="Progress" className="lg:col-span-2">
+              <ProgressDashboard dayId={day.id} />
+            </Card>
+          </>
+        ) : null}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,286 @@
+import { useState, type FormEvent } from 'react';
+import { createDayRequestSchema, type CreateDayRequest } from '../../../../server/schemas/days';
+import type { Client } from '../../../../server/schemas/clients';
+import { Button } from '../../../components/ui/button';
+import { SelectField, TextField } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
+import { ApiError } from '../../../lib/api-client';
+import { useCreateDay } from '../api/create-day';
+import { StationFields, type StationDraft } from './station-fields';
+import { ThroughputPlanner } from './throughput-planner';
+
+type Errors = Record<string, string | undefined>;
+const minutes = (time: string) =>
+  /^\d\d:\d\d$/.test(time) ? Number(time.slice(0, 2)) * 60 + Number(time.slice(3)) : NaN;
+/** A datetime-local value is the browser's local time; the API wants an instant. */
+const toInstant = (value: string) => (value ? new Date(value).toISOString() : '');
+
+export function DayForm({
+  clients,
+  photographers,
+}: {
+  clients: Client[];
+  /** Null for a coordinator: their day is a proposal the studio staffs. */
+  photographers: Array<{ id: string; displayName: string }> | null;
+}) {
+  const [clientId, setClientId] = useState(clients[0]?.id ?? '');
+  const client = clients.find((candidate) => candidate.id === clientId);
+  const [officeId, setOfficeId] = useState(client?.offices[0]?.id ?? '');
+  const office = client?.offices.find((candidate) => candidate.id === officeId);
+  const [fields, setFields] = useState({
+    date: '',
+    address: '',
+    room: '',
+    opensAt: '09:00',
+    closesAt: '17:00',
+    breakStart: '12:30',
+    breakEnd: '13:15',
+    slotMinutes: '5',
+    bookingOpensAt: '',
+    bookingClosesAt: '',
+    changesCloseAt: '',
+    departments: '',
+  });
+  const [inviteBy, setInviteBy] = useState<'office' | 'department'>('office');
+  const [stations, setStations] = useState<StationDraft[]>([
+    { name: 'Station A', photographerId: '' },
+  ]);
+  const [headCount, setHeadCount] = useState<string | null>(null);
+  const [errors, setErrors] = useState<Errors>({});
+  const [formError, setFormError] = useState<string | null>(null);
+  const create = useCreateDay();
+  const set = (key: keyof typeof fields) => (value: string) => {
+    setFields((current) => ({ ...current, [key]: value }));
+    setErrors((current) => ({ ...current, [key]: undefined }));
+  };
+
+  const breakMinutes =
+    fields.breakStart && fields.breakEnd
+      ? minutes(fields.breakEnd) - minutes(fields.breakStart)
+      : 0;
+  const hoursPerDay =
+    (minutes(fields.closesAt) - minutes(fields.opensAt) - (breakMinutes || 0)) / 60;
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    const input: CreateDayRequest = {
+      clientId,
+      officeId,
+      date: fields.date,
+      address: fields.address,
+      room: fields.room,
+      opensAt: fields.opensAt,
+      closesAt: fields.closesAt,
+      breaks:
+        fields.breakStart || fields.breakEnd
+          ? [{ start: fields.breakStart, end: fields.breakEnd }]
+          : [],
+      slotMinutes: Number(fields.slotMinutes),
+      bookingOpensAt: toInstant(fields.bookingOpensAt),
+      bookingClosesAt: toInstant(fields.bookingClosesAt),
+      changesCloseAt: toInstant(fields.changesCloseAt),
+      inviteBy,
+      inviteDepartments: fields.departments
+        .split(',')
+        .map((name) => name.trim())
+        .filter(Boolean),
+      stations: stations.map((station) => ({
+        name: station.name,
+        photographerId: station.photographerId || null,
+      })),
+    };
+    const parsed = createDayRequestSchema.safeParse(input);
+    if (!parsed.success) {
+      const next: Errors = {};
+      for (const issue of parsed.error.issues) {
+        const key = issue.path[0] === 'breaks' ? 'breakEnd' : String(issue.path[0]);
+        next[key] ??= issue.message;
+      }
+      setErrors(next);
+      setFormError('Some fields need attention.');
+      return;
+    }
+    setFormError(null);
+    create.mutate(input, {
+      onSuccess: () => setErrors({}),
+      onError: (error) => {
+        if (!(error instanceof ApiError))
+          return setFormError('Something went wrong. Please try again.');
+        setFormError(error.message);
+        const next: Errors = {};
+        for (const [key, messages] of Object.entries(error.fieldErrors)) next[key] = messages?.[0];
+        setErrors(next);
+      },
+    });
+  };
+
+  if (clients.length === 0) {
+    return <p>Add a client with offices first: a day belongs to one office.</p>;
+  }
+
+  return (
+    <form
+      onSubmit={submit}
+      noValidate
+      className="flex flex-col gap-4"
+      aria-label="Plan a shoot day"
+    >
+      {formError ? <Notice tone="danger">{formError}</Notice> : null}
+      {create.isSuccess ? (
+        <Notice tone="success">
+          {create.data.status === 'proposed'
+            ? 'Proposed: the studio will confirm it and assign photographers.'
+            : `The ${create.data.officeName} day on ${create.data.date} is set up.`}
+        </Notice>
+      ) : null}
+      {clients.length > 1 ? (
+        <SelectField
+          label="Client"
+          value={clientId}
+          onChange={(id) => {
+            setClientId(id);
+            setOfficeId(clients.find((candidate) => candidate.id === id)?.offices[0]?.id ?? '');
+          }}
+          options={clients.map((candidate) => ({ value: candidate.id, label: candidate.name }))}
+        />
+      ) : null}
+      <SelectField
+        label="Office"
+        value={officeId}
+        onChange={setOfficeId}
+        error={errors.officeId}
+        hint={
+          office
+            ? `Times are in the office's zone, ${office.timeZone}.`
+            : 'This client has no offices yet: import the roster first.'
+        }
+        options={(client?.offices ?? []).map((candidate) => ({
+          value: candidate.id,
+          label: candidate.name,
+        }))}
+      />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField
+          label="Date"
+          type="date"
+          value={fields.date}
+          onChange={set('date')}
+          error={errors.date}
+        />
+        <TextField
+          label="Slot length (minutes)"
+          type="number"
+          inputMode="numeric"
+          min={3}
+          max={60}
+          value={fields.slotMinutes}
+          onChange={set('slotMinutes')}
+          error={errors.slotMinutes}
+        />
+        <TextField
+          label="Address"
+          value={fields.address}
+          onChange={set('address')}
+          error={errors.address}
+          autoComplete="street-address"
+        />
+        <TextField label="Room" value={fields.room} onChange={set('room')} error={errors.room} />
+        <TextField
+          label="Opens"
+          type="time"
+          value={fields.opensAt}
+          onChange={set('opensAt')}
+          error={errors.opensAt}
+        />
+        <TextField
+          label="Closes"
+          type="time"
+          value={fields.closesAt}
+          onChange={set('closesAt')}
+          error={errors.closesAt}
+        />
+        <TextField
+          label="Break starts"
+          type="time"
+          value={fields.breakStart}
+          onChange={set('breakStart')}
+          hint="Clear both to have no break."
+        />
+        <TextField
+          label="Break ends"
+          type="time"
+          value={fields.breakEnd}
+          onChange={set('breakEnd')}
+          error={errors.breakEnd}
+        />
+        <TextField
+          label="Booking opens"
+          type="datetime-local"
+          value={fields.bookingOpensAt}
+          onChange={set('bookingOpensAt')}
+          error={errors.bookingOpensAt}
+        />
+        <TextField
+          label="Booking closes"
+          type="datetime-local"
+          value={fields.bookingClosesAt}
+          onChange={set('bookingClosesAt')}
+          error={errors.bookingClosesAt}
+        />
+        <TextField
+          label="Sitters can change until"
+          type="datetime-local"
+          value={fields.changesCloseAt}
+          onChange={set('changesCloseAt')}
+          error={errors.changesCloseAt}
+          hint="Your browser's local time."
+        />
+        <SelectField
+          label="Who is invited"
+          value={inviteBy}
+          onChange={(value) => setInviteBy(value === 'department' ? 'department' : 'office')}
+          options={[
+            { value: 'office', label: 'Everyone at this office' },
+            { value: 'department', label: 'Chosen departments' },
+          ]}
+        />
+      </div>
+      {inviteBy === 'department' ? (
+        <TextField
+          label="Departments (comma-separated)"
+          value={fields.departments}
+          onChange={set('departments')}
+          error={errors.inviteDepartments}
+        />
+      ) : null}
+      <StationFields
+        stations={stations}
+        onChange={setStations}
+        photographers={photographers}
+        error={errors.stations}
+      />
+      <div className="rounded-card bg-paper-sunk p-4">
+        <TextField
+          label="Head count to plan for"
+          type="number"
+          inputMode="numeric"
+          min={0}
+          value={headCount ?? String(office?.activePeople ?? 0)}
+          onChange={setHeadCount}
+          hint="Starts at the office's active roster."
+        />
+        <div className="mt-3">
+          <ThroughputPlanner
+            headCount={Number(headCount ?? office?.activePeople ?? 0)}
+            stations={stations.length}
+            slotMinutes={Number(fields.slotMinutes)}
+            hoursPerDay={hoursPerDay}
+          />
+        </div>
+      </div>
+      <Button type="submit" busy={create.isPending}>
+        {photographers ? 'Create the day' : 'Propose the day'}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,101 @@
+import ICAL from 'ical.js';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createSmtpMailer } from '../../server/adapters/mail/mailer';
+import { runDayJobsOnce } from '../../server/jobs/day-jobs';
+import { createLogger } from '../../server/lib/logger';
+import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
+import { insertDay } from '../factories/days';
+import { signedInAgent } from '../server/helpers';
+import { seriousAxeViolations, startE2e, type E2eEnvironment } from './support/browser';
+
+let env: E2eEnvironment;
+beforeAll(async () => {
+  env = await startE2e();
+});
+afterAll(() => env?.close());
+
+describe('a sitter books on a phone', () => {
+  it('opens the invitation, books, sees the pass, moves, and gets the updated invitation', async () => {
+    const t = env.testApp;
+    const client = await insertClient(t.db, { name: 'Halvorsen & Pike Engineering' });
+    const office = await insertOffice(t.db, client.id, 'Leeds', 'Europe/London');
+    const photographer = await insertStaff(t.db, { role: 'photographer' });
+    const day = await insertDay(t.db, {
+      clientId: client.id,
+      officeId: office.id,
+      photographerIds: [photographer.id],
+      opensAt: '09:00',
+      closesAt: '11:00',
+    });
+    const person = await insertPerson(t.db, client.id, { officeId: office.id, givenName: 'Ines' });
+    const admin = await signedInAgent(t, (await insertStaff(t.db)).email);
+    await admin.post(`/api/days/${day.id}/invitations`).expect(202);
+    const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
+    await runDayJobsOnce({
+      db: t.db,
+      clock: t.clock,
+      mailer,
+      config: t.config,
+      logger: createLogger('silent'),
+    });
+    mailer.close();
+
+    const invitation = await t.mail.waitFor(person.email, {
+      subjectIncludes: 'Book your portrait',
+    });
+    const url = /(http:\/\/\S+\/link\/\S+)/.exec(invitation.text)?.[1];
+    expect(url).toBeDefined();
+
+    const context = await env.newContext({
+      viewport: { width: 390, height: 844 },
+      isMobile: true,
+      hasTouch: true,
+    });
+    const page = await context.newPage();
+    await page.goto(url as string);
+    await page.getByRole('heading', { level: 1, name: 'Hello, Ines' }).waitFor();
+    const form = page.getByRole('form', { name: 'Book a slot' });
+    await form.getByText('Europe/London time', { exact: false }).waitFor();
+    expect(await seriousAxeViolations(page)).toEqual([]);
+
+    await form.getByText('09:15', { exact: true }).click();
+    await form.getByLabel('Flash photography is a problem for me').check();
+    await form.getByText('continuous light', { exact: false }).waitFor();
+    await form.getByRole('button', { name: 'Book this time' }).click();
+
+    await page.getByText('Booked for', { exact: false }).waitFor();
+    await expect(page.locator('p', { hasText: 'Booked for' }).innerText()).resolves.toContain(
+      '09:15',
+    );
+    const pass = page.getByRole('img', { name: /Your pass/ });
+    await pass.waitFor();
+    await expect(
+      pass.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0),
+    ).resolves.toBe(true);
+    expect(await seriousAxeViolations(page)).toEqual([]);
+    await t.mail.waitFor(person.email, { subjectIncludes: 'is booked' });
+
+    await page.getByRole('button', { name: 'Move my sitting' }).click();
+    const move = page.getByRole('form', { name: 'Move my sitting' });
+    await move.getByText('10:00', { exact: true }).click();
+    await move.getByRole('button', { name: 'Move to this time' }).click();
+    await page.getByText('Moved. An updated calendar invitation is on its way.').waitFor();
+    await expect(page.locator('p', { hasText: 'Booked for' }).innerText()).resolves.toContain(
+      '10:00',
+    );
+
+    // The catcher holds the updated invitation: same UID, SEQUENCE raised (RFC 5546).
+    const moved = await t.mail.waitFor(person.email, { subjectIncludes: 'has moved' });
+    const part = moved.attachments.find((item) => item.contentType.startsWith('text/calendar'));
+    const calendar = new ICAL.Component(
+      ICAL.parse(Buffer.from(part!.content, 'base64').toString('utf8')),
+    );
+    const vevent = calendar.getFirstSubcomponent('vevent')!;
+    expect(calendar.getFirstPropertyValue('method')).toBe('REQUEST');
+    expect(vevent.getFirstPropertyValue('sequence')).toBe(1);
+    expect(vevent.getFirstProperty('dtstart')!.toICALString()).toBe(
+      'DTSTART;TZID=Europe/London:20300314T100000',
+    );
+    await context.close();
+  });
+});
