@@ -1,6 +1,5 @@
-import type { QueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
 import { SelectField } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
@@ -8,23 +7,13 @@ import { Notice } from '../../../components/ui/notice';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { SafetyCautions } from '../../../components/ui/safety-cautions';
 import { useCopySetupCard } from '../../../features/setup-card/api/copy-setup-card';
-import {
-  daySetupCardsQueryOptions,
-  useDaySetupCards,
-} from '../../../features/setup-card/api/get-day-setup-cards';
+import { useDaySetupCards } from '../../../features/setup-card/api/get-day-setup-cards';
 import { useCardSources } from '../../../features/setup-card/api/list-card-sources';
 import { SetupCardEditor } from '../../../features/setup-card/components/setup-card-editor';
 import { starterCard } from '../../../features/setup-card/model/starter-card';
 import { formatDateTime } from '../../../lib/format';
-import { requireRole } from '../../guards';
 
-export const makeLoader =
-  (queryClient: QueryClient) =>
-  async ({ request, params }: LoaderFunctionArgs) => {
-    await requireRole(queryClient, request, ['studio_admin', 'photographer']);
-    await queryClient.ensureQueryData(daySetupCardsQueryOptions(params.dayId ?? ''));
-    return null;
-  };
+export { makeLoader } from './day-cards-loader';
 
 /** The setup card of each station of a day: edit, check the figures, copy, print. */
 export function SetupCardsPage() {

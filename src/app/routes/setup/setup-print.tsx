@@ -1,25 +1,14 @@
-import type { QueryClient } from '@tanstack/react-query';
-import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import { setupCardSchema } from '../../../../server/schemas/setup-card';
 import { SafetyCautions } from '../../../components/ui/safety-cautions';
-import {
-  daySetupCardsQueryOptions,
-  useDaySetupCards,
-} from '../../../features/setup-card/api/get-day-setup-cards';
+import { useDaySetupCards } from '../../../features/setup-card/api/get-day-setup-cards';
 import { CardFiguresPanel } from '../../../features/setup-card/components/card-figures';
 import { PlanSketch } from '../../../features/setup-card/components/plan-sketch';
 import { computeCard } from '../../../features/setup-card/model/compute-card';
 import { powerLabel } from '../../../features/setup-card/model/power-scale';
 import { shutterLabel } from '../../../features/setup-card/model/starter-card';
-import { requireRole } from '../../guards';
 
-export const makeLoader =
-  (queryClient: QueryClient) =>
-  async ({ request, params }: LoaderFunctionArgs) => {
-    await requireRole(queryClient, request, ['studio_admin', 'photographer']);
-    await queryClient.ensureQueryData(daySetupCardsQueryOptions(params.dayId ?? ''));
-    return null;
-  };
+export { makeLoader } from './day-cards-loader';
 
 /** One page per station (A4 or Letter through print CSS): sketch, settings, figures, cautions. */
 export function SetupPrintPage() {
