@@ -5,6 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { systemClock } from '../server/adapters/clock';
 import { startMailCatcher, type MailCatcher } from '../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../server/adapters/mail/mailer';
+import { createPgNotifications } from '../server/adapters/notifications';
 import { createApp, type AppDeps } from '../server/app';
 import { parseEnvironment, toAppConfig } from '../server/config';
 import { createDatabase } from '../server/db/database';
@@ -114,6 +115,12 @@ async function main() {
   const mailer = createSmtpMailer({ smtpUrl, from: config.mailFrom });
   cleanups.push(() => mailer.close());
 
+  // One dedicated connection LISTENs for station console changes from every app process.
+  const notifications = await createPgNotifications(databaseUrl, (error) =>
+    logger.warn({ err: error }, 'console notifications connection failed; reconnecting'),
+  );
+  cleanups.push(() => notifications.close());
+
   const { app } = createApp({
     db,
     config,
@@ -122,6 +129,7 @@ async function main() {
     clock: systemClock,
     logger,
     frontend: await frontend(),
+    notifications,
   });
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(raw.PORT, raw.HOST, () => resolve(listening));

@@ -6,6 +6,7 @@ import helmet from 'helmet';
 import type { Clock } from './adapters/clock';
 import type { Mailbox } from './adapters/mail/mail-catcher';
 import type { Mailer } from './adapters/mail/mailer';
+import type { Notifications } from './adapters/notifications';
 import type { AppConfig } from './config';
 import type { Db } from './db/database';
 import { AppError } from './lib/errors';
@@ -18,6 +19,8 @@ import { registerBookingRoutes } from './modules/booking/booking.routes';
 import { createBookingService } from './modules/booking/booking.service';
 import { createAuthService } from './modules/auth/auth.service';
 import { registerClientsRoutes } from './modules/clients/clients.routes';
+import { registerConsoleRoutes } from './modules/console/console.routes';
+import { createConsoleService } from './modules/console/console.service';
 import { createClientsService } from './modules/clients/clients.service';
 import { registerDaysRoutes } from './modules/days/days.routes';
 import { createInvitationsService } from './modules/invitations/invitations.service';
@@ -46,6 +49,8 @@ export interface AppDeps {
   logger: Logger;
   /** How the browser app is served: built files, Vite's dev middleware, or not at all. */
   frontend?: { kind: 'static'; folder: string } | { kind: 'middleware'; handler: RequestHandler };
+  /** LISTEN/NOTIFY for the live station console; without it tablets fall back to polling. */
+  notifications?: Notifications;
 }
 
 /**
@@ -129,6 +134,7 @@ export function createApp(deps: AppDeps) {
   registerBookingRoutes(routes, booking);
   registerProgressRoutes(routes, progress, invitations);
   registerSetupCardsRoutes(routes, createSetupCardsService({ db }));
+  registerConsoleRoutes(routes, createConsoleService({ db, clock }), deps.notifications);
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());
   api.use(errorHandler(logger));

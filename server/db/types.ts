@@ -1,4 +1,10 @@
 import type { ColumnType, Generated, Insertable, Selectable } from 'kysely';
+import type {
+  CheckInsTable,
+  NoShowsTable,
+  SittingsTable,
+  StationActionsTable,
+} from './console-types';
 import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
@@ -54,6 +60,8 @@ export interface PeopleTable {
   jobTitle: string | null;
   /** Roster columns kept as they came (see roster-types.ts). */
   extras: ColumnType<Record<string, string>, string | undefined, string>;
+  /** Set for walk-ins added at a station: the day they joined the roster. */
+  addedOnDayId: ColumnType<string | null, string | null | undefined, string | null>;
   active: Generated<boolean>;
   createdAt: DefaultedTimestamp;
   updatedAt: DefaultedTimestamp;
@@ -123,6 +131,7 @@ export interface ShootDaysTable {
   inviteDepartments: ColumnType<string[], string | undefined, string>;
   status: 'proposed' | 'confirmed';
   reminderRounds: Generated<number>;
+  noShowGraceMinutes: Generated<number>;
   createdByUserId: string | null;
   createdAt: DefaultedTimestamp;
 }
@@ -203,6 +212,10 @@ export interface Database {
   bookings: BookingsTable;
   dayMailings: DayMailingsTable;
   jobQueue: JobQueueTable;
+  stationActions: StationActionsTable;
+  checkIns: CheckInsTable;
+  sittings: SittingsTable;
+  noShows: NoShowsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -66,6 +66,12 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'POST /api/days/:dayId/invitations': ['studio_admin', 'coordinator'],
   'POST /api/days/:dayId/reminders': ['studio_admin', 'coordinator'],
   'GET /api/days/:dayId/mailings': ['studio_admin', 'coordinator'],
+  'GET /api/console/days': ['studio_admin', 'photographer', 'coordinator'],
+  'GET /api/days/:dayId/console': ['studio_admin', 'photographer', 'coordinator'],
+  'GET /api/days/:dayId/console/roster': ['studio_admin', 'photographer', 'coordinator'],
+  'POST /api/days/:dayId/console/actions': ['studio_admin', 'photographer'],
+  // Without ?stationId= an allowed caller gets 400 instead of an endless event stream.
+  'GET /api/days/:dayId/console/events': ['studio_admin', 'photographer', 'coordinator'],
 };
 
 const allRoles: Role[] = ['studio_admin', 'photographer', 'coordinator', 'sitter'];

@@ -1,6 +1,7 @@
 import type { Clock } from '../../server/adapters/clock';
 import { startMailCatcher, type MailCatcher } from '../../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../../server/adapters/mail/mailer';
+import { createPgNotifications } from '../../server/adapters/notifications';
 import { createApp, type AppDeps } from '../../server/app';
 import { parseEnvironment, toAppConfig, type AppConfig } from '../../server/config';
 import { createLogger } from '../../server/lib/logger';
@@ -41,6 +42,7 @@ export async function startTestApp(
   );
   const mailer = createSmtpMailer({ smtpUrl: mail.smtpUrl, from: config.mailFrom });
   const clock = new ManualClock();
+  const notifications = await createPgNotifications(database.url);
   const { app, routeTable } = createApp({
     db: database.db,
     config,
@@ -49,6 +51,7 @@ export async function startTestApp(
     clock,
     logger: createLogger('silent'),
     frontend: options.frontend,
+    notifications,
   });
   return {
     app,
@@ -60,6 +63,7 @@ export async function startTestApp(
     config,
     async close() {
       mailer.close();
+      await notifications.close();
       await mail.close();
       await database.drop();
     },

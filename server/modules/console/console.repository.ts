@@ -1,0 +1,343 @@
+import { sql, type Transaction } from 'kysely';
+import type { Db } from '../../db/database';
+import type { CheckInMethod } from '../../db/console-types';
+import type { Database } from '../../db/types';
+
+type Executor = Db | Transaction<Database>;
+
+export async function findDay(db: Executor, dayId: string) {
+  const day = await db
+    .selectFrom('shootDays')
+    .innerJoin('clients', 'clients.id', 'shootDays.clientId')
+    .innerJoin('offices', 'offices.id', 'shootDays.officeId')
+    .select([
+      'shootDays.id',
+      'shootDays.clientId',
+      'shootDays.officeId',
+      sql<string>`to_char(shoot_days.day_date, 'YYYY-MM-DD')`.as('date'),
+      'clients.name as clientName',
+      'offices.name as officeName',
+      'shootDays.timeZone',
+      'shootDays.address',
+      'shootDays.room',
+      'shootDays.slotMinutes',
+      'shootDays.noShowGraceMinutes as graceMinutes',
+    ])
+    .where('shootDays.id', '=', dayId)
+    .executeTakeFirst();
+  if (!day) return undefined;
+  const stations = await db
+    .selectFrom('stations')
+    .leftJoin('users', 'users.id', 'stations.photographerId')
+    .select([
+      'stations.id',
+      'stations.name',
+      'stations.position',
+      'stations.photographerId',
+      'users.displayName as photographerName',
+    ])
+    .where('stations.dayId', '=', dayId)
+    .orderBy('stations.position')
+    .execute();
+  return { ...day, stations };
+}
+export type DayRecord = NonNullable<Awaited<ReturnType<typeof findDay>>>;
+
+/** Days for the console picker, from yesterday on (a day may run past midnight UTC). */
+export async function listDays(
+  db: Db,
+  filter: { photographerId: string | null; clientId: string | null },
+) {
+  let query = db
+    .selectFrom('shootDays')
+    .innerJoin('clients', 'clients.id', 'shootDays.clientId')
+    .innerJoin('offices', 'offices.id', 'shootDays.officeId')
+    .select([
+      'shootDays.id',
+      sql<string>`to_char(shoot_days.day_date, 'YYYY-MM-DD')`.as('date'),
+      'clients.name as clientName',
+      'offices.name as officeName',
+    ])
+    .where('shootDays.dayDate', '>=', sql<string>`current_date - 1`)
+    .orderBy('shootDays.dayDate')
+    .limit(50);
+  if (filter.clientId) query = query.where('shootDays.clientId', '=', filter.clientId);
+  if (filter.photographerId) {
+    const photographerId = filter.photographerId;
+    query = query.where((eb) =>
+      eb.exists(
+        eb
+          .selectFrom('stations')
+          .select('stations.id')
+          .whereRef('stations.dayId', '=', 'shootDays.id')
+          .where('stations.photographerId', '=', photographerId),
+      ),
+    );
+  }
+  return query.execute();
+}
+
+export function listStationsOfDays(db: Db, dayIds: string[]) {
+  if (dayIds.length === 0) return Promise.resolve([]);
+  return db
+    .selectFrom('stations')
+    .leftJoin('users', 'users.id', 'stations.photographerId')
+    .select([
+      'stations.id',
+      'stations.dayId',
+      'stations.name',
+      'stations.position',
+      'stations.photographerId',
+      'users.displayName as photographerName',
+    ])
+    .where('stations.dayId', 'in', dayIds)
+    .orderBy('stations.position')
+    .execute();
+}
+
+export function listBookings(db: Executor, dayId: string) {
+  return db
+    .selectFrom('bookings')
+    .innerJoin('people', 'people.id', 'bookings.personId')
+    .select([
+      'bookings.id',
+      'bookings.personId',
+      'bookings.stationId',
+      'bookings.startsAt',
+      'bookings.status',
+      'bookings.preferredName',
+      'bookings.glasses',
+      'bookings.accessNeeds',
+      'bookings.flashSensitive',
+      'people.givenName',
+      'people.familyName',
+      'people.addedOnDayId',
+    ])
+    .where('bookings.dayId', '=', dayId)
+    .orderBy('bookings.startsAt')
+    .execute();
+}
+
+export function listCheckIns(db: Executor, dayId: string) {
+  return db
+    .selectFrom('checkIns')
+    .innerJoin('people', 'people.id', 'checkIns.personId')
+    .leftJoin('users', 'users.id', 'checkIns.byUserId')
+    .select([
+      'checkIns.id',
+      'checkIns.personId',
+      'checkIns.bookingId',
+      'checkIns.stationId',
+      'checkIns.checkedInAt',
+      'users.displayName as byName',
+      'people.givenName',
+      'people.familyName',
+      'people.preferredName',
+      'people.addedOnDayId',
+    ])
+    .where('checkIns.dayId', '=', dayId)
+    .where('checkIns.undoneAt', 'is', null)
+    .execute();
+}
+
+export function listSittings(db: Executor, dayId: string) {
+  return db
+    .selectFrom('sittings')
+    .selectAll()
+    .where('dayId', '=', dayId)
+    .where('undoneAt', 'is', null)
+    .orderBy('startedAt')
+    .execute();
+}
+
+export function listNoShows(db: Executor, dayId: string) {
+  return db
+    .selectFrom('noShows')
+    .select(['id', 'bookingId', 'markedAt'])
+    .where('dayId', '=', dayId)
+    .where('undoneAt', 'is', null)
+    .execute();
+}
+
+export function searchRoster(db: Db, clientId: string, dayId: string, text: string) {
+  const pattern = `%${text.replace(/[\\%_]/g, (match) => `\\${match}`)}%`;
+  return db
+    .selectFrom('people')
+    .leftJoin('offices', 'offices.id', 'people.officeId')
+    .select((eb) => [
+      'people.id',
+      'people.givenName',
+      'people.familyName',
+      'people.preferredName',
+      'people.department',
+      'offices.name as officeName',
+      eb
+        .exists(
+          eb
+            .selectFrom('checkIns')
+            .select('checkIns.id')
+            .whereRef('checkIns.personId', '=', 'people.id')
+            .where('checkIns.dayId', '=', dayId)
+            .where('checkIns.undoneAt', 'is', null),
+        )
+        .as('checkedIn'),
+    ])
+    .where('people.clientId', '=', clientId)
+    .where('people.active', '=', true)
+    .where(
+      sql<boolean>`(people.given_name || ' ' || people.family_name || ' ' || coalesce(people.preferred_name, '')) ilike ${pattern}`,
+    )
+    .orderBy('people.familyName')
+    .orderBy('people.givenName')
+    .limit(20)
+    .execute();
+}
+
+export function findActionByKey(db: Executor, idempotencyKey: string) {
+  return db
+    .selectFrom('stationActions')
+    .selectAll()
+    .where('idempotencyKey', '=', idempotencyKey)
+    .executeTakeFirst();
+}
+
+export async function insertAction(
+  db: Executor,
+  row: {
+    idempotencyKey: string;
+    dayId: string;
+    stationId: string;
+    userId: string;
+    kind: string;
+    payload: unknown;
+    result: unknown;
+    tabletAt: Date;
+    receivedAt: Date;
+  },
+) {
+  await db
+    .insertInto('stationActions')
+    .values({ ...row, payload: JSON.stringify(row.payload), result: JSON.stringify(row.result) })
+    .execute();
+}
+
+export function findBookingByPassToken(db: Executor, passToken: string) {
+  return db
+    .selectFrom('bookings')
+    .innerJoin('shootDays', 'shootDays.id', 'bookings.dayId')
+    .select([
+      'bookings.id',
+      'bookings.dayId',
+      'bookings.personId',
+      'bookings.status',
+      'shootDays.clientId',
+      sql<string>`to_char(shoot_days.day_date, 'YYYY-MM-DD')`.as('date'),
+    ])
+    .where('bookings.passToken', '=', passToken)
+    .forUpdate('bookings')
+    .executeTakeFirst();
+}
+
+export function findBookingOnDay(db: Executor, dayId: string, bookingId: string) {
+  return db
+    .selectFrom('bookings')
+    .select(['id', 'personId', 'status', 'startsAt', 'stationId'])
+    .where('dayId', '=', dayId)
+    .where('id', '=', bookingId)
+    .executeTakeFirst();
+}
+
+export function findActiveBookingOfPerson(db: Executor, dayId: string, personId: string) {
+  return db
+    .selectFrom('bookings')
+    .select(['id'])
+    .where('dayId', '=', dayId)
+    .where('personId', '=', personId)
+    .where('status', '=', 'active')
+    .executeTakeFirst();
+}
+
+export function findPerson(db: Executor, personId: string) {
+  return db
+    .selectFrom('people')
+    .select(['id', 'clientId', 'active', 'givenName', 'familyName'])
+    .where('id', '=', personId)
+    .executeTakeFirst();
+}
+
+export async function insertPerson(
+  db: Executor,
+  person: {
+    id: string;
+    clientId: string;
+    officeId: string;
+    givenName: string;
+    familyName: string;
+    email: string;
+    addedOnDayId: string;
+  },
+) {
+  await db.insertInto('people').values(person).execute();
+}
+
+export function findActiveCheckIn(db: Executor, dayId: string, personId: string) {
+  return db
+    .selectFrom('checkIns')
+    .innerJoin('stations', 'stations.id', 'checkIns.stationId')
+    .select(['checkIns.id', 'checkIns.checkedInAt', 'stations.name as stationName'])
+    .where('checkIns.dayId', '=', dayId)
+    .where('checkIns.personId', '=', personId)
+    .where('checkIns.undoneAt', 'is', null)
+    .executeTakeFirst();
+}
+
+export async function insertCheckIn(
+  db: Executor,
+  row: {
+    id: string;
+    dayId: string;
+    personId: string;
+    bookingId: string | null;
+    stationId: string;
+    method: CheckInMethod;
+    checkedInAt: Date;
+    tabletAt: Date;
+    byUserId: string;
+  },
+) {
+  await db.insertInto('checkIns').values(row).execute();
+}
+
+export function findCheckIn(db: Executor, dayId: string, checkInId: string) {
+  return db
+    .selectFrom('checkIns')
+    .select(['id', 'personId', 'bookingId', 'undoneAt'])
+    .where('dayId', '=', dayId)
+    .where('id', '=', checkInId)
+    .forUpdate()
+    .executeTakeFirst();
+}
+
+export function findSitting(db: Executor, dayId: string, sittingId: string) {
+  return db
+    .selectFrom('sittings')
+    .selectAll()
+    .where('dayId', '=', dayId)
+    .where('id', '=', sittingId)
+    .forUpdate()
+    .executeTakeFirst();
+}
+
+export function findActiveNoShow(db: Executor, bookingId: string) {
+  return db
+    .selectFrom('noShows')
+    .select(['id'])
+    .where('bookingId', '=', bookingId)
+    .where('undoneAt', 'is', null)
+    .executeTakeFirst();
+}
+
+/** Wakes every listening app process; delivered only if the surrounding transaction commits. */
+export async function notifyDayChanged(db: Executor, dayId: string) {
+  await sql`select pg_notify('station_console', ${dayId})`.execute(db);
+}
