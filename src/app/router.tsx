@@ -71,6 +71,26 @@ export function createAppRouter(queryClient: QueryClient) {
               },
             },
             {
+              path: '/people',
+              lazy: async () => ({
+                loader: (await import('./routes/roster/my-people')).makeLoader(queryClient),
+              }),
+            },
+            {
+              path: '/clients/:clientId/people',
+              lazy: async () => {
+                const page = await import('./routes/roster/people');
+                return { Component: page.PeoplePage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/clients/:clientId/people/import',
+              lazy: async () => {
+                const page = await import('./routes/roster/import');
+                return { Component: page.RosterImportPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/studio/mailbox',
               lazy: async () => {
                 const page = await import('./routes/studio/mailbox');

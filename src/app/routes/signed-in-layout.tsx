@@ -26,6 +26,7 @@ const navigation: Record<Role, Array<{ to: string; label: string }>> = {
   photographer: [{ to: '/', label: 'My days' }],
   coordinator: [
     { to: '/', label: 'Overview' },
+    { to: '/people', label: 'People' },
     { to: '/days', label: 'Shoot days' },
   ],
   sitter: [{ to: '/', label: 'My portrait' }],

@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { LoaderFunctionArgs } from 'react-router-dom';
+import { Link, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeading } from '../../../components/ui/page-heading';
@@ -33,7 +33,13 @@ export function ClientsPage() {
               <Card key={client.id} title={client.name}>
                 <p className="text-sm text-ink-muted">
                   {plural(client.activePeople, 'person', 'people')} on the roster ·{' '}
-                  {plural(client.coordinators, 'coordinator')}
+                  {plural(client.coordinators, 'coordinator')} ·{' '}
+                  <Link
+                    className="font-medium text-spruce-700 underline"
+                    to={`/clients/${client.id}/people`}
+                  >
+                    People and roster import
+                  </Link>
                 </p>
                 {client.offices.length > 0 ? (
                   <ul className="mt-2 flex flex-wrap gap-2">

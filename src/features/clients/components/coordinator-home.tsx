@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeading } from '../../../components/ui/page-heading';
@@ -19,7 +20,13 @@ export function CoordinatorHome({ name }: { name: string }) {
             {client.activePeople === 0 ? (
               <EmptyState title="Nobody is on the roster yet">
                 Your staff list is the first step: every booking invitation goes to the people on
-                it.
+                it.{' '}
+                <Link
+                  className="font-medium text-spruce-700 underline"
+                  to={`/clients/${client.id}/people/import`}
+                >
+                  Import the staff list (CSV)
+                </Link>
               </EmptyState>
             ) : (
               <>
@@ -38,6 +45,20 @@ export function CoordinatorHome({ name }: { name: string }) {
                     </li>
                   ))}
                 </ul>
+                <p className="mt-3 flex flex-wrap gap-4">
+                  <Link
+                    className="font-medium text-spruce-700 underline"
+                    to={`/clients/${client.id}/people`}
+                  >
+                    See and edit the people
+                  </Link>
+                  <Link
+                    className="font-medium text-spruce-700 underline"
+                    to={`/clients/${client.id}/people/import`}
+                  >
+                    Import a newer staff list
+                  </Link>
+                </p>
               </>
             )}
           </Card>

@@ -1,0 +1,50 @@
+import { SelectField } from '../../../components/ui/field';
+
+/** IANA zones the browser knows, with a short list where it cannot tell. */
+const zones: string[] =
+  typeof Intl.supportedValuesOf === 'function'
+    ? Intl.supportedValuesOf('timeZone')
+    : ['Europe/London', 'Europe/Amsterdam', 'Europe/Lisbon', 'Europe/Berlin', 'UTC'];
+
+export const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+
+/** One time zone per office the file names and the client does not have yet. */
+export function OfficeTimeZones({
+  offices,
+  value,
+  onChange,
+  errors,
+}: {
+  offices: string[];
+  value: Record<string, string>;
+  onChange: (value: Record<string, string>) => void;
+  errors: Record<string, string | undefined>;
+}) {
+  if (offices.length === 0) return null;
+  return (
+    <fieldset className="flex flex-col gap-3">
+      <legend className="mb-2 font-semibold">New offices: confirm each time zone</legend>
+      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+        {offices.map((office) => (
+          <SelectField
+            key={office}
+            label={`Time zone of ${office}`}
+            value={value[office] ?? ''}
+            onChange={(zone) => onChange({ ...value, [office]: zone })}
+            error={errors[`office:${office}`]}
+            options={[
+              { value: '', label: 'Choose a time zone' },
+              ...zones.map((zone) => ({ value: zone, label: zone.replace(/_/g, ' ') })),
+            ]}
+          />
+        ))}
+      </div>
+    </fieldset>
+  );
+}
+
+/** A zone whose city part is the office's name ("London"), else none: the coordinator picks. */
+export function guessTimeZone(office: string): string {
+  const key = office.trim().toLowerCase().replace(/\s+/g, '_');
+  return zones.find((zone) => zone.toLowerCase().endsWith(`/${key}`)) ?? '';
+}

@@ -1,0 +1,149 @@
+import type { ColumnDef, SortingState } from '@tanstack/react-table';
+import { useState } from 'react';
+import {
+  rosterFieldLabels,
+  type PreviewKind,
+  type PreviewRow,
+  type RosterField,
+} from '../../../../server/schemas/roster';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { PagedTable } from '../../../components/ui/paged-table';
+import { TextField } from '../../../components/ui/field';
+import { usePreviewRows } from '../api/list-preview-rows';
+
+export const kindLabels: Record<PreviewKind, string> = {
+  add: 'To add',
+  update: 'To update',
+  unchanged: 'Unchanged',
+  error: 'In error',
+  missing: 'Not in the file',
+};
+
+const labelOf = (field: string) =>
+  field === 'extras'
+    ? 'Extra columns'
+    : field === 'active'
+      ? 'Status'
+      : (rosterFieldLabels[field as RosterField] ?? field);
+
+const show = (value: unknown) =>
+  value === null || value === undefined || value === ''
+    ? '(empty)'
+    : typeof value === 'object'
+      ? Object.entries(value as Record<string, string>)
+          .map(([key, item]) => `${key}: ${item}`)
+          .join(', ') || '(none)'
+      : typeof value === 'boolean'
+        ? value
+          ? 'active'
+          : 'inactive'
+        : String(value);
+
+function Details({ row }: { row: PreviewRow }) {
+  if (row.kind === 'error') {
+    return (
+      <ul className="text-danger-700">
+        {Object.entries(row.errors).map(([field, message]) => (
+          <li key={field}>
+            <span className="font-medium">{labelOf(field)}</span>: {message}
+          </li>
+        ))}
+      </ul>
+    );
+  }
+  if (row.kind === 'missing') return <span>Will be marked inactive (kept, not deleted)</span>;
+  if (row.kind === 'update' && row.before) {
+    const before = row.before as Record<string, unknown>;
+    const after = row.values as Record<string, unknown>;
+    return (
+      <ul>
+        {row.changedFields.map((field) => (
+          <li key={field}>
+            <span className="font-medium">{labelOf(field)}</span>:{' '}
+            <del className="text-ink-muted">{show(before[field])}</del> →{' '}
+            <ins className="no-underline">{show(after[field])}</ins>
+          </li>
+        ))}
+      </ul>
+    );
+  }
+  return <span className="text-ink-muted">{row.values.office ?? ''}</span>;
+}
+
+const columns: ColumnDef<PreviewRow, unknown>[] = [
+  { id: 'position', header: 'Row', cell: ({ row }) => row.original.rowNumber ?? '—' },
+  { id: 'kind', header: 'What happens', cell: ({ row }) => kindLabels[row.original.kind] },
+  {
+    id: 'name',
+    header: 'Name',
+    cell: ({ row }) =>
+      `${row.original.values.givenName ?? ''} ${row.original.values.familyName ?? ''}`.trim() ||
+      '(no name)',
+  },
+  { id: 'email', header: 'E-mail', cell: ({ row }) => row.original.values.email || '(none)' },
+  {
+    id: 'details',
+    header: 'Details',
+    enableSorting: false,
+    cell: ({ row }) => <Details row={row.original} />,
+  },
+];
+
+/** The previewed rows of one kind, paged, sorted and searched on the server. */
+export function PreviewTable({
+  clientId,
+  draftId,
+  kind,
+}: {
+  clientId: string;
+  draftId: string;
+  kind: PreviewKind | 'all';
+}) {
+  const [page, setPage] = useState({ page: 1, pageSize: 25 });
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const [search, setSearch] = useState('');
+  const sort = sorting[0];
+  const rows = usePreviewRows(clientId, draftId, {
+    kind,
+    page: page.page,
+    pageSize: page.pageSize,
+    q: search,
+    sort: (sort?.id as 'position' | 'name' | 'email' | 'kind' | undefined) ?? 'position',
+    direction: sort?.desc ? 'desc' : 'asc',
+  });
+
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="max-w-sm">
+        <TextField
+          label="Search the preview"
+          type="search"
+          value={search}
+          onChange={(value) => {
+            setSearch(value);
+            setPage((current) => ({ ...current, page: 1 }));
+          }}
+        />
+      </div>
+      {rows.data && rows.data.total === 0 && !search ? (
+        <EmptyState title="Nothing here">No rows of this kind in the file.</EmptyState>
+      ) : (
+        <PagedTable
+          caption={`Preview: ${kind === 'all' ? 'all rows' : kindLabels[kind]}`}
+          columns={columns}
+          rows={rows.data?.rows ?? []}
+          total={rows.data?.total ?? 0}
+          page={page}
+          onPageChange={setPage}
+          sorting={sorting}
+          onSortingChange={(next) => {
+            setSorting(next);
+            setPage((current) => ({ ...current, page: 1 }));
+          }}
+          busy={rows.isFetching}
+          rowKey={(row) => String(row.position)}
+        />
+      )}
+    </div>
+  );
+}
