@@ -103,6 +103,8 @@ export interface QueueEntry {
   name: string;
   preferredName: string | null;
   bookingId: string | null;
+  /** SHA-256 (hex) of the active booking's pass token, so a tablet can read a pass offline. */
+  passHash: string | null;
   /** The booked station, or for walk-ins the station that checked them in. */
   stationId: string | null;
   startsAt: string | null;

@@ -120,6 +120,21 @@ export function createAppRouter(queryClient: QueryClient) {
             },
           ],
         },
+        // The station console has its own full-screen layout for tablets.
+        {
+          path: '/console',
+          lazy: async () => {
+            const page = await import('./routes/console/console-picker');
+            return { Component: page.ConsolePickerPage, loader: page.makeLoader(queryClient) };
+          },
+        },
+        {
+          path: '/console/:dayId/:stationId',
+          lazy: async () => {
+            const page = await import('./routes/console/station-console');
+            return { Component: page.StationConsolePage, loader: page.makeLoader(queryClient) };
+          },
+        },
         {
           path: '*',
           lazy: async () => ({ Component: (await import('./routes/not-found')).NotFoundPage }),

@@ -1,8 +1,12 @@
+import { createHash } from 'node:crypto';
 import { compareQueueEntries } from '../../schemas/console-rules';
 import type { QueueEntry, QueueStatus, SittingView } from '../../schemas/console';
 import type * as repo from './console.repository';
 
 type Rows<T extends (...args: never[]) => unknown> = Awaited<ReturnType<T>>;
+
+/** Tablets match a scanned pass offline by its SHA-256; the token itself never leaves the server. */
+export const passHash = (token: string) => createHash('sha256').update(token).digest('hex');
 
 const fullName = (person: { givenName: string; familyName: string }) =>
   `${person.givenName} ${person.familyName}`;
@@ -63,6 +67,7 @@ export function buildQueue(input: {
       name: fullName(booking),
       preferredName: booking.preferredName,
       bookingId: booking.id,
+      passHash: booking.status === 'active' ? passHash(booking.passToken) : null,
       stationId: booking.stationId,
       startsAt: booking.startsAt.toISOString(),
       status,
@@ -90,6 +95,7 @@ export function buildQueue(input: {
       name: fullName(checkIn),
       preferredName: checkIn.preferredName,
       bookingId: null,
+      passHash: null,
       stationId: checkIn.stationId,
       startsAt: null,
       status: statusOf(checkIn.personId, true, false, false),

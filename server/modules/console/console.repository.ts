@@ -105,6 +105,7 @@ export function listBookings(db: Executor, dayId: string) {
       'bookings.stationId',
       'bookings.startsAt',
       'bookings.status',
+      'bookings.passToken',
       'bookings.preferredName',
       'bookings.glasses',
       'bookings.accessNeeds',

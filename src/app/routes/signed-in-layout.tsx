@@ -23,7 +23,10 @@ const navigation: Record<Role, Array<{ to: string; label: string }>> = {
     { to: '/studio/team', label: 'Team' },
     { to: '/studio/mailbox', label: 'Mailbox' },
   ],
-  photographer: [{ to: '/', label: 'My days' }],
+  photographer: [
+    { to: '/', label: 'My days' },
+    { to: '/console', label: 'Station console' },
+  ],
   coordinator: [
     { to: '/', label: 'Overview' },
     { to: '/people', label: 'People' },

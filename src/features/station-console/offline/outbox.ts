@@ -1,0 +1,157 @@
+import type { ConsoleActionResult } from '../../../../server/schemas/console';
+import { ApiError } from '../../../lib/api-client';
+import type { OutboxItem } from '../model/outbox-item';
+import { outboxStore } from './outbox-store';
+
+export interface OutboxNotice {
+  id: string;
+  tone: 'success' | 'danger';
+  text: string;
+}
+
+export interface OutboxState {
+  /** Recorded on the tablet; `sent` ones wait only for the next snapshot to show them. */
+  items: Array<OutboxItem & { sent?: boolean }>;
+  /** False once a send failed for want of network, until one succeeds again. */
+  reachable: boolean;
+  notices: OutboxNotice[];
+}
+
+type Send = (item: OutboxItem) => Promise<ConsoleActionResult>;
+
+/**
+ * The tablet's queue of changes. Each is written to IndexedDB before anything else happens,
+ * then sent strictly in order; a network failure stops the line and retries later, a refusal
+ * from the server is shown to the photographer and the line moves on.
+ */
+export class Outbox {
+  private state: OutboxState = { items: [], reachable: true, notices: [] };
+  private listeners = new Set<() => void>();
+  private flushing = false;
+  private retry: ReturnType<typeof setTimeout> | undefined;
+  private inFlight: string | null = null;
+  private counter = 0;
+
+  constructor(
+    private readonly dayId: string,
+    private readonly send: Send,
+    /** Refetches the snapshot; resolves once the screen shows the server's truth. */
+    private readonly refresh: () => Promise<void>,
+  ) {}
+
+  subscribe = (listener: () => void) => {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  };
+
+  getState = () => this.state;
+
+  private set(patch: Partial<OutboxState>) {
+    this.state = { ...this.state, ...patch };
+    for (const listener of this.listeners) listener();
+  }
+
+  /** A message from the console itself (read on the tablet, never sent). */
+  note(tone: OutboxNotice['tone'], text: string) {
+    this.notify(tone, text);
+  }
+
+  private notify(tone: OutboxNotice['tone'], text: string) {
+    const notice = { id: crypto.randomUUID(), tone, text };
+    this.set({ notices: [...this.state.notices, notice].slice(-4) });
+    if (tone === 'success') setTimeout(() => this.dismiss(notice.id), 6000);
+  }
+
+  dismiss(id: string) {
+    this.set({ notices: this.state.notices.filter((notice) => notice.id !== id) });
+  }
+
+  async load() {
+    const stored = await outboxStore.list();
+    this.set({ items: stored.filter((item) => item.dayId === this.dayId) });
+    void this.flush();
+  }
+
+  /** Records a change. Resolves once it is safely on the tablet, before it is sent. */
+  async submit(item: Omit<OutboxItem, 'sequence' | 'dayId'>) {
+    const full: OutboxItem = {
+      ...item,
+      dayId: this.dayId,
+      sequence: Date.now() * 1000 + (this.counter++ % 1000),
+    };
+    await outboxStore.add(full);
+    this.set({ items: [...this.state.items, full] });
+    void this.flush();
+  }
+
+  /** Takes back a change that has not left the tablet. False when it is already sent. */
+  async withdraw(idempotencyKey: string): Promise<boolean> {
+    const item = this.state.items.find((entry) => entry.action.idempotencyKey === idempotencyKey);
+    if (!item || item.sent || this.inFlight === idempotencyKey) return false;
+    await outboxStore.remove(idempotencyKey);
+    this.set({ items: this.state.items.filter((entry) => entry !== item) });
+    return true;
+  }
+
+  /** The next snapshot arrived: sent changes are now part of it. */
+  snapshotArrived() {
+    if (this.state.items.some((item) => item.sent)) {
+      this.set({ items: this.state.items.filter((item) => !item.sent) });
+    }
+  }
+
+  waitingCount() {
+    return this.state.items.filter((item) => !item.sent).length;
+  }
+
+  async flush(): Promise<void> {
+    if (this.flushing) return;
+    this.flushing = true;
+    clearTimeout(this.retry);
+    try {
+      for (;;) {
+        const next = this.state.items.find((item) => !item.sent);
+        if (!next) break;
+        this.inFlight = next.action.idempotencyKey;
+        try {
+          const result = await this.send(next);
+          await outboxStore.remove(next.action.idempotencyKey);
+          this.mark(next, 'sent');
+          this.set({ reachable: true });
+          if (!result.replayed) this.notify('success', result.message);
+        } catch (error) {
+          if (!(error instanceof ApiError) || error.status === 0 || error.status >= 500) {
+            // No network, or the server is in trouble: keep everything, try again soon.
+            this.set({ reachable: false });
+            this.retry = setTimeout(() => void this.flush(), 3000);
+            break;
+          }
+          await outboxStore.remove(next.action.idempotencyKey);
+          this.mark(next, 'refused');
+          this.notify('danger', `Not saved — ${next.label}: ${error.message}`);
+        } finally {
+          this.inFlight = null;
+        }
+        await this.refresh().then(
+          () => this.snapshotArrived(),
+          () => undefined,
+        );
+      }
+    } finally {
+      this.flushing = false;
+    }
+  }
+
+  private mark(item: OutboxItem, outcome: 'sent' | 'refused') {
+    this.set({
+      items:
+        outcome === 'sent'
+          ? this.state.items.map((entry) => (entry === item ? { ...entry, sent: true } : entry))
+          : this.state.items.filter((entry) => entry !== item),
+    });
+  }
+
+  stop() {
+    clearTimeout(this.retry);
+  }
+}
