@@ -52,6 +52,14 @@ export function DayPage() {
             >
               Printable day sheet
             </Link>
+            {session?.user.role !== 'coordinator' ? (
+              <Link
+                to={`/days/${day.id}/setup`}
+                className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+              >
+                Setup cards (lights and camera)
+              </Link>
+            ) : null}
             <a
               href={`/api/days/${day.id}/schedule.csv`}
               download
