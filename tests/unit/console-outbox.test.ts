@@ -1,0 +1,118 @@
+import { randomUUID } from 'node:crypto';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
+import type { ConsoleAction, ConsoleActionResult } from '../../server/schemas/console';
+import type { OutboxItem } from '../../src/features/station-console/model/outbox-item';
+import { ApiError } from '../../src/lib/api-client';
+
+// IndexedDB stands in as a map: the outbox's ordering and retry rules are under test here.
+const stored = new Map<string, OutboxItem>();
+vi.mock('../../src/features/station-console/offline/outbox-store', () => ({
+  outboxStore: {
+    add: async (item: OutboxItem) => void stored.set(item.action.idempotencyKey, item),
+    remove: async (key: string) => void stored.delete(key),
+    list: async () => [...stored.values()].sort((a, b) => a.sequence - b.sequence),
+  },
+}));
+const { Outbox } = await import('../../src/features/station-console/offline/outbox');
+
+const stationId = randomUUID();
+const checkIn = (label: string) => ({
+  label,
+  action: {
+    kind: 'check_in_person',
+    idempotencyKey: randomUUID(),
+    stationId,
+    tabletAt: new Date().toISOString(),
+    checkInId: randomUUID(),
+    personId: randomUUID(),
+  } satisfies ConsoleAction,
+});
+
+function harness() {
+  const sent: string[] = [];
+  let network = true;
+  const refused = new Set<string>();
+  const outbox = new Outbox(
+    'day',
+    async (item): Promise<ConsoleActionResult> => {
+      if (!network) throw new ApiError(0, 'network', 'No connection.');
+      if (refused.has(item.label)) throw new ApiError(409, 'already_checked_in', 'Already in.');
+      sent.push(item.label);
+      return {
+        idempotencyKey: item.action.idempotencyKey,
+        kind: item.action.kind,
+        replayed: false,
+        message: `${item.label} saved`,
+      };
+    },
+    async () => undefined,
+  );
+  return {
+    outbox,
+    sent,
+    refused,
+    setNetwork: (value: boolean) => {
+      network = value;
+    },
+  };
+}
+
+beforeEach(() => stored.clear());
+
+describe('offline outbox', () => {
+  it('keeps every change while offline and replays them in the order they were recorded', async () => {
+    const { outbox, sent, setNetwork } = harness();
+    setNetwork(false);
+    for (const label of ['first', 'second', 'third']) await outbox.submit(checkIn(label));
+    await outbox.flush();
+    expect(sent).toEqual([]);
+    expect(outbox.waitingCount()).toBe(3);
+    expect(outbox.getState().reachable).toBe(false);
+    expect(stored.size).toBe(3);
+
+    setNetwork(true);
+    await outbox.flush();
+    expect(sent).toEqual(['first', 'second', 'third']);
+    expect(outbox.waitingCount()).toBe(0);
+    expect(stored.size).toBe(0);
+    outbox.stop();
+  });
+
+  it('tells the photographer about a refused change and moves on to the next', async () => {
+    const { outbox, sent, refused, setNetwork } = harness();
+    setNetwork(false);
+    await outbox.submit(checkIn('twice'));
+    await outbox.submit(checkIn('after'));
+    refused.add('twice');
+    setNetwork(true);
+    await outbox.flush();
+    expect(sent).toEqual(['after']);
+    expect(outbox.getState().notices.map((notice) => notice.text)).toContain(
+      'Not saved — twice: Already in.',
+    );
+    outbox.stop();
+  });
+
+  it('takes back a change that has not left the tablet, so it is never sent', async () => {
+    const { outbox, sent, setNetwork } = harness();
+    setNetwork(false);
+    const item = checkIn('slip');
+    await outbox.submit(item);
+    await expect(outbox.withdraw(item.action.idempotencyKey)).resolves.toBe(true);
+    setNetwork(true);
+    await outbox.flush();
+    expect(sent).toEqual([]);
+    outbox.stop();
+  });
+
+  it('reloads what was waiting after the page is opened again', async () => {
+    const first = harness();
+    first.setNetwork(false);
+    await first.outbox.submit(checkIn('kept'));
+    first.outbox.stop();
+    const second = harness();
+    await second.outbox.load();
+    await vi.waitFor(() => expect(second.sent).toEqual(['kept']));
+    second.outbox.stop();
+  });
+});
