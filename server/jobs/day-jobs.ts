@@ -18,39 +18,43 @@ export interface JobDeps {
 }
 
 /** The services the background jobs need, wired the same way createApp wires them. */
-export function createInvitationsForJobs(deps: JobDeps) {
+export function createDayJobs(deps: JobDeps) {
   const auth = createAuthService(deps);
   const days = createDaysService({ db: deps.db });
   const booking = createBookingService(deps);
-  return createInvitationsService({
+  const invitations = createInvitationsService({
     ...deps,
     days,
     booking,
     issueSitterInvitationLink: (personId) => auth.issueSitterInvitationLink(personId),
   });
+  return {
+    handlers: { ...invitations.handlers(), ...booking.handlers() },
+    queueDueDayBefore: () => invitations.queueDueDayBefore(),
+  };
 }
 
 /** Runs the due jobs now (tests call this instead of waiting for the worker). */
 export async function runDayJobsOnce(deps: JobDeps): Promise<number> {
-  const invitations = createInvitationsForJobs(deps);
-  await invitations.queueDueDayBefore();
-  return runPendingJobs(deps.db, invitations.handlers(), deps.logger);
+  const jobs = createDayJobs(deps);
+  await jobs.queueDueDayBefore();
+  return runPendingJobs(deps.db, jobs.handlers, deps.logger);
 }
 
 /** The background worker the start script runs: polls every second until stopped. */
 export function startDayJobsWorker(deps: JobDeps, intervalMs = 1000) {
-  const invitations = createInvitationsForJobs(deps);
+  const jobs = createDayJobs(deps);
   let lastScan = 0;
   return startJobWorker({
     db: deps.db,
-    handlers: invitations.handlers(),
+    handlers: jobs.handlers,
     logger: deps.logger,
     intervalMs,
     // Looking for day-before messages once a minute is plenty.
     tick: async () => {
       if (Date.now() - lastScan < 60_000) return;
       lastScan = Date.now();
-      await invitations.queueDueDayBefore();
+      await jobs.queueDueDayBefore();
     },
   });
 }

@@ -1,10 +1,8 @@
 import ICAL from 'ical.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createSmtpMailer } from '../../server/adapters/mail/mailer';
-import { runDayJobsOnce } from '../../server/jobs/day-jobs';
-import { createLogger } from '../../server/lib/logger';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
 import { insertDay } from '../factories/days';
+import { runQueuedJobs } from '../server/booking-jobs';
 import { signedInAgent } from '../server/helpers';
 import { seriousAxeViolations, startE2e, type E2eEnvironment } from './support/browser';
 
@@ -30,15 +28,8 @@ describe('a sitter books on a phone', () => {
     const person = await insertPerson(t.db, client.id, { officeId: office.id, givenName: 'Ines' });
     const admin = await signedInAgent(t, (await insertStaff(t.db)).email);
     await admin.post(`/api/days/${day.id}/invitations`).expect(202);
-    const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
-    await runDayJobsOnce({
-      db: t.db,
-      clock: t.clock,
-      mailer,
-      config: t.config,
-      logger: createLogger('silent'),
-    });
-    mailer.close();
+    const runJobs = () => runQueuedJobs(t);
+    await runJobs();
 
     const invitation = await t.mail.waitFor(person.email, {
       subjectIncludes: 'Book your portrait',
@@ -73,6 +64,8 @@ describe('a sitter books on a phone', () => {
       pass.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0),
     ).resolves.toBe(true);
     expect(await seriousAxeViolations(page)).toEqual([]);
+    // Confirmations go out from the job queue; run it as the worker would.
+    await runJobs();
     await t.mail.waitFor(person.email, { subjectIncludes: 'is booked' });
 
     await page.getByRole('button', { name: 'Move my sitting' }).click();
@@ -85,6 +78,7 @@ describe('a sitter books on a phone', () => {
     );
 
     // The catcher holds the updated invitation: same UID, SEQUENCE raised (RFC 5546).
+    await runJobs();
     const moved = await t.mail.waitFor(person.email, { subjectIncludes: 'has moved' });
     const part = moved.attachments.find((item) => item.contentType.startsWith('text/calendar'));
     const calendar = new ICAL.Component(

@@ -5,6 +5,7 @@ import { insertClient, insertOffice, insertPerson, insertStaff } from '../factor
 import { insertDay } from '../factories/days';
 import { decodePng } from '../reference/decode-png';
 import { startTestApp, type TestApp } from '../setup/test-app';
+import { runQueuedJobs } from './booking-jobs';
 import { signedInSitter } from './helpers';
 
 let t: TestApp;
@@ -42,6 +43,9 @@ describe('the confirmation mail', () => {
       .send({ dayId: day.id, startsAt: '2030-07-04T07:15:00.000Z', preferredName: 'Rob' })
       .expect(201);
     expect(booked.body).toMatchObject({ localTime: '09:15', offset: 'UTC+02:00' });
+    // The confirmation is a job written with the booking; the worker sends it.
+    expect(t.mail.list()).toHaveLength(0);
+    expect(await runQueuedJobs(t)).toBe(1);
     const mail = await t.mail.waitFor(person.email, { subjectIncludes: 'is booked' });
     expect(mail.subject).toContain('Halvorsen & Pike Engineering');
     expect(mail.text).toContain('09:15 (Europe/Amsterdam, UTC+02:00)');
@@ -74,6 +78,7 @@ describe('the confirmation mail', () => {
       .patch(`/api/bookings/${booked.body.id}`)
       .send({ startsAt: '2030-07-04T07:40:00.000Z' })
       .expect(200);
+    await runQueuedJobs(t);
     const movedMail = await t.mail.waitFor(person.email, { subjectIncludes: 'has moved' });
     const moved = calendarOf(movedMail);
     expect(moved.vevent.getFirstPropertyValue('uid')).toBe(row.calendarUid);
@@ -82,6 +87,7 @@ describe('the confirmation mail', () => {
 
     t.mail.clear();
     await sitter.delete(`/api/bookings/${booked.body.id}`).expect(200);
+    await runQueuedJobs(t);
     const cancelMail = await t.mail.waitFor(person.email, { subjectIncludes: 'cancelled' });
     const cancelled = calendarOf(cancelMail);
     expect(cancelled.calendar.getFirstPropertyValue('method')).toBe('CANCEL');

@@ -88,6 +88,7 @@ describe('invitations, reminders and day-before mail through the job queue', () 
       .post('/api/bookings')
       .send({ dayId: day.id, startsAt: `${day.date}T09:00:00.000Z` })
       .expect(201);
+    await runJobs();
     await t.mail.waitFor(invited[0]!.email, { subjectIncludes: 'is booked' });
 
     // Reminders go only to the unbooked (the person who left is no longer invited).

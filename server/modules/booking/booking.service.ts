@@ -3,6 +3,7 @@ import type { Clock } from '../../adapters/clock';
 import type { Mailer } from '../../adapters/mail/mailer';
 import type { AppConfig } from '../../config';
 import type { Db } from '../../db/database';
+import { enqueueJobs, type JobHandlers } from '../../jobs/job-queue';
 import { AppError, notFound } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
 import type { Viewer } from '../../lib/viewer';
@@ -18,6 +19,7 @@ import { writeIcs } from './ics';
 import { newPassToken, passPng } from './pass';
 
 export type BookingService = ReturnType<typeof createBookingService>;
+export const bookingMailJob = 'booking-mail';
 
 const conflict = (code: string, message: string) => new AppError(code, 409, message);
 
@@ -31,7 +33,7 @@ export function createBookingService(deps: {
   config: AppConfig;
   logger: Logger;
 }) {
-  const { db, clock, mailer, config, logger } = deps;
+  const { db, clock, mailer, config } = deps;
   const organizerEmail = /<([^>]+)>/.exec(config.mailFrom)?.[1] ?? config.mailFrom;
 
   async function isInvited(day: daysRepo.DayRecord, personId: string): Promise<boolean> {
@@ -117,6 +119,8 @@ export function createBookingService(deps: {
     const booking = await repo.findBooking(db, bookingId);
     const day = booking ? await daysRepo.findDay(db, booking.dayId) : undefined;
     if (!booking || !day) return;
+    // A later cancel already replaced this message: do not announce a sitting that is gone.
+    if (kind !== 'cancelled' && booking.status === 'cancelled') return;
     const endsAt = new Date(booking.startsAt.getTime() + day.slotMinutes * 60_000);
     const ics = writeIcs({
       method: kind === 'cancelled' ? 'CANCEL' : 'REQUEST',
@@ -146,15 +150,21 @@ export function createBookingService(deps: {
     );
   }
 
-  /** Mail goes out after the commit; a mail failure is logged and never undoes the booking. */
-  function mailLater(kind: 'booked' | 'moved' | 'cancelled', bookingId: string) {
-    sendMail(kind, bookingId).catch((error: unknown) =>
-      logger.error({ err: error, bookingId }, 'booking mail failed'),
-    );
-  }
-
   return {
     sendMail,
+
+    /** Confirmation mail is a job written in the booking's own transaction (an outbox). */
+    handlers(): JobHandlers {
+      return {
+        [bookingMailJob]: async (payload) => {
+          const { bookingId, kind } = payload as { bookingId?: unknown; kind?: unknown };
+          if (typeof bookingId !== 'string') return;
+          if (kind === 'booked' || kind === 'moved' || kind === 'cancelled') {
+            await sendMail(kind, bookingId);
+          }
+        },
+      };
+    },
 
     async sitterDays(viewer: Viewer): Promise<SitterDay[]> {
       if (!viewer.clientId) return [];
@@ -248,13 +258,15 @@ export function createBookingService(deps: {
             flashSensitive: input.flashSensitive,
             bookedByUserId: viewer.kind === 'staff' ? viewer.id : null,
           });
-          if (id) return { id, created: true };
+          if (id) {
+            await enqueueJobs(trx, bookingMailJob, [{ bookingId: id, kind: 'booked' }]);
+            return { id, created: true };
+          }
         }
         throw conflict('slot_taken', 'That slot has just been taken. Please pick another.');
       });
       const booking = await repo.findBooking(db, outcome.id);
       if (!booking) throw notFound('That booking');
-      if (outcome.created) mailLater('booked', booking.id);
       return { booking: toDto(booking, day, viewer), created: outcome.created };
     },
 
@@ -269,7 +281,6 @@ export function createBookingService(deps: {
       const startsAt = new Date(startsAtText);
       checkSlot(day, startsAt);
       if (startsAt <= clock.now()) throw conflict('slot_past', 'That slot has already begun.');
-      let moved = false;
       try {
         await db.transaction().execute(async (trx) => {
           const locked = await repo.lockBooking(trx, id);
@@ -280,7 +291,7 @@ export function createBookingService(deps: {
           const [stationId] = await repo.freeStationsAt(trx, day.id, startsAt);
           if (!stationId) throw conflict('slot_taken', 'That slot is full. Please pick another.');
           await repo.moveBooking(trx, id, stationId, startsAt, clock.now());
-          moved = true;
+          await enqueueJobs(trx, bookingMailJob, [{ bookingId: id, kind: 'moved' }]);
         });
       } catch (error) {
         // Another sitter took the seat between our read and our write: the index refused it.
@@ -289,7 +300,6 @@ export function createBookingService(deps: {
         }
         throw error;
       }
-      if (moved) mailLater('moved', id);
       const booking = await repo.findBooking(db, id);
       if (!booking) throw notFound('That booking');
       return toDto(booking, day, viewer);
@@ -303,14 +313,12 @@ export function createBookingService(deps: {
           'Changes are closed for this day: contact your coordinator.',
         );
       }
-      let cancelled = false;
       await db.transaction().execute(async (trx) => {
         const locked = await repo.lockBooking(trx, id);
         if (locked?.status !== 'active') return;
         await repo.cancelBooking(trx, id, clock.now());
-        cancelled = true;
+        await enqueueJobs(trx, bookingMailJob, [{ bookingId: id, kind: 'cancelled' }]);
       });
-      if (cancelled) mailLater('cancelled', id);
       const booking = await repo.findBooking(db, id);
       if (!booking) throw notFound('That booking');
       return toDto(booking, day, viewer);

@@ -23,7 +23,23 @@ export interface Slot {
  * spring, one more in autumn), and never two slots at the same instant. A slot that would
  * overlap a break or run past closing is left out. Each slot has one seat per station.
  */
-export function generateSlots(day: DayHours): Slot[] {
+export function generateSlots(day: DayHours): readonly Slot[] {
+  // Pure and asked for on every claim: remember recent days (Intl time-zone maths is slow).
+  const key = slotKey(day);
+  const known = remembered.get(key);
+  if (known) return known.slots;
+  const slots = Object.freeze(computeSlots(day).map((slot) => Object.freeze(slot)));
+  remembered.set(key, { slots, starts: new Set(slots.map((slot) => slot.startsAt)) });
+  if (remembered.size > 500) remembered.delete(remembered.keys().next().value ?? '');
+  return slots;
+}
+
+const slotKey = (day: DayHours) =>
+  JSON.stringify([day.date, day.timeZone, day.opensAt, day.closesAt, day.breaks, day.slotMinutes]);
+
+const remembered = new Map<string, { slots: readonly Slot[]; starts: Set<string> }>();
+
+function computeSlots(day: DayHours): Slot[] {
   const step = day.slotMinutes * 60_000;
   if (!Number.isInteger(day.slotMinutes) || day.slotMinutes <= 0) return [];
   const toInstant = (time: string) => zonedTimeToInstant(day.date, time, day.timeZone);
@@ -57,6 +73,6 @@ export function generateSlots(day: DayHours): Slot[] {
 
 /** Whether an instant is the start of one of the day's slots. */
 export function isSlotStart(day: DayHours, startsAt: Date): boolean {
-  const wanted = startsAt.toISOString();
-  return generateSlots(day).some((slot) => slot.startsAt === wanted);
+  generateSlots(day);
+  return remembered.get(slotKey(day))?.starts.has(startsAt.toISOString()) ?? false;
 }
