@@ -1,8 +1,10 @@
 import type { QueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { useSignOut } from '../../../features/auth/api/sign-out';
 import { StationConsoleScreen } from '../../../features/station-console/components/station-console-screen';
 import { saveStationChoice } from '../../../features/station-console/model/station-choice';
+import { registerConsoleServiceWorker } from '../../../features/station-console/offline/register-service-worker';
 import { requireConsoleAccess } from './console-guard';
 
 export const makeLoader =
@@ -21,6 +23,7 @@ export function StationConsolePage() {
   const { dayId = '', stationId = '' } = useParams();
   const signOut = useSignOut();
   const navigate = useNavigate();
+  useEffect(() => registerConsoleServiceWorker(), []);
   return (
     <StationConsoleScreen
       key={`${dayId}/${stationId}`}
