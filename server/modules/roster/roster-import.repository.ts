@@ -36,8 +36,7 @@ export async function insertPreviewedPeople(db: Db, clientId: string, draftId: s
                         department, job_title, office_id, extras)
     select ${clientId}::uuid, given_name, family_name, preferred_name, email, employee_id,
            department, job_title, office_id, extras
-    from (${previewValues(clientId, draftId, 'add')}) as added
-    order by position`.execute(db);
+    from (${previewValues(clientId, draftId, 'add')}) as added`.execute(db);
   return Number(result.numAffectedRows ?? 0);
 }
 
