@@ -1,0 +1,250 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import pg from 'pg';
+import { systemClock } from '../server/adapters/clock';
+import type { Mailer } from '../server/adapters/mail/mailer';
+import { createApp } from '../server/app';
+import { parseEnvironment, toAppConfig } from '../server/config';
+import { createDatabase } from '../server/db/database';
+import { migrateToLatest } from '../server/db/migrator';
+import { createLogger } from '../server/lib/logger';
+import { hashToken, newOpaqueToken } from '../server/lib/secrets';
+import { generateSlots } from '../server/modules/days/slots';
+import type { Benchmark } from './run';
+
+/**
+ * booking-burst: 2,000 invented sitters, each signed in, claim a slot over HTTP on loopback
+ * against one day with 4 stations (96 five-minute slots, 384 seats), CONCURRENCY requests in
+ * flight. pgbench then runs a one-row insert transaction with the same unique-seat rule at the
+ * same concurrency. Claims are real: session lookup, day and invitation checks, a transaction
+ * with a locking read and an INSERT ... ON CONFLICT DO NOTHING, and the confirmation work
+ * (pass PNG, .ics) into a mailer that discards the message.
+ */
+const sitters = Number(process.env.BOOKING_BENCH_SITTERS ?? 2000);
+const stations = 4;
+// In-flight requests, and pgbench's client count; override to explore.
+const concurrency = Number(process.env.BOOKING_BENCH_CONCURRENCY ?? 32);
+const pgbenchSeconds = Number(process.env.BOOKING_BENCH_PGBENCH_SECONDS ?? 10);
+const date = '2030-03-14';
+const hours = { opensAt: '09:00', closesAt: '17:00', slotMinutes: 5 };
+
+/** A small deterministic generator (mulberry32), so every run asks for the same slots. */
+function seededRandom(seed: number) {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const percentile = (sorted: number[], p: number) =>
+  sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)] ?? 0;
+const round = (value: number, digits = 1) => Number(value.toFixed(digits));
+
+const discardingMailer: Mailer = { send: async () => undefined, close: () => undefined };
+
+async function seed(url: string) {
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  try {
+    const one = async (text: string, values: unknown[] = []) =>
+      (await client.query(text, values)).rows[0] as { id: string };
+    const company = await one(
+      `insert into clients (name, slug) values ('Halvorsen & Pike Engineering', 'halvorsen-pike') returning id`,
+    );
+    const office = await one(
+      `insert into offices (client_id, name, time_zone) values ($1, 'Leeds', 'Europe/London') returning id`,
+      [company.id],
+    );
+    const day = await one(
+      `insert into shoot_days (client_id, office_id, day_date, time_zone, address, room, opens_at,
+         closes_at, slot_minutes, booking_opens_at, booking_closes_at, changes_close_at, invite_by, status)
+       values ($1, $2, $3, 'Europe/London', '1 Wharf Street, Leeds', 'Studio', $4, $5, $6,
+         now() - interval '1 day', $3::date, $3::date, 'office', 'confirmed') returning id`,
+      [company.id, office.id, date, hours.opensAt, hours.closesAt, hours.slotMinutes],
+    );
+    for (let index = 0; index < stations; index += 1) {
+      const photographer = await one(
+        `insert into users (email, display_name, role) values ($1, $2, 'photographer') returning id`,
+        [`photographer${index}@northlight.example`, `Photographer ${index + 1}`],
+      );
+      await client.query(
+        `insert into stations (day_id, position, name, photographer_id) values ($1, $2, $3, $4)`,
+        [day.id, index + 1, `Station ${String.fromCharCode(65 + index)}`, photographer.id],
+      );
+    }
+    // Invented sitters and a session each (what redeeming an invitation link would leave).
+    const tokens = Array.from({ length: sitters }, () => newOpaqueToken());
+    await client.query(
+      `with people_rows as (
+         insert into people (client_id, office_id, given_name, family_name, email)
+         select $1, $2, 'Sitter', 'No. ' || n, 'sitter' || n || '@halvorsen-pike.example'
+         from generate_series(1, $3::int) n returning id, family_name)
+       insert into sessions (token_hash, person_id, expires_at)
+       select ($4::text[])[substring(family_name from 5)::int], id, now() + interval '1 day'
+       from people_rows`,
+      [company.id, office.id, sitters, tokens.map(hashToken)],
+    );
+    return { dayId: day.id, tokens };
+  } finally {
+    await client.end();
+  }
+}
+
+function runPgbench(url: string): number {
+  const folder = mkdtempSync(path.join(tmpdir(), 'booking-pgbench-'));
+  try {
+    const script = path.join(folder, 'claim.sql');
+    // The same rule the claims face: one row per (station, slot), refused quietly when taken.
+    writeFileSync(
+      script,
+      [
+        '\\set slot random(1, 96)',
+        '\\set station random(1, 4)',
+        'insert into pgbench_claims (station, slot, person) values (:station, :slot, :client_id)',
+        '  on conflict do nothing;',
+        '',
+      ].join('\n'),
+    );
+    const parsed = new URL(url);
+    const result = spawnSync(
+      '/usr/lib/postgresql/15/bin/pgbench',
+      [
+        '-n',
+        '-h',
+        parsed.hostname,
+        '-p',
+        parsed.port,
+        '-U',
+        decodeURIComponent(parsed.username) || 'app',
+        '-c',
+        String(concurrency),
+        '-j',
+        '2',
+        '-T',
+        String(pgbenchSeconds),
+        '-f',
+        script,
+        parsed.pathname.slice(1),
+      ],
+      { encoding: 'utf8' },
+    );
+    const tps = /tps = ([\d.]+) \(without initial connection time\)/.exec(result.stdout)?.[1];
+    if (!tps) throw new Error(`pgbench failed: ${result.stderr || result.stdout}`);
+    return Number(tps);
+  } finally {
+    rmSync(folder, { recursive: true, force: true });
+  }
+}
+
+const benchmark: Benchmark = {
+  name: 'booking-burst',
+  async run({ adminUrl, print }) {
+    const name = `booking_burst_${process.pid}`;
+    const admin = new pg.Client({ connectionString: adminUrl });
+    await admin.connect();
+    await admin.query(`create database ${name}`);
+    const url = adminUrl.replace(/\/[^/]*$/, `/${name}`);
+    const db = createDatabase(url, { maxConnections: concurrency });
+    let server: Server | undefined;
+    try {
+      await migrateToLatest(url);
+      const { dayId, tokens } = await seed(url);
+      const config = toAppConfig(
+        parseEnvironment({ NODE_ENV: 'production', PUBLIC_URL: 'http://127.0.0.1' }),
+      );
+      const { app } = createApp({
+        db,
+        config,
+        mailer: discardingMailer,
+        mailbox: null,
+        clock: systemClock,
+        logger: createLogger('silent'),
+      });
+      server = app.listen(0, '127.0.0.1');
+      await new Promise((resolve) => server!.once('listening', resolve));
+      const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+      const slots = generateSlots({ date, timeZone: 'Europe/London', breaks: [], ...hours });
+      const random = seededRandom(2030);
+      const wanted = tokens.map(() => slots[Math.floor(random() * slots.length)]!.startsAt);
+
+      const latencies: number[] = [];
+      const outcomes: Record<string, number> = {};
+      let next = 0;
+      const started = performance.now();
+      await Promise.all(
+        Array.from({ length: concurrency }, async () => {
+          while (next < tokens.length) {
+            const index = next++;
+            const begin = performance.now();
+            const response = await fetch(`${base}/api/bookings`, {
+              method: 'POST',
+              headers: {
+                'Content-Type': 'application/json',
+                Cookie: `likeness_session=${tokens[index]}`,
+              },
+              body: JSON.stringify({ dayId, startsAt: wanted[index] }),
+            });
+            await response.arrayBuffer();
+            latencies.push(performance.now() - begin);
+            outcomes[response.status] = (outcomes[response.status] ?? 0) + 1;
+          }
+        }),
+      );
+      const seconds = (performance.now() - started) / 1000;
+
+      const audit = new pg.Client({ connectionString: url });
+      await audit.connect();
+      const { rows } = await audit.query<{ oversold: string; doubled: string; booked: string }>(
+        `select
+           (select count(*) from (select starts_at from bookings where day_id = $1 and status = 'active'
+              group by starts_at having count(*) > $2) over_capacity) as oversold,
+           (select count(*) from (select station_id, starts_at from bookings where status = 'active'
+              group by station_id, starts_at having count(*) > 1) shared) as doubled,
+           (select count(*) from bookings where day_id = $1 and status = 'active') as booked`,
+        [dayId, stations],
+      );
+      await audit.query(
+        'create table pgbench_claims (station int not null, slot int not null, person int not null, unique (station, slot))',
+      );
+      await audit.end();
+      const baselineTps = runPgbench(url);
+
+      latencies.sort((a, b) => a - b);
+      const claimsPerSecond = tokens.length / seconds;
+      print({
+        bench: 'booking-burst',
+        claims: tokens.length,
+        concurrency,
+        seats: slots.length * stations,
+        booked: Number(rows[0]?.booked),
+        refused: outcomes['409'] ?? 0,
+        other_statuses: Object.fromEntries(
+          Object.entries(outcomes).filter(([status]) => status !== '201' && status !== '409'),
+        ),
+        claims_per_s: round(claimsPerSecond),
+        p50_ms: round(percentile(latencies, 50)),
+        p95_ms: round(percentile(latencies, 95)),
+        p99_ms: round(percentile(latencies, 99)),
+        oversold: Number(rows[0]?.oversold) + Number(rows[0]?.doubled),
+        baseline: 'pgbench',
+        baseline_tps: round(baselineTps),
+        ratio: round(claimsPerSecond / baselineTps, 3),
+      });
+    } finally {
+      if (server) await new Promise((resolve) => server!.close(resolve));
+      await db.destroy();
+      await admin.query(`drop database if exists ${name} with (force)`);
+      await admin.end();
+    }
+  },
+};
+
+export default benchmark;
