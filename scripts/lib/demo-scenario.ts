@@ -1,5 +1,6 @@
 import type { Db } from '../../server/db/database';
 import { hashPassword } from '../../server/lib/secrets';
+import { insertDemoDays } from './demo-days';
 
 /**
  * The invented demo scenario: Northlight Portrait Co. photographs the staff of
@@ -284,6 +285,7 @@ export async function loadDemoScenario(db: Db): Promise<boolean> {
         })),
       )
       .execute();
+    await insertDemoDays(trx, mainClient, officeIds);
 
     const aldermoor = clientIds.get('Aldermoor Housing Trust') as string;
     const york = await trx
