@@ -17,6 +17,8 @@ export const peopleQuerySchema = z.object({
   officeId: z.union([z.uuid(), z.literal('')]).default(''),
   department: z.string().trim().max(200).default(''),
   status: z.enum(['active', 'inactive', 'all']).default('active'),
+  /** Whether the person holds an active booking on any shoot day. */
+  booking: z.enum(['any', 'booked', 'not_booked']).default('any'),
   sort: z.enum(peopleSortColumns).default('name'),
   direction: z.enum(['asc', 'desc']).default('asc'),
   page: z.coerce.number().int().min(1).default(1),
@@ -38,6 +40,7 @@ export interface Person {
   officeName: string | null;
   extras: Record<string, string>;
   active: boolean;
+  booked: boolean;
   updatedAt: string;
 }
 

@@ -2,6 +2,9 @@ import { sql } from 'kysely';
 import type { Db } from '../../db/database';
 import type { PeopleFilter, Person } from '../../schemas/people';
 
+/** Evaluated once per query as a hashed set, so it stays cheap for 50,000 people. */
+const hasBooking = sql<boolean>`people.id in (select person_id from bookings where status = 'active')`;
+
 function escapeLike(text: string): string {
   return text.replace(/[\\%_]/g, (match) => `\\${match}`);
 }
@@ -20,6 +23,9 @@ function filtered(
     query = query.where('people.active', '=', filter.status === 'active');
   if (filter.officeId) query = query.where('people.officeId', '=', filter.officeId);
   if (filter.department) query = query.where('people.department', '=', filter.department);
+  if (filter.booking !== 'any') {
+    query = query.where(hasBooking, '=', filter.booking === 'booked');
+  }
   if (filter.q) {
     const pattern = `%${escapeLike(filter.q)}%`;
     query = query.where((eb) =>
@@ -49,6 +55,7 @@ const personColumns = [
   'offices.name as officeName',
   'people.extras',
   'people.active',
+  hasBooking.as('booked'),
   'people.updatedAt',
 ] as const;
 

@@ -12,6 +12,7 @@ const firstPage = {
   officeId: '',
   department: '',
   status: 'active',
+  booking: 'any',
   sort: 'name',
   direction: 'asc',
   page: 1,

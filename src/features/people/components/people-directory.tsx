@@ -15,6 +15,7 @@ import { PersonForm } from './person-form';
 
 type Panel = { mode: 'add' } | { mode: 'edit' | 'erase'; person: Person } | null;
 type Status = 'active' | 'inactive' | 'all';
+type Booking = 'any' | 'booked' | 'not_booked';
 
 /** The client's people: server-side search, filters, sorting and paging; export; hand edits. */
 export function PeopleDirectory({
@@ -28,13 +29,14 @@ export function PeopleDirectory({
   const [officeId, setOfficeId] = useState('');
   const [department, setDepartment] = useState('');
   const [status, setStatus] = useState<Status>('active');
+  const [booking, setBooking] = useState<Booking>('any');
   const [page, setPage] = useState({ page: 1, pageSize: 25 });
   const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
   const [panel, setPanel] = useState<Panel>(null);
   const [message, setMessage] = useState<string | null>(null);
   const setActive = useSetPersonActive();
 
-  const filters = { q: search, officeId, department, status };
+  const filters = { q: search, officeId, department, status, booking };
   const query: PeopleQuery = {
     ...filters,
     sort: (sorting[0]?.id as PeopleSortColumn | undefined) ?? 'name',
@@ -77,6 +79,12 @@ export function PeopleDirectory({
           row.original.active ? 'Active' : <span className="text-caution-600">Inactive</span>,
       },
       {
+        id: 'booked',
+        header: 'Booking',
+        enableSorting: false,
+        cell: ({ row }) => (row.original.booked ? 'Booked' : 'Not booked'),
+      },
+      {
         id: 'actions',
         header: 'Actions',
         enableSorting: false,
@@ -115,7 +123,13 @@ export function PeopleDirectory({
 
   const data = people.data;
   const nobodyYet =
-    data && data.total === 0 && !search && !officeId && !department && status === 'active';
+    data &&
+    data.total === 0 &&
+    !search &&
+    !officeId &&
+    !department &&
+    status === 'active' &&
+    booking === 'any';
 
   return (
     <div className="flex flex-col gap-5">
@@ -167,7 +181,7 @@ export function PeopleDirectory({
           )}
         </Card>
       ) : null}
-      <div role="search" className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
+      <div role="search" className="grid gap-4 sm:grid-cols-2 lg:grid-cols-5">
         <TextField
           label="Search by name, e-mail or id"
           type="search"
@@ -200,6 +214,16 @@ export function PeopleDirectory({
             { value: 'active', label: 'Active' },
             { value: 'inactive', label: 'Inactive' },
             { value: 'all', label: 'Everyone' },
+          ]}
+        />
+        <SelectField
+          label="Booking"
+          value={booking}
+          onChange={(value) => filtering(() => setBooking(value as Booking))}
+          options={[
+            { value: 'any', label: 'Booked or not' },
+            { value: 'booked', label: 'Has booked a slot' },
+            { value: 'not_booked', label: 'Has not booked' },
           ]}
         />
       </div>
