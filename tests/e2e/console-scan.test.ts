@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TEST_PASSWORD } from '../factories/accounts';
+import { decodePng } from '../reference/decode-png';
 import { signedInAgent } from '../server/helpers';
 import { consoleScenario, smallTouchTargets, writeY4m } from './console-support';
 import {
@@ -72,6 +73,29 @@ describe('station console: scanning a pass', () => {
     await page.getByRole('status', { name: 'Sync' }).getByText('All changes saved').waitFor();
     expect(await seriousAxeViolations(page)).toEqual([]);
     expect(await smallTouchTargets(page)).toEqual([]);
+
+    // The slate: full screen, its QR code readable by an independent decoder, and nothing on
+    // it moving or flashing (WCAG 2.3.1 allows at most three flashes a second; it has none).
+    await row.getByRole('button', { name: 'Start sitting' }).click();
+    const slate = page.getByRole('dialog', { name: new RegExp(sitter.givenName) });
+    await slate.getByRole('img', { name: /Slate code/ }).waitFor();
+    const shot = await slate.getByRole('img', { name: /Slate code/ }).screenshot();
+    const slateToken = decodePng(shot).code?.data;
+    expect(slateToken).toMatch(/^[A-Z2-7]{26}$/);
+    expect(await page.evaluate(() => document.getAnimations().length)).toBe(0);
+    expect(await seriousAxeViolations(page)).toEqual([]);
+    expect(await smallTouchTargets(page)).toEqual([]);
+    const keypad = slate.getByRole('group', { name: 'Frame number of the slate photo' });
+    for (const digit of '42')
+      await keypad.getByRole('button', { name: digit, exact: true }).click();
+    await slate.getByRole('button', { name: 'Start sitting' }).click();
+    await row.getByText('In the chair', { exact: true }).waitFor();
+    await page.getByRole('status', { name: 'Sync' }).getByText('All changes saved').waitFor();
+    const sitting = await env.testApp.db
+      .selectFrom('sittings')
+      .select(['slateToken', 'firstFrame', 'personId'])
+      .executeTakeFirstOrThrow();
+    expect(sitting).toEqual({ slateToken, firstFrame: 42, personId: sitter.id });
 
     const checkIns = await env.testApp.db
       .selectFrom('checkIns')

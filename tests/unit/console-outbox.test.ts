@@ -32,10 +32,12 @@ function harness() {
   const sent: string[] = [];
   let network = true;
   const refused = new Set<string>();
+  let signedIn = true;
   const outbox = new Outbox(
     'day',
     async (item): Promise<ConsoleActionResult> => {
       if (!network) throw new ApiError(0, 'network', 'No connection.');
+      if (!signedIn) throw new ApiError(401, 'unauthenticated', 'Please sign in.');
       if (refused.has(item.label)) throw new ApiError(409, 'already_checked_in', 'Already in.');
       sent.push(item.label);
       return {
@@ -53,6 +55,9 @@ function harness() {
     refused,
     setNetwork: (value: boolean) => {
       network = value;
+    },
+    setSignedIn: (value: boolean) => {
+      signedIn = value;
     },
   };
 }
@@ -114,5 +119,19 @@ describe('offline outbox', () => {
     await second.outbox.load();
     await vi.waitFor(() => expect(second.sent).toEqual(['kept']));
     second.outbox.stop();
+  });
+
+  it('keeps changes when the session has ended, and sends them after signing in again', async () => {
+    const { outbox, sent, setSignedIn } = harness();
+    setSignedIn(false);
+    await outbox.submit(checkIn('late'));
+    await outbox.flush();
+    expect(outbox.getState().signedOut).toBe(true);
+    expect(stored.size).toBe(1);
+    setSignedIn(true);
+    await outbox.flush();
+    expect(sent).toEqual(['late']);
+    expect(outbox.getState().signedOut).toBe(false);
+    outbox.stop();
   });
 });

@@ -11,7 +11,9 @@ import {
 } from '../../schemas/console';
 import { mayMarkNoShow, noShowAllowedFrom } from '../../schemas/console-rules';
 import { undoAction } from './console-undo';
-import * as repo from './console.repository';
+import * as repo from './console-actions.repository';
+import type { DayRecord } from './console.repository';
+import { explainConstraint, pgError, timeIn } from './console-errors';
 
 type Trx = Transaction<Database>;
 export interface ActionContext {
@@ -19,47 +21,7 @@ export interface ActionContext {
   now: Date;
   tabletAt: Date;
   viewer: Viewer;
-  day: repo.DayRecord;
-}
-
-export const timeIn = (zone: string, at: Date) =>
-  new Intl.DateTimeFormat('en-GB', { timeZone: zone, hour: '2-digit', minute: '2-digit' }).format(
-    at,
-  );
-
-/** Maps the database's own refusals (unique indexes) to answers the photographer can act on. */
-function explainConstraint(constraint: string | undefined): AppError | null {
-  switch (constraint) {
-    case 'check_ins_one_per_person_day':
-    case 'check_ins_one_per_booking':
-      return new AppError('already_checked_in', 409, 'This sitter is already checked in today.');
-    case 'sittings_one_open_per_station':
-      return new AppError(
-        'station_busy',
-        409,
-        'A sitting is still open on this station. Finish it first.',
-      );
-    case 'no_shows_one_per_booking':
-      return new AppError('already_no_show', 409, 'This sitter is already marked no-show.');
-    case 'people_client_email_unique':
-      return new AppError(
-        'email_on_roster',
-        409,
-        'Someone on the roster already has this e-mail. Search for them by name instead.',
-      );
-    case 'check_ins_pkey':
-    case 'sittings_pkey':
-    case 'no_shows_pkey':
-    case 'people_pkey':
-    case 'sittings_slate_token_key':
-      return new AppError('duplicate_id', 409, 'This change reused an id. Reload the console.');
-    default:
-      return null;
-  }
-}
-
-function pgError(error: unknown): { code?: string; constraint?: string } {
-  return typeof error === 'object' && error !== null ? error : {};
+  day: DayRecord;
 }
 
 /**
@@ -69,7 +31,7 @@ function pgError(error: unknown): { code?: string; constraint?: string } {
 export async function applyConsoleAction(
   deps: { db: Db; clock: Clock },
   viewer: Viewer,
-  day: repo.DayRecord,
+  day: DayRecord,
   action: ConsoleAction,
 ): Promise<ConsoleActionResult> {
   if (!day.stations.some((station) => station.id === action.stationId)) {
@@ -126,7 +88,7 @@ export async function applyConsoleAction(
   }
 }
 
-async function alreadyCheckedIn(db: Db, day: repo.DayRecord, action: ConsoleAction) {
+async function alreadyCheckedIn(db: Db, day: DayRecord, action: ConsoleAction) {
   let personId: string | undefined;
   if ('personId' in action) personId = action.personId;
   else if (action.kind === 'check_in_pass') {

@@ -1,7 +1,7 @@
 import { AppError } from '../../lib/errors';
 import type { ConsoleAction } from '../../schemas/console';
 import type { ActionContext } from './console-actions';
-import * as repo from './console.repository';
+import * as repo from './console-actions.repository';
 
 /** Undo is for a slip of the finger, not for rewriting the day. Measured on the tablet's own
  * clock between the two actions, so an undo queued offline replays the same way. */

@@ -92,8 +92,11 @@ export function CheckInPanel({
                 {person.checkedIn ? (
                   <span className="text-base text-ink-muted">Already checked in</span>
                 ) : (
-                  <Button onClick={() => onPerson({ id: person.id, name: person.name })}>
-                    Check in {person.name}
+                  <Button
+                    aria-label={`Check in ${person.name}`}
+                    onClick={() => onPerson({ id: person.id, name: person.name })}
+                  >
+                    Check in
                   </Button>
                 )}
               </li>

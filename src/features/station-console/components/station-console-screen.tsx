@@ -97,12 +97,19 @@ export function StationConsoleScreen({
   return (
     <div className="flex min-h-dvh flex-col">
       <header className="flex flex-wrap items-center gap-3 border-b border-line bg-paper-raised px-4 py-2">
-        <h1 className="text-2xl font-bold">{station.name}</h1>
-        <p className="text-base text-ink-muted">
-          {data.day.clientName} · {data.day.officeName} · {data.day.date}
-        </p>
+        <div className="flex flex-col">
+          <h1 className="text-2xl font-bold">{station.name}</h1>
+          <p className="text-sm text-ink-muted">
+            {data.day.clientName} · {data.day.officeName} · {data.day.date}
+          </p>
+        </div>
         <div className="flex-1" />
-        <SyncIndicator waiting={waiting} online={online} fromTablet={data.fromTablet} />
+        <SyncIndicator
+          waiting={waiting}
+          online={online}
+          fromTablet={data.fromTablet}
+          signedOut={state.signedOut}
+        />
         {data.canAct ? (
           <Button onClick={() => setCheckingIn((open) => !open)} aria-expanded={checkingIn}>
             Check in
@@ -114,7 +121,14 @@ export function StationConsoleScreen({
         >
           Change station
         </Link>
-        <Button variant="secondary" onClick={onSignOut}>
+        <Button
+          variant="secondary"
+          onClick={() => {
+            // Waiting changes stay on the tablet and go out after the next sign-in.
+            const message = `${waiting} ${waiting === 1 ? 'change has' : 'changes have'} not reached the server yet. They stay on this tablet and are sent after the next sign-in. Sign out anyway?`;
+            if (waiting === 0 || window.confirm(message)) onSignOut();
+          }}
+        >
           Sign out
         </Button>
       </header>

@@ -14,6 +14,8 @@ export interface OutboxState {
   items: Array<OutboxItem & { sent?: boolean }>;
   /** False once a send failed for want of network, until one succeeds again. */
   reachable: boolean;
+  /** The session ended: changes stay on the tablet until someone signs in again. */
+  signedOut: boolean;
   notices: OutboxNotice[];
 }
 
@@ -25,7 +27,7 @@ type Send = (item: OutboxItem) => Promise<ConsoleActionResult>;
  * from the server is shown to the photographer and the line moves on.
  */
 export class Outbox {
-  private state: OutboxState = { items: [], reachable: true, notices: [] };
+  private state: OutboxState = { items: [], reachable: true, signedOut: false, notices: [] };
   private listeners = new Set<() => void>();
   private flushing = false;
   private retry: ReturnType<typeof setTimeout> | undefined;
@@ -117,9 +119,14 @@ export class Outbox {
           const result = await this.send(next);
           await outboxStore.remove(next.action.idempotencyKey);
           this.mark(next, 'sent');
-          this.set({ reachable: true });
+          this.set({ reachable: true, signedOut: false });
           if (!result.replayed) this.notify('success', result.message);
         } catch (error) {
+          if (error instanceof ApiError && error.status === 401) {
+            // Never drop work because a session expired: keep it for the next sign-in.
+            this.set({ signedOut: true });
+            break;
+          }
           if (!(error instanceof ApiError) || error.status === 0 || error.status >= 500) {
             // No network, or the server is in trouble: keep everything, try again soon.
             this.set({ reachable: false });
