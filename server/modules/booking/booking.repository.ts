@@ -77,14 +77,87 @@ export function activeBookingOf(
     .executeTakeFirst();
 }
 
-/** Serialises one person's booking changes (a double click becomes two turns, not a race). */
-export async function lockPerson(trx: Transaction<Database>, personId: string) {
+/**
+ * Locks the person and reads their active booking that day, in one round trip. The lock
+ * serialises one person's booking changes: a double click becomes two turns, not a race.
+ */
+export async function lockPersonForDay(
+  trx: Transaction<Database>,
+  personId: string,
+  dayId: string,
+) {
   return trx
     .selectFrom('people')
-    .select(['id', 'clientId', 'active'])
-    .where('id', '=', personId)
-    .forUpdate()
+    .leftJoin('bookings', (join) =>
+      join
+        .onRef('bookings.personId', '=', 'people.id')
+        .on('bookings.dayId', '=', dayId)
+        .on('bookings.status', '=', 'active'),
+    )
+    .select([
+      'people.id',
+      'people.clientId',
+      'people.active',
+      'bookings.id as bookingId',
+      'bookings.startsAt',
+    ])
+    .where('people.id', '=', personId)
+    .forUpdate('people')
     .executeTakeFirst();
+}
+
+/**
+ * Claims a free seat of the slot and queues its confirmation mail, in one statement. A free
+ * station is picked at random so that people claiming the same slot at once rarely aim at the
+ * same seat; when two do, the unique index decides and the loser gets null with candidates > 0
+ * (try again). candidates = 0 means the slot is full.
+ */
+export async function claimSeat(
+  trx: Transaction<Database>,
+  values: {
+    dayId: string;
+    personId: string;
+    startsAt: Date;
+    passToken: string;
+    calendarUid: string;
+    preferredName: string | null;
+    glasses: boolean;
+    accessNeeds: string | null;
+    flashSensitive: boolean;
+    bookedByUserId: string | null;
+    mailJobKind: string;
+  },
+): Promise<{ bookingId: string | null; candidates: number }> {
+  const result = await sql<{ bookingId: string | null; candidates: string }>`
+    with chosen as (
+      select stations.id from stations
+      where stations.day_id = ${values.dayId}::uuid
+        and not exists (
+          select 1 from bookings
+          where bookings.station_id = stations.id
+            and bookings.starts_at = ${values.startsAt}::timestamptz
+            and bookings.status = 'active')
+      order by random()
+      limit 1
+    ), inserted as (
+      insert into bookings (day_id, station_id, person_id, starts_at, pass_token, calendar_uid,
+        preferred_name, glasses, access_needs, flash_sensitive, booked_by_user_id)
+      select ${values.dayId}::uuid, chosen.id, ${values.personId}::uuid,
+        ${values.startsAt}::timestamptz, ${values.passToken}, ${values.calendarUid},
+        ${values.preferredName}::text, ${values.glasses}::boolean, ${values.accessNeeds}::text,
+        ${values.flashSensitive}::boolean, ${values.bookedByUserId}::uuid
+      from chosen
+      on conflict do nothing
+      returning id
+    ), queued as (
+      insert into job_queue (kind, payload)
+      select ${values.mailJobKind}, jsonb_build_object('bookingId', id, 'kind', 'booked')
+      from inserted
+    )
+    select (select id from inserted) as "bookingId", (select count(*) from chosen) as candidates
+  `.execute(trx);
+  const row = result.rows[0];
+  return { bookingId: row?.bookingId ?? null, candidates: Number(row?.candidates ?? 0) };
 }
 
 export async function lockBooking(trx: Transaction<Database>, id: string) {
@@ -121,36 +194,6 @@ export async function freeStationsAt(
     .orderBy('stations.position')
     .execute();
   return rows.map((row) => row.id);
-}
-
-/**
- * Claims one seat. The unique indexes decide under concurrency: when another transaction took
- * the seat (or this person already holds a booking that day) nothing is inserted and null comes
- * back, without aborting the surrounding transaction.
- */
-export async function insertBookingIfFree(
-  trx: Transaction<Database>,
-  values: {
-    dayId: string;
-    stationId: string;
-    personId: string;
-    startsAt: Date;
-    passToken: string;
-    calendarUid: string;
-    preferredName: string | null;
-    glasses: boolean;
-    accessNeeds: string | null;
-    flashSensitive: boolean;
-    bookedByUserId: string | null;
-  },
-): Promise<string | null> {
-  const row = await trx
-    .insertInto('bookings')
-    .values(values)
-    .onConflict((conflict) => conflict.doNothing())
-    .returning('id')
-    .executeTakeFirst();
-  return row?.id ?? null;
 }
 
 export async function moveBooking(

@@ -234,20 +234,19 @@ export function createBookingService(deps: {
       if (startsAt <= now) throw conflict('slot_past', 'That slot has already begun.');
 
       const outcome = await db.transaction().execute(async (trx) => {
-        const person = await repo.lockPerson(trx, personId);
+        const person = await repo.lockPersonForDay(trx, personId, day.id);
         if (!person?.active || person.clientId !== day.clientId) throw notFound('That person');
-        const existing = await repo.activeBookingOf(trx, day.id, personId);
-        if (existing) {
+        if (person.bookingId && person.startsAt) {
           // A second click on the same slot is the same booking, not an error.
-          if (existing.startsAt.getTime() === startsAt.getTime()) {
-            return { id: existing.id, created: false };
+          if (person.startsAt.getTime() === startsAt.getTime()) {
+            return { id: person.bookingId, created: false };
           }
           throw conflict('already_booked', 'You already have a slot that day: move it instead.');
         }
-        for (const stationId of await repo.freeStationsAt(trx, day.id, startsAt)) {
-          const id = await repo.insertBookingIfFree(trx, {
+        // Each try sees the seats committed so far; a lost race on one seat tries another.
+        for (let attempt = 0; attempt < day.stations.length; attempt += 1) {
+          const claim = await repo.claimSeat(trx, {
             dayId: day.id,
-            stationId,
             personId,
             startsAt,
             passToken: newPassToken(),
@@ -257,10 +256,18 @@ export function createBookingService(deps: {
             accessNeeds: input.accessNeeds,
             flashSensitive: input.flashSensitive,
             bookedByUserId: viewer.kind === 'staff' ? viewer.id : null,
+            mailJobKind: bookingMailJob,
           });
-          if (id) {
-            await enqueueJobs(trx, bookingMailJob, [{ bookingId: id, kind: 'booked' }]);
-            return { id, created: true };
+          if (claim.bookingId) return { id: claim.bookingId, created: true };
+          if (claim.candidates === 0) break;
+          // The lock read above saw the snapshot from before it waited: a double click's first
+          // booking may have landed meanwhile, so look again before trying another seat.
+          const landed = await repo.activeBookingOf(trx, day.id, personId);
+          if (landed?.startsAt.getTime() === startsAt.getTime()) {
+            return { id: landed.id, created: false };
+          }
+          if (landed) {
+            throw conflict('already_booked', 'You already have a slot that day: move it instead.');
           }
         }
         throw conflict('slot_taken', 'That slot has just been taken. Please pick another.');
