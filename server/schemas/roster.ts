@@ -127,6 +127,8 @@ export interface RosterDraft {
   mapping: ColumnMapping;
   /** Why the mapping cannot be previewed yet (a required field without a column...). */
   mappingProblems: string[];
+  /** Every column is mapped as in this client's last import: no need to show the mapping. */
+  mappingRemembered: boolean;
   counts: PreviewCounts;
   newOffices: string[];
   knownOffices: Array<{ id: string; name: string; timeZone: string }>;

@@ -80,16 +80,37 @@ describe('roster import in the browser', () => {
     await page.getByText('Rows 1–1 of 1').waitFor();
     expect(await seriousAxeViolations(page)).toEqual([]);
 
+    // A newer export with the same columns skips the mapping: the last one is remembered.
+    await page.getByRole('link', { name: 'Import a staff list (CSV)' }).click();
+    const newer = messyFile
+      .replace('"Design; Interiors"', 'Lighting')
+      .split('\r\n')
+      .filter((line) => !line.startsWith('Aled'))
+      .join('\r\n');
+    await page.getByLabel('Staff list (CSV file)').setInputFiles({
+      name: 'hr-export-2.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from(newer, 'utf8'),
+    });
+    await page.getByRole('button', { name: 'To update: 1' }).waitFor();
+    await page.getByRole('button', { name: 'Not in the file: 1' }).click();
+    await page
+      .getByRole('table', { name: /Preview/ })
+      .getByText('aled.price@hp.example')
+      .waitFor();
+    await page.getByRole('button', { name: 'Save 2 changes to the roster' }).click();
+    await page.getByText('1 updated, 1 marked inactive').waitFor();
+
     const rows = await env.testApp.db
       .selectFrom('people')
-      .select('email')
+      .select(['email', 'active', 'department'])
       .where('clientId', '=', clientId)
       .orderBy('email')
       .execute();
-    expect(rows.map((row) => row.email)).toEqual([
-      'aled.price@hp.example',
-      'tomas.ferreira@hp.example',
-      'zoe.lindqvist@hp.example',
+    expect(rows).toEqual([
+      { email: 'aled.price@hp.example', active: false, department: 'Civil' },
+      { email: 'tomas.ferreira@hp.example', active: true, department: 'Structures' },
+      { email: 'zoe.lindqvist@hp.example', active: true, department: 'Lighting' },
     ]);
     await context.close();
   });

@@ -45,6 +45,7 @@ describe('roster import', () => {
   it('previews without writing anything to the roster', async () => {
     const { client, agent } = await coordinatorOfNewClient();
     const draft = await uploadRoster(agent, client.id, firstFile).expect(201);
+    expect(draft.body.mappingRemembered).toBe(false);
     expect(draft.body.mapping).toEqual([
       'givenName',
       'familyName',
@@ -90,6 +91,7 @@ describe('roster import', () => {
       ['Priya', 'Nair', 'priya.nair@hp.example', 'HP-004', 'Leeds'],
     ]);
     const draft = await uploadRoster(agent, client.id, second, 'staff-2.csv').expect(201);
+    expect(draft.body.mappingRemembered).toBe(true);
     expect(draft.body.counts).toEqual({ add: 1, update: 2, unchanged: 0, error: 0, missing: 1 });
     const updates = await agent
       .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=update`)

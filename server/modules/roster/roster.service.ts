@@ -17,7 +17,7 @@ import {
   type RosterField,
 } from '../../schemas/roster';
 import { assertClientAccess } from './client-access';
-import { mappingToRemember, suggestMapping } from './column-mapping';
+import { mappingToRemember, normaliseHeader, suggestMapping } from './column-mapping';
 import { toCsv } from './csv-export';
 import { parseRosterFile } from './csv-decode';
 import { diffRoster } from './roster-diff';
@@ -73,7 +73,13 @@ export function createRosterService(deps: { db: Db }) {
   const { db } = deps;
 
   async function view(clientId: string, draft: repo.DraftRecord): Promise<RosterDraft> {
+    const saved = await repo.savedMapping(db, clientId);
+    const mappingRemembered = draft.headers.every((header, index) => {
+      const key = normaliseHeader(header);
+      return key === '' || saved[key] === draft.mapping[index];
+    });
     return {
+      mappingRemembered,
       id: draft.id,
       fileName: draft.fileName,
       encoding: draft.encoding,

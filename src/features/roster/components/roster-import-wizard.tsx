@@ -35,7 +35,17 @@ export function RosterImportWizard({ clientId }: { clientId: string }) {
       </ol>
       {step.name === 'upload' ? (
         <Card title={stepTitles[0]}>
-          <UploadStep clientId={clientId} onUploaded={(draft) => setStep({ name: 'map', draft })} />
+          <UploadStep
+            clientId={clientId}
+            onUploaded={(draft) =>
+              // Same columns as last time: straight to the preview ("Back to the columns" stays).
+              setStep(
+                draft.mappingRemembered && draft.mappingProblems.length === 0
+                  ? { name: 'preview', draft }
+                  : { name: 'map', draft },
+              )
+            }
+          />
         </Card>
       ) : null}
       {step.name === 'map' ? (
