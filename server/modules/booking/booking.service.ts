@@ -13,9 +13,8 @@ import * as daysRepo from '../days/days.repository';
 import { hoursOf, staffMaySee } from '../days/days.service';
 import { generateSlots, isSlotStart } from '../days/slots';
 import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
-import { bookingMail } from './booking.mails';
 import * as repo from './booking.repository';
-import { writeIcs } from './ics';
+import { createBookingMailSender } from './booking.confirmation';
 import { newPassToken, passPng } from './pass';
 
 export type BookingService = ReturnType<typeof createBookingService>;
@@ -34,7 +33,6 @@ export function createBookingService(deps: {
   logger: Logger;
 }) {
   const { db, clock, mailer, config } = deps;
-  const organizerEmail = /<([^>]+)>/.exec(config.mailFrom)?.[1] ?? config.mailFrom;
 
   async function isInvited(day: daysRepo.DayRecord, personId: string): Promise<boolean> {
     const row = await daysRepo
@@ -112,43 +110,7 @@ export function createBookingService(deps: {
     }
   }
 
-  async function sendMail(
-    kind: 'booked' | 'moved' | 'cancelled' | 'day_before',
-    bookingId: string,
-  ): Promise<void> {
-    const booking = await repo.findBooking(db, bookingId);
-    const day = booking ? await daysRepo.findDay(db, booking.dayId) : undefined;
-    if (!booking || !day) return;
-    // A later cancel already replaced this message: do not announce a sitting that is gone.
-    if (kind !== 'cancelled' && booking.status === 'cancelled') return;
-    const endsAt = new Date(booking.startsAt.getTime() + day.slotMinutes * 60_000);
-    const ics = writeIcs({
-      method: kind === 'cancelled' ? 'CANCEL' : 'REQUEST',
-      uid: booking.calendarUid,
-      sequence: booking.sequence,
-      stampedAt: clock.now(),
-      startsAt: booking.startsAt,
-      endsAt,
-      timeZone: day.timeZone,
-      summary: `Portrait sitting (${day.clientName})`,
-      location: day.room ? `${day.room}, ${day.address}` : day.address,
-      description: `Station ${booking.stationName}. Show your pass at the station.`,
-      organizer: { name: 'Likeness bookings', email: organizerEmail },
-      attendee: { name: booking.personName, email: booking.personEmail },
-    });
-    await mailer.send(
-      bookingMail({
-        kind,
-        to: booking.personEmail,
-        name: booking.preferredName ?? booking.personName,
-        day,
-        startsAt: booking.startsAt,
-        passPng: kind === 'cancelled' ? null : await passPng(booking.passToken),
-        ics,
-        url: `${config.publicUrl}/`,
-      }),
-    );
-  }
+  const sendMail = createBookingMailSender({ db, clock, mailer, config });
 
   return {
     sendMail,
