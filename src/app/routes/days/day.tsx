@@ -3,7 +3,9 @@ import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { useSession } from '../../../features/auth/api/get-session';
+import { BookForPerson } from '../../../features/booking/components/book-for-person';
 import { dayQueryOptions, useDay } from '../../../features/days/api/get-day';
+import { ConfirmDayForm } from '../../../features/days/components/confirm-day-form';
 import { MailingPanel } from '../../../features/progress/components/mailing-panel';
 import { ProgressDashboard } from '../../../features/progress/components/progress-dashboard';
 import { requireRole } from '../../guards';
@@ -69,6 +71,11 @@ export function DayPage() {
             </a>
           </div>
         </Card>
+        {session?.user.role === 'studio_admin' && day.status === 'proposed' ? (
+          <Card title="Confirm the day">
+            <ConfirmDayForm day={day} />
+          </Card>
+        ) : null}
         {manages ? (
           <>
             <Card title="Invitations and reminders">
@@ -77,6 +84,11 @@ export function DayPage() {
             <Card title="Progress" className="lg:col-span-2">
               <ProgressDashboard dayId={day.id} />
             </Card>
+            {day.status === 'confirmed' ? (
+              <Card title="Book for someone" className="lg:col-span-2">
+                <BookForPerson dayId={day.id} />
+              </Card>
+            ) : null}
           </>
         ) : null}
       </div>
