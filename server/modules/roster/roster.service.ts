@@ -22,6 +22,7 @@ import { toCsv } from './csv-export';
 import { parseRosterFile } from './csv-decode';
 import { diffRoster } from './roster-diff';
 import { checkRows } from './roster-rows';
+import * as previewRepo from './roster-preview.repository';
 import * as repo from './roster.repository';
 import { insertImport, listImports } from './roster-import.repository';
 import { applyImport } from './apply-import';
@@ -131,7 +132,7 @@ export function createRosterService(deps: { db: Db }) {
           rawRows: parsed.rows,
           createdBy: viewer.id,
         });
-        await repo.replacePreviewRows(trx, id, preview.rows);
+        await previewRepo.replacePreviewRows(trx, id, preview.rows);
         return { id, ...record };
       });
       return view(clientId, draft);
@@ -157,7 +158,7 @@ export function createRosterService(deps: { db: Db }) {
           newOffices: preview.newOffices,
           rosterVersion: preview.version,
         });
-        await repo.replacePreviewRows(trx, draftId, preview.rows);
+        await previewRepo.replacePreviewRows(trx, draftId, preview.rows);
       });
       return view(clientId, {
         ...draft,
@@ -170,14 +171,14 @@ export function createRosterService(deps: { db: Db }) {
     async previewRows(viewer: Viewer, clientId: string, draftId: string, query: PreviewQuery) {
       await assertClientAccess(db, viewer, clientId);
       await draftOf(clientId, draftId);
-      return repo.previewPage(db, draftId, previewQuerySchema.parse(query));
+      return previewRepo.previewPage(db, draftId, previewQuerySchema.parse(query));
     },
 
     /** The rows in error as CSV: the file's own columns plus what to fix, ready to correct. */
     async errorCsv(viewer: Viewer, clientId: string, draftId: string): Promise<string> {
       await assertClientAccess(db, viewer, clientId);
       const draft = await draftOf(clientId, draftId);
-      const errors = await repo.previewRowsOfKinds(db, draftId, ['error']);
+      const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error']);
       const rawRows = await repo.loadRawRows(db, draftId);
       const records = errors.map((row) => [
         ...(rawRows[(row.rowNumber ?? 2) - 2] ?? []),
