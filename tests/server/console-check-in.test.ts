@@ -260,6 +260,12 @@ describe('walk-ins', () => {
       email: 'tomasz.brekke@halvorsen-pike.example',
       officeId,
     });
+    const audit = await t.db
+      .selectFrom('auditEvents')
+      .select(['action', 'actorUserId'])
+      .where('subjectId', '=', personId)
+      .execute();
+    expect(audit).toEqual([{ action: 'person.added_on_day', actorUserId: photographerId }]);
     const again = await post(
       photographer,
       action('check_in_new_person', {

@@ -2,6 +2,7 @@ import type { Transaction } from 'kysely';
 import type { Clock } from '../../adapters/clock';
 import type { Db } from '../../db/database';
 import type { Database } from '../../db/types';
+import { recordAudit } from '../../lib/audit';
 import { AppError, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import {
@@ -195,6 +196,14 @@ async function perform(context: ActionContext, action: ConsoleAction): Promise<s
         familyName: action.familyName,
         email: action.email,
         addedOnDayId: day.id,
+      });
+      // A roster change made outside an import: the roster's own history should show it.
+      await recordAudit(trx, {
+        actorUserId: context.viewer.id,
+        action: 'person.added_on_day',
+        subjectType: 'person',
+        subjectId: action.personId,
+        details: { dayId: day.id, stationId: action.stationId },
       });
       await checkIn(context, { ...action, bookingId: null, method: 'new_person' });
       return `${action.givenName} ${action.familyName} joined the roster and is checked in.`;
