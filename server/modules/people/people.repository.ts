@@ -83,14 +83,17 @@ export async function listPeople(db: Db, clientId: string, filter: PeopleFilter)
       filter.direction === 'asc' ? order.asc().nullsLast() : order.desc().nullsLast(),
     );
   }
-  const rows = (await query
-    .orderBy('people.id')
-    .limit(filter.pageSize)
-    .offset((filter.page - 1) * filter.pageSize)
-    .execute()) as PersonRow[];
-  const total = await filtered(db, clientId, filter)
-    .select((eb) => eb.fn.countAll<string>().as('n'))
-    .executeTakeFirstOrThrow();
+  // The page and the count run side by side on two connections: a search scans twice.
+  const [rows, total] = await Promise.all([
+    query
+      .orderBy('people.id')
+      .limit(filter.pageSize)
+      .offset((filter.page - 1) * filter.pageSize)
+      .execute() as Promise<PersonRow[]>,
+    filtered(db, clientId, filter)
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .executeTakeFirstOrThrow(),
+  ]);
   return { people: rows.map(toPerson), total: Number(total.n) };
 }
 
