@@ -93,10 +93,16 @@ async function main() {
         numFailedTests: number;
         numPendingTests: number;
         numTodoTests: number;
-        numFailedTestSuites: number;
+        testResults: Array<{ status: string; assertionResults: Array<{ status: string }> }>;
       };
       passed = report.numPassedTests;
-      failed = report.numFailedTests + report.numFailedTestSuites;
+      // A file that failed outside any test (an import error, a failing hook) counts once.
+      const brokenFiles = report.testResults.filter(
+        (file) =>
+          file.status === 'failed' &&
+          !file.assertionResults.some((test) => test.status === 'failed'),
+      ).length;
+      failed = report.numFailedTests + brokenFiles;
       skipped = report.numPendingTests + report.numTodoTests;
     }
     if (!testsOk && failed === 0) failed = 1;
