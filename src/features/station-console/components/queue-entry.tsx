@@ -35,6 +35,7 @@ export interface EntryActions {
 /** One sitter in the queue, readable at arm's length, with the one or two next steps. */
 export function QueueEntryCard({
   entry,
+  isNext,
   openSitting,
   stationName,
   timeOf,
@@ -44,6 +45,7 @@ export function QueueEntryCard({
   actions,
 }: {
   entry: ShownEntry;
+  isNext: boolean;
   openSitting: ShownSitting | undefined;
   stationName: string | null;
   timeOf: (iso: string) => string;
@@ -72,6 +74,11 @@ export function QueueEntryCard({
           ) : null}
         </p>
         <div className="flex flex-wrap gap-2 text-sm">
+          {isNext ? (
+            <span className="rounded-full border-2 border-clay-600 bg-clay-100 px-3 py-0.5 font-bold text-ink">
+              Next
+            </span>
+          ) : null}
           <span className={`rounded-full px-3 py-1 font-semibold ${statusTones[entry.status]}`}>
             {statusLabels[entry.status]}
           </span>

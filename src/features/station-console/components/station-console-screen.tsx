@@ -90,6 +90,10 @@ export function StationConsoleScreen({
       entry.checkIn?.stationId === stationId ||
       openSittingOf(entry)?.stationId === stationId,
   );
+  // Who steps up next: someone already waiting, else the earliest booking still to come.
+  const next =
+    entries.find((entry) => entry.status === 'arrived') ??
+    entries.find((entry) => entry.status === 'booked');
   const flashCount = entries.filter(
     (entry) => entry.flashSensitive && ['booked', 'arrived', 'in_chair'].includes(entry.status),
   ).length;
@@ -171,6 +175,7 @@ export function StationConsoleScreen({
               <QueueEntryCard
                 key={entry.key}
                 entry={entry}
+                isNext={entry === next}
                 openSitting={openSittingOf(entry)}
                 stationName={scope === 'all' ? stationName(entry.stationId) : null}
                 timeOf={timeOf}
