@@ -55,7 +55,8 @@ export function registerConsoleRoutes(
     });
     // A comment line now and then keeps proxies from closing a quiet stream.
     const heartbeat = setInterval(() => res.write(': still here\n\n'), 15_000);
-    req.on('close', () => {
+    // The response closes when the tablet goes away (tab closed, network lost).
+    res.on('close', () => {
       clearInterval(heartbeat);
       unsubscribe?.();
     });
