@@ -50,6 +50,8 @@ if (!entry) {
 }
 
 process.env.LIKENESS_MODE = command;
+// The entry sees only the arguments meant for it (`npm run bench -- roster` -> ["roster"]).
+process.argv.splice(2, 1);
 const { register } = await import('tsx/esm/api');
 register();
 await import(pathToFileURL(path.join(root, entry)).href);
