@@ -21,7 +21,7 @@ async function tablet(stationPath: string) {
 }
 
 describe('station console: several tablets', () => {
-  it("two tablets see each other's check-in within 2 seconds", async () => {
+  it("two tablets see each other's check-in and its undo within 2 seconds", async () => {
     const { day } = scenario;
     const first = await tablet(`/console/${day.id}/${day.stations[0]!.id}`);
     const second = await tablet(`/console/${day.id}/${day.stations[1]!.id}`);
@@ -54,6 +54,23 @@ describe('station console: several tablets', () => {
       .getByText('Arrived', { exact: true })
       .waitFor({ timeout: 2000 });
     expect(Date.now() - back).toBeLessThan(2000);
+
+    // Undo on one tablet takes the check-in back on both, and on the server.
+    const slip = scenario.people[0]!;
+    const slipOn = (page: typeof first.page) =>
+      page.getByRole('listitem', { name: new RegExp(slip.givenName) });
+    await slipOn(first.page).getByRole('button', { name: 'Check in' }).click();
+    await slipOn(second.page).getByText('Arrived', { exact: true }).waitFor({ timeout: 2000 });
+    await first.page.getByRole('button', { name: 'Undo' }).click();
+    await slipOn(second.page).getByText('Booked', { exact: true }).waitFor({ timeout: 2000 });
+    await slipOn(first.page).getByText('Booked', { exact: true }).waitFor();
+    const slipCheckIns = await env.testApp.db
+      .selectFrom('checkIns')
+      .select(['undoneAt'])
+      .where('personId', '=', slip.id)
+      .execute();
+    expect(slipCheckIns).toHaveLength(1);
+    expect(slipCheckIns[0]!.undoneAt).not.toBeNull();
 
     await first.context.close();
     await second.context.close();
