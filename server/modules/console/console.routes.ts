@@ -14,27 +14,27 @@ const actors = ['studio_admin', 'photographer'] as const;
 
 export function registerConsoleRoutes(
   routes: RouteTable,
-  console: ConsoleService,
+  service: ConsoleService,
   notifications: Notifications | undefined,
 ) {
   routes.add('get', '/console/days', viewers, async (req, res) => {
-    res.json({ days: await console.days(viewerOf(req)) });
+    res.json({ days: await service.days(viewerOf(req)) });
   });
 
   routes.add('get', '/days/:dayId/console', viewers, async (req, res) => {
-    res.json(await console.snapshot(viewerOf(req), parseId(req.params.dayId, 'That shoot day')));
+    res.json(await service.snapshot(viewerOf(req), parseId(req.params.dayId, 'That shoot day')));
   });
 
   routes.add('get', '/days/:dayId/console/roster', viewers, async (req, res) => {
     const dayId = parseId(req.params.dayId, 'That shoot day');
     const { q } = parseInput(rosterSearchQuerySchema, req.query);
-    res.json({ people: await console.searchRoster(viewerOf(req), dayId, q) });
+    res.json({ people: await service.searchRoster(viewerOf(req), dayId, q) });
   });
 
   routes.add('post', '/days/:dayId/console/actions', actors, async (req, res) => {
     const dayId = parseId(req.params.dayId, 'That shoot day');
     const action = parseInput(consoleActionSchema, req.body);
-    const result = await console.act(viewerOf(req), dayId, action);
+    const result = await service.act(viewerOf(req), dayId, action);
     res.status(result.replayed ? 200 : 201).json(result);
   });
 
@@ -42,7 +42,7 @@ export function registerConsoleRoutes(
   routes.add('get', '/days/:dayId/console/events', viewers, async (req, res) => {
     const dayId = parseId(req.params.dayId, 'That shoot day');
     parseInput(consoleEventsQuerySchema, req.query);
-    await console.dayFor(viewerOf(req), dayId, 'view');
+    await service.dayFor(viewerOf(req), dayId, 'view');
     res.writeHead(200, {
       'Content-Type': 'text/event-stream',
       'Cache-Control': 'no-store',
