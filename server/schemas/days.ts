@@ -183,3 +183,16 @@ export interface DaySchedule {
     entries: ScheduleEntry[];
   }>;
 }
+
+export interface ClientProgress {
+  clientId: string;
+  invited: number;
+  booked: number;
+  days: Array<{
+    dayId: string;
+    label: string;
+    status: 'proposed' | 'confirmed';
+    invited: number;
+    booked: number;
+  }>;
+}

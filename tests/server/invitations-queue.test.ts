@@ -102,6 +102,9 @@ describe('invitations, reminders and day-before mail through the job queue', () 
     const progress = await coordinator.get(`/api/days/${day.id}/progress`).expect(200);
     expect(progress.body).toMatchObject({ invited: 2, booked: 1, unbooked: 1 });
     expect(progress.body.unbookedPeople.map((p: { id: string }) => p.id)).toEqual([invited[1]!.id]);
+    const overview = await coordinator.get(`/api/clients/${client.id}/progress`).expect(200);
+    expect(overview.body).toMatchObject({ invited: 2, booked: 1 });
+    expect(overview.body.days[0]).toMatchObject({ dayId: day.id, label: `Leeds · ${day.date}` });
 
     // The day before: booked sitters get their pass and what-to-wear advice, once.
     const dayStart = Date.parse(`${day.date}T09:00:00Z`);
@@ -122,6 +125,7 @@ describe('invitations, reminders and day-before mail through the job queue', () 
     await strangerAgent.post(`/api/days/${day.id}/invitations`).expect(404);
     await strangerAgent.get(`/api/days/${day.id}/mailings`).expect(404);
     await strangerAgent.get(`/api/days/${day.id}/progress`).expect(404);
+    await strangerAgent.get(`/api/clients/${client.id}/progress`).expect(404);
   });
 
   it('exports the schedule as injection-safe CSV', async () => {

@@ -11,6 +11,16 @@ export function registerProgressRoutes(
 ) {
   const dayId = (value: unknown) => parseId(value, 'That shoot day');
 
+  routes.add(
+    'get',
+    '/clients/:clientId/progress',
+    ['studio_admin', 'coordinator'],
+    async (req, res) => {
+      const clientId = parseId(req.params.clientId, 'That client');
+      res.json(await progress.clientProgress(viewerOf(req), clientId));
+    },
+  );
+
   routes.add('get', '/days/:dayId/progress', ['studio_admin', 'coordinator'], async (req, res) => {
     res.json(await progress.progress(viewerOf(req), dayId(req.params.dayId)));
   });

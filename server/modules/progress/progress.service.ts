@@ -1,6 +1,7 @@
 import type { Db } from '../../db/database';
+import { notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
-import type { DayProgress, DaySchedule, ProgressGroup } from '../../schemas/days';
+import type { ClientProgress, DayProgress, DaySchedule, ProgressGroup } from '../../schemas/days';
 import * as bookingRepo from '../booking/booking.repository';
 import * as daysRepo from '../days/days.repository';
 import type { DaysService } from '../days/days.service';
@@ -60,25 +61,51 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
     };
   }
 
+  async function dayProgress(viewer: Viewer, dayId: string): Promise<DayProgress> {
+    const day = await days.visibleDay(viewer, dayId);
+    const people = await daysRepo
+      .invitedPeopleQuery(db, day)
+      .orderBy('people.familyName')
+      .execute();
+    const bookings = await bookingRepo.activeBookingsOfDay(db, dayId);
+    const booked = new Set(bookings.map((booking) => booking.personId));
+    const bookedInvited = people.filter((person) => booked.has(person.id)).length;
+    return {
+      invited: people.length,
+      booked: bookedInvited,
+      unbooked: people.length - bookedInvited,
+      byOffice: groupBy(people, booked, (person) => person.officeName ?? 'No office'),
+      byDepartment: groupBy(people, booked, (person) => person.department ?? 'No department'),
+      unbookedPeople: people.filter((person) => !booked.has(person.id)),
+    };
+  }
+
   return {
     schedule,
+    progress: dayProgress,
 
-    async progress(viewer: Viewer, dayId: string): Promise<DayProgress> {
-      const day = await days.visibleDay(viewer, dayId);
-      const people = await daysRepo
-        .invitedPeopleQuery(db, day)
-        .orderBy('people.familyName')
-        .execute();
-      const bookings = await bookingRepo.activeBookingsOfDay(db, dayId);
-      const booked = new Set(bookings.map((booking) => booking.personId));
-      const bookedInvited = people.filter((person) => booked.has(person.id)).length;
+    /** Every day of one client side by side: a coordinator's overview across offices. */
+    async clientProgress(viewer: Viewer, clientId: string): Promise<ClientProgress> {
+      if (viewer.role === 'coordinator' && viewer.clientId !== clientId) {
+        throw notFound('That client');
+      }
+      const list = (await days.list(viewer)).filter((day) => day.clientId === clientId);
+      const rows = [];
+      for (const day of list) {
+        const progress = await dayProgress(viewer, day.id);
+        rows.push({
+          dayId: day.id,
+          label: `${day.officeName} · ${day.date}`,
+          status: day.status,
+          invited: progress.invited,
+          booked: progress.booked,
+        });
+      }
       return {
-        invited: people.length,
-        booked: bookedInvited,
-        unbooked: people.length - bookedInvited,
-        byOffice: groupBy(people, booked, (person) => person.officeName ?? 'No office'),
-        byDepartment: groupBy(people, booked, (person) => person.department ?? 'No department'),
-        unbookedPeople: people.filter((person) => !booked.has(person.id)),
+        clientId,
+        invited: rows.reduce((sum, row) => sum + row.invited, 0),
+        booked: rows.reduce((sum, row) => sum + row.booked, 0),
+        days: rows,
       };
     },
 

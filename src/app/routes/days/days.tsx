@@ -8,6 +8,7 @@ import { clientsQueryOptions, useClients } from '../../../features/clients/api/l
 import { daysQueryOptions, useDays } from '../../../features/days/api/list-days';
 import { DayForm } from '../../../features/days/components/day-form';
 import { DaysList } from '../../../features/days/components/days-list';
+import { ClientProgressCard } from '../../../features/progress/components/client-progress';
 import { teamQueryOptions } from '../../../features/team/api/list-team';
 import { requireRole } from '../../guards';
 
@@ -40,14 +41,19 @@ export function DaysPage() {
           : 'Your company’s portrait days. Propose a day; the studio confirms it.'}
       </PageHeading>
       <div className="grid gap-5 lg:grid-cols-[1fr_1fr]">
-        <DaysList
-          days={days.data?.days ?? []}
-          emptyHint={
-            isStudio
-              ? 'Plan the first day with the form on this page.'
-              : 'Propose a day with the form on this page, or wait for the studio to plan one.'
-          }
-        />
+        <div className="flex flex-col gap-5">
+          {(clients.data?.clients ?? []).map((client) => (
+            <ClientProgressCard key={client.id} clientId={client.id} clientName={client.name} />
+          ))}
+          <DaysList
+            days={days.data?.days ?? []}
+            emptyHint={
+              isStudio
+                ? 'Plan the first day with the form on this page.'
+                : 'Propose a day with the form on this page, or wait for the studio to plan one.'
+            }
+          />
+        </div>
         <Card title={isStudio ? 'Plan a shoot day' : 'Propose a shoot day'}>
           <DayForm clients={clients.data?.clients ?? []} photographers={photographers} />
         </Card>
