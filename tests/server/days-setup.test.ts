@@ -154,4 +154,30 @@ describe('shoot days', () => {
       booking: null,
     });
   });
+
+  it('a hand-picked list invites exactly those people, and only from the client roster', async () => {
+    const client = await insertClient(t.db);
+    const office = await insertOffice(t.db, client.id, 'Leeds', 'Europe/London');
+    const photographer = await insertStaff(t.db, { role: 'photographer' });
+    const admin = await signedInAgent(t, (await insertStaff(t.db)).email);
+    const picked = await insertPerson(t.db, client.id, { officeId: office.id });
+    const left = await insertPerson(t.db, client.id, { officeId: office.id });
+    const outsider = await insertPerson(t.db, (await insertClient(t.db)).id);
+    const base = { ...validDay(client.id, office.id, photographer.id), inviteBy: 'list' };
+    const refused = await admin
+      .post('/api/days')
+      .send({ ...base, invitePersonIds: [picked.id, outsider.id] })
+      .expect(400);
+    expect(refused.body.error.details.fieldErrors.invitePersonIds).toBeDefined();
+    const day = await admin
+      .post('/api/days')
+      .send({ ...base, invitePersonIds: [picked.id] })
+      .expect(201);
+    const progress = await admin.get(`/api/days/${day.body.id}/progress`).expect(200);
+    expect(progress.body.unbookedPeople.map((person: { id: string }) => person.id)).toEqual([
+      picked.id,
+    ]);
+    const leftOut = await signedInSitter(t, left.email);
+    await leftOut.get(`/api/days/${day.body.id}/slots`).expect(404);
+  });
 });

@@ -6,6 +6,7 @@ import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useCreateDay } from '../api/create-day';
+import { InviteePicker } from './invitee-picker';
 import { StationFields, type StationDraft } from './station-fields';
 import { ThroughputPlanner } from './throughput-planner';
 
@@ -41,7 +42,8 @@ export function DayForm({
     changesCloseAt: '',
     departments: '',
   });
-  const [inviteBy, setInviteBy] = useState<'office' | 'department'>('office');
+  const [inviteBy, setInviteBy] = useState<'office' | 'department' | 'list'>('office');
+  const [invitePersonIds, setInvitePersonIds] = useState<string[]>([]);
   const [stations, setStations] = useState<StationDraft[]>([
     { name: 'Station A', photographerId: '' },
   ]);
@@ -60,6 +62,9 @@ export function DayForm({
       : 0;
   const hoursPerDay =
     (minutes(fields.closesAt) - minutes(fields.opensAt) - (breakMinutes || 0)) / 60;
+
+  const defaultHeadCount =
+    inviteBy === 'list' ? invitePersonIds.length : (office?.activePeople ?? 0);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -80,6 +85,7 @@ export function DayForm({
       bookingClosesAt: toInstant(fields.bookingClosesAt),
       changesCloseAt: toInstant(fields.changesCloseAt),
       inviteBy,
+      invitePersonIds: inviteBy === 'list' ? invitePersonIds : [],
       inviteDepartments: fields.departments
         .split(',')
         .map((name) => name.trim())
@@ -238,10 +244,13 @@ export function DayForm({
         <SelectField
           label="Who is invited"
           value={inviteBy}
-          onChange={(value) => setInviteBy(value === 'department' ? 'department' : 'office')}
+          onChange={(value) =>
+            setInviteBy(value === 'department' || value === 'list' ? value : 'office')
+          }
           options={[
             { value: 'office', label: 'Everyone at this office' },
             { value: 'department', label: 'Chosen departments' },
+            { value: 'list', label: 'Hand-picked people' },
           ]}
         />
       </div>
@@ -251,6 +260,15 @@ export function DayForm({
           value={fields.departments}
           onChange={set('departments')}
           error={errors.inviteDepartments}
+        />
+      ) : null}
+      {inviteBy === 'list' && clientId && officeId ? (
+        <InviteePicker
+          clientId={clientId}
+          officeId={officeId}
+          selected={invitePersonIds}
+          onChange={setInvitePersonIds}
+          error={errors.invitePersonIds}
         />
       ) : null}
       <StationFields
@@ -265,13 +283,13 @@ export function DayForm({
           type="number"
           inputMode="numeric"
           min={0}
-          value={headCount ?? String(office?.activePeople ?? 0)}
+          value={headCount ?? String(defaultHeadCount)}
           onChange={setHeadCount}
-          hint="Starts at the office's active roster."
+          hint="Starts at the office's active roster, or the people picked."
         />
         <div className="mt-3">
           <ThroughputPlanner
-            headCount={Number(headCount ?? office?.activePeople ?? 0)}
+            headCount={Number(headCount ?? defaultHeadCount)}
             stations={stations.length}
             slotMinutes={Number(fields.slotMinutes)}
             hoursPerDay={hoursPerDay}
