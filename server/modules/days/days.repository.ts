@@ -66,6 +66,14 @@ function dayQuery(db: Executor) {
       'shootDays.inviteDepartments',
       'shootDays.status',
       'shootDays.reminderRounds',
+      // Stations come along in the same round trip: every booking request reads a day.
+      sql<DayRecord['stations']>`(
+        select coalesce(jsonb_agg(jsonb_build_object(
+          'id', stations.id, 'name', stations.name,
+          'photographerId', stations.photographer_id, 'photographerName', users.display_name
+        ) order by stations.position), '[]'::jsonb)
+        from stations left join users on users.id = stations.photographer_id
+        where stations.day_id = shoot_days.id)`.as('stations'),
     ]);
 }
 
@@ -88,31 +96,7 @@ export async function listDays(db: Executor, filter: DayFilter): Promise<DayReco
       ),
     );
   }
-  const rows = await query.execute();
-  if (rows.length === 0) return [];
-  const stations = await db
-    .selectFrom('stations')
-    .leftJoin('users', 'users.id', 'stations.photographerId')
-    .select([
-      'stations.id',
-      'stations.dayId',
-      'stations.name',
-      'stations.photographerId',
-      'users.displayName as photographerName',
-    ])
-    .where(
-      'stations.dayId',
-      'in',
-      rows.map((row) => row.id),
-    )
-    .orderBy('stations.position')
-    .execute();
-  return rows.map((row) => ({
-    ...row,
-    stations: stations
-      .filter((station) => station.dayId === row.id)
-      .map(({ dayId: _dayId, ...station }) => station),
-  }));
+  return query.execute();
 }
 
 export async function findDay(db: Executor, id: string): Promise<DayRecord | undefined> {
