@@ -1,6 +1,7 @@
 import { sql, type Transaction } from 'kysely';
 import type { Db } from '../../db/database';
 import type { Database } from '../../db/types';
+import { staffedBy } from '../../db/day-scope';
 
 type Executor = Db | Transaction<Database>;
 
@@ -61,18 +62,7 @@ export async function listDays(
     .orderBy('shootDays.dayDate')
     .limit(50);
   if (filter.clientId) query = query.where('shootDays.clientId', '=', filter.clientId);
-  if (filter.photographerId) {
-    const photographerId = filter.photographerId;
-    query = query.where((eb) =>
-      eb.exists(
-        eb
-          .selectFrom('stations')
-          .select('stations.id')
-          .whereRef('stations.dayId', '=', 'shootDays.id')
-          .where('stations.photographerId', '=', photographerId),
-      ),
-    );
-  }
+  if (filter.photographerId) query = query.where(staffedBy(filter.photographerId));
   return query.execute();
 }
 

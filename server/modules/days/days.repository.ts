@@ -2,6 +2,7 @@ import { sql, type Transaction } from 'kysely';
 import type { Db } from '../../db/database';
 import type { Database } from '../../db/types';
 import type { CreateDayInput } from '../../schemas/days';
+import { staffedBy } from '../../db/day-scope';
 
 type Executor = Db | Transaction<Database>;
 
@@ -84,18 +85,7 @@ export async function listDays(db: Executor, filter: DayFilter): Promise<DayReco
     if (filter.dayIds.length === 0) return [];
     query = query.where('shootDays.id', 'in', filter.dayIds);
   }
-  if (filter.photographerId) {
-    const photographerId = filter.photographerId;
-    query = query.where((eb) =>
-      eb.exists(
-        eb
-          .selectFrom('stations')
-          .select('stations.id')
-          .whereRef('stations.dayId', '=', 'shootDays.id')
-          .where('stations.photographerId', '=', photographerId),
-      ),
-    );
-  }
+  if (filter.photographerId) query = query.where(staffedBy(filter.photographerId));
   return query.execute();
 }
 

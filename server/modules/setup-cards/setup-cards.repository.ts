@@ -1,5 +1,6 @@
 import { sql } from 'kysely';
 import type { Db } from '../../db/database';
+import { staffedBy } from '../../db/day-scope';
 import type { SetupCard } from '../../schemas/setup-card';
 
 export interface DayHeader {
@@ -106,17 +107,7 @@ export async function listCardSources(db: Db, onlyPhotographerId: string | null)
     .orderBy('shootDays.dayDate', 'desc')
     .orderBy('stations.position')
     .limit(200);
-  if (onlyPhotographerId) {
-    query = query.where((eb) =>
-      eb.exists(
-        eb
-          .selectFrom('stations as mine')
-          .select('mine.id')
-          .whereRef('mine.dayId', '=', 'shootDays.id')
-          .where('mine.photographerId', '=', onlyPhotographerId),
-      ),
-    );
-  }
+  if (onlyPhotographerId) query = query.where(staffedBy(onlyPhotographerId));
   const rows = await query.execute();
   return rows.map((row) => ({
     stationId: row.stationId,
