@@ -195,4 +195,6 @@ export interface ClientProgress {
     invited: number;
     booked: number;
   }>;
+  byOffice: ProgressGroup[];
+  byDepartment: ProgressGroup[];
 }

@@ -26,6 +26,19 @@ function groupBy(
   return [...groups.values()].sort((a, b) => a.label.localeCompare(b.label));
 }
 
+/** Adds each day's groups into the client's totals, label by label. */
+function mergeGroups(totals: ProgressGroup[], groups: ProgressGroup[]) {
+  for (const group of groups) {
+    const total = totals.find((candidate) => candidate.label === group.label);
+    if (total) {
+      total.invited += group.invited;
+      total.booked += group.booked;
+    } else {
+      totals.push({ ...group });
+    }
+  }
+}
+
 export function createProgressService(deps: { db: Db; days: DaysService }) {
   const { db, days } = deps;
 
@@ -91,8 +104,12 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
       }
       const list = (await days.list(viewer)).filter((day) => day.clientId === clientId);
       const rows = [];
+      const byOffice: ProgressGroup[] = [];
+      const byDepartment: ProgressGroup[] = [];
       for (const day of list) {
         const progress = await dayProgress(viewer, day.id);
+        mergeGroups(byOffice, progress.byOffice);
+        mergeGroups(byDepartment, progress.byDepartment);
         rows.push({
           dayId: day.id,
           label: `${day.officeName} · ${day.date}`,
@@ -106,6 +123,8 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
         invited: rows.reduce((sum, row) => sum + row.invited, 0),
         booked: rows.reduce((sum, row) => sum + row.booked, 0),
         days: rows,
+        byOffice: byOffice.sort((a, b) => a.label.localeCompare(b.label)),
+        byDepartment: byDepartment.sort((a, b) => a.label.localeCompare(b.label)),
       };
     },
 

@@ -29,6 +29,10 @@ export function ClientProgressCard({
           booked: day.booked,
         }))}
       />
+      <div className="mt-4 grid gap-4 md:grid-cols-2">
+        <ProgressChart title="By office" groups={progress.data.byOffice} />
+        <ProgressChart title="By department" groups={progress.data.byDepartment} />
+      </div>
     </Card>
   );
 }
