@@ -47,7 +47,7 @@ describe('the studio plans a day', () => {
     await form.getByText('Pick the date of the day.').waitFor();
 
     await form.getByLabel('Date', { exact: true }).fill('2030-05-07');
-    await form.getByLabel('Address').fill('Rua do Almada 80, Porto');
+    await form.getByLabel('Address').fill('Rua da Lanterna Velha 14, Porto');
     await form.getByLabel('Booking opens').fill('2030-04-01T09:00');
     await form.getByLabel('Booking closes').fill('2030-05-06T17:00');
     await form.getByLabel('Sitters can change until').fill('2030-05-06T17:00');

@@ -17,7 +17,7 @@ export async function insertDayWithStations(
       officeId: input.officeId,
       dayDate: input.date ?? '2027-03-04',
       timeZone: 'Europe/London',
-      address: '1 Canal Wharf, Leeds',
+      address: '4 Quillfield Row, Leeds',
       room: 'Boardroom 2',
       opensAt: '09:00',
       closesAt: '17:00',

@@ -64,10 +64,12 @@ export function CoordinatorHome({ name }: { name: string }) {
           </Card>
           <Card title="What happens next">
             <p className="text-ink-muted">
-              The studio schedules a shoot day for each office. Everyone on the roster then gets an
-              e-mail with a personal link to book a five-minute slot, and you can follow who has
-              booked from here.
+              The studio schedules a shoot day for each office (you can propose one). Everyone
+              invited then gets an e-mail with a personal link to book a five-minute slot.
             </p>
+            <Link to="/days" className="mt-3 inline-block font-medium text-spruce-700 underline">
+              Shoot days and booking progress
+            </Link>
           </Card>
         </div>
       ) : null}
