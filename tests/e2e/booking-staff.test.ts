@@ -64,6 +64,30 @@ describe('the studio plans a day', () => {
     await page.getByRole('button', { name: 'Send invitations' }).click();
     await page.getByText('3 queued').waitFor();
     await page.getByText('Sending: 0 of 3 handled', { exact: false }).waitFor();
+
+    // The studio books someone on their behalf, then moves and cancels that booking.
+    const bookFor = page.getByRole('form', { name: 'Book for someone' });
+    const firstPerson = await bookFor
+      .getByLabel('Person')
+      .locator('option')
+      .nth(1)
+      .getAttribute('value');
+    await bookFor.getByLabel('Person').selectOption(firstPerson ?? '');
+    await bookFor.getByRole('radio', { name: '09:00' }).check({ force: true });
+    await bookFor.getByRole('button', { name: 'Book for them' }).click();
+    await bookFor.getByText(/^Booked .* at 09:00/).waitFor();
+
+    const bookings = page.getByRole('list', { name: 'Bookings' });
+    await bookings.getByRole('button', { name: 'Move' }).click();
+    const moveForm = bookings.getByRole('form', { name: /^Move / });
+    await moveForm.getByRole('radio', { name: '09:30' }).check({ force: true });
+    await moveForm.getByRole('button', { name: 'Move to this time' }).click();
+    await bookings.getByText('09:30', { exact: true }).waitFor();
+    expect(await seriousAxeViolations(page)).toEqual([]);
+
+    await bookings.getByRole('button', { name: 'Cancel booking' }).click();
+    await bookings.getByRole('button', { name: 'Yes, cancel it' }).click();
+    await page.getByText('Nobody has booked yet').waitFor();
     await context.close();
   });
 });

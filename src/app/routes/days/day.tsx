@@ -4,6 +4,7 @@ import { Card } from '../../../components/ui/card';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { useSession } from '../../../features/auth/api/get-session';
 import { BookForPerson } from '../../../features/booking/components/book-for-person';
+import { ManageBookings } from '../../../features/booking/components/manage-bookings';
 import { dayQueryOptions, useDay } from '../../../features/days/api/get-day';
 import { ConfirmDayForm } from '../../../features/days/components/confirm-day-form';
 import { MailingPanel } from '../../../features/progress/components/mailing-panel';
@@ -87,6 +88,11 @@ export function DayPage() {
             {day.status === 'confirmed' ? (
               <Card title="Book for someone" className="lg:col-span-2">
                 <BookForPerson dayId={day.id} />
+              </Card>
+            ) : null}
+            {day.status === 'confirmed' ? (
+              <Card title="Booked people: move or cancel" className="lg:col-span-2">
+                <ManageBookings dayId={day.id} />
               </Card>
             ) : null}
           </>
