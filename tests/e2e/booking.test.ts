@@ -60,9 +60,22 @@ describe('a sitter books on a phone', () => {
     );
     const pass = page.getByRole('img', { name: /Your pass/ });
     await pass.waitFor();
-    await expect(
-      pass.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0),
-    ).resolves.toBe(true);
+    // The image may still be on its way when it appears: wait until it has really loaded.
+    await pass.evaluate((img: HTMLImageElement) =>
+      img.complete && img.naturalWidth > 0
+        ? true
+        : new Promise<boolean>((resolve, reject) => {
+            img.addEventListener('load', () => resolve(img.naturalWidth > 0), { once: true });
+            img.addEventListener(
+              'error',
+              () => reject(new Error('The pass image failed to load')),
+              {
+                once: true,
+              },
+            );
+          }),
+    );
+    expect(await pass.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBeGreaterThan(0);
     expect(await seriousAxeViolations(page)).toEqual([]);
     // Confirmations go out from the job queue; run it as the worker would.
     await runJobs();
