@@ -1,5 +1,6 @@
 import type { Db } from '../../server/db/database';
 import { hashPassword } from '../../server/lib/secrets';
+import { demoDepartments as departments, demoOffices as offices } from './demo-names';
 import { insertDemoDays } from './demo-days';
 
 /**
@@ -36,129 +37,6 @@ export const demoCoordinators = [
     client: 'Aldermoor Housing Trust',
   },
 ];
-
-const offices = [
-  {
-    name: 'Leeds',
-    timeZone: 'Europe/London',
-    share: 100,
-    given: [
-      'Oliver',
-      'Amelia',
-      'Harry',
-      'Isla',
-      'George',
-      'Ava',
-      'Jack',
-      'Grace',
-      'Noah',
-      'Freya',
-      'Leo',
-      'Poppy',
-      'Arthur',
-      'Ruby',
-      'Alfie',
-      'Evie',
-    ],
-    family: [
-      'Thornton',
-      'Ashworth',
-      'Hebden',
-      'Marsh',
-      'Pickering',
-      'Holt',
-      'Whitaker',
-      'Greenwood',
-      'Barraclough',
-      'Sutcliffe',
-      'Crowther',
-      'Ackroyd',
-    ],
-  },
-  {
-    name: 'Rotterdam',
-    timeZone: 'Europe/Amsterdam',
-    share: 80,
-    given: [
-      'Daan',
-      'Emma',
-      'Sem',
-      'Julia',
-      'Lucas',
-      'Mila',
-      'Finn',
-      'Tess',
-      'Levi',
-      'Sara',
-      'Milan',
-      'Zoë',
-      'Bram',
-      'Noor',
-      'Ruben',
-      'Fenna',
-    ],
-    family: [
-      'de Vries',
-      'Bakker',
-      'Visser',
-      'Smit',
-      'Meijer',
-      'de Boer',
-      'Mulder',
-      'Bos',
-      'Vos',
-      'Peters',
-      'Hendriks',
-      'Dekker',
-    ],
-  },
-  {
-    name: 'Porto',
-    timeZone: 'Europe/Lisbon',
-    share: 60,
-    given: [
-      'João',
-      'Maria',
-      'Tiago',
-      'Beatriz',
-      'Rodrigo',
-      'Matilde',
-      'Duarte',
-      'Leonor',
-      'Tomás',
-      'Carolina',
-      'Gonçalo',
-      'Inês',
-      'Afonso',
-      'Mariana',
-    ],
-    family: [
-      'Silva',
-      'Santos',
-      'Ferreira',
-      'Pereira',
-      'Oliveira',
-      'Costa',
-      'Rodrigues',
-      'Martins',
-      'Sousa',
-      'Fernandes',
-      'Gonçalves',
-      'Lopes',
-    ],
-  },
-];
-
-const departments = [
-  ['Structural Engineering', 'Structural Engineer'],
-  ['Geotechnics', 'Geotechnical Engineer'],
-  ['Marine Works', 'Marine Engineer'],
-  ['Project Controls', 'Project Controller'],
-  ['Design Review', 'Design Reviewer'],
-  ['People & Culture', 'People Partner'],
-  ['Finance', 'Management Accountant'],
-  ['IT Services', 'Systems Analyst'],
-] as const;
 
 /** A small deterministic generator (mulberry32) so every install gets the same demo. */
 function seededRandom(seed: number) {
