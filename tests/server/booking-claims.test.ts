@@ -217,4 +217,43 @@ describe('claiming a seat', () => {
       .expect(200);
     expect(moved.body.sequence).toBe(1);
   });
+
+  it('a booking whose sitter has checked in can no longer be moved or cancelled, by anyone', async () => {
+    const day = await insertDay(t.db, { clientId, officeId, photographerIds: photographers });
+    const person = await insertPerson(t.db, clientId, { officeId });
+    const sitter = await signedInSitter(t, person.email);
+    const made = await sitter
+      .post('/api/bookings')
+      .send({ dayId: day.id, startsAt: '2030-03-14T09:00:00.000Z' })
+      .expect(201);
+    expect(made.body.canChange).toBe(true);
+    const [stored] = await activeBookings(day.id);
+    await t.db
+      .insertInto('checkIns')
+      .values({
+        id: crypto.randomUUID(),
+        dayId: day.id,
+        personId: person.id,
+        bookingId: made.body.id,
+        stationId: stored!.stationId,
+        method: 'pass',
+        checkedInAt: t.clock.now(),
+        tabletAt: t.clock.now(),
+      })
+      .execute();
+    const cancel = await sitter.delete(`/api/bookings/${made.body.id}`);
+    expect(cancel.status).toBe(409);
+    expect(cancel.body.error.code).toBe('already_checked_in');
+    const coordinator = request.agent(t.app).set('Cookie', coordinatorCookie);
+    const move = await coordinator
+      .patch(`/api/bookings/${made.body.id}`)
+      .send({ startsAt: '2030-03-14T09:05:00.000Z' });
+    expect(move.status).toBe(409);
+    const rows = await activeBookings(day.id);
+    expect(rows.map((row) => row.id)).toEqual([made.body.id]);
+    const mine = await sitter.get('/api/sitters/me/days').expect(200);
+    expect(mine.body.days.find((d: { id: string }) => d.id === day.id).booking.canChange).toBe(
+      false,
+    );
+  });
 });

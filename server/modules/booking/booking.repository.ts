@@ -22,6 +22,7 @@ export interface BookingRecord {
   glasses: boolean;
   accessNeeds: string | null;
   flashSensitive: boolean;
+  checkedIn: boolean;
 }
 
 function bookingQuery(db: Executor) {
@@ -49,6 +50,10 @@ function bookingQuery(db: Executor) {
       'bookings.glasses',
       'bookings.accessNeeds',
       'bookings.flashSensitive',
+      // Once the sitter has checked in at the station, the booking is history, not a plan.
+      sql<boolean>`exists (select 1 from check_ins where check_ins.booking_id = bookings.id and check_ins.undone_at is null)`.as(
+        'checkedIn',
+      ),
     ]);
 }
 

@@ -17,6 +17,13 @@ import * as repo from './booking.repository';
 import { createBookingMailSender } from './booking.confirmation';
 import { newPassToken, passPng } from './pass';
 
+const alreadyCheckedIn = () =>
+  new AppError(
+    'already_checked_in',
+    409,
+    'This sitter has already checked in at the station, so the booking can no longer be moved or cancelled.',
+  );
+
 export type BookingService = ReturnType<typeof createBookingService>;
 export const bookingMailJob = 'booking-mail';
 
@@ -89,7 +96,7 @@ export function createBookingService(deps: {
       glasses: booking.glasses,
       accessNeeds: booking.accessNeeds,
       flashSensitive: booking.flashSensitive,
-      canChange: booking.status === 'active' && mayChange(viewer, day),
+      canChange: booking.status === 'active' && !booking.checkedIn && mayChange(viewer, day),
     };
   }
 
@@ -256,6 +263,7 @@ export function createBookingService(deps: {
           if (locked?.status !== 'active')
             throw conflict('booking_cancelled', 'That booking was cancelled.');
           const current = await repo.findBooking(trx, id);
+          if (current?.checkedIn) throw alreadyCheckedIn();
           if (current?.startsAt.getTime() === startsAt.getTime()) return;
           const [stationId] = await repo.freeStationsAt(trx, day.id, startsAt);
           if (!stationId) throw conflict('slot_taken', 'That slot is full. Please pick another.');
@@ -285,6 +293,7 @@ export function createBookingService(deps: {
       await db.transaction().execute(async (trx) => {
         const locked = await repo.lockBooking(trx, id);
         if (locked?.status !== 'active') return;
+        if ((await repo.findBooking(trx, id))?.checkedIn) throw alreadyCheckedIn();
         await repo.cancelBooking(trx, id, clock.now());
         await enqueueJobs(trx, bookingMailJob, [{ bookingId: id, kind: 'cancelled' }]);
       });
