@@ -80,14 +80,17 @@ export function createRateLimits(
   db: Db,
   action: string,
   settings: RateLimitSettings,
-  options: { byAccount: boolean } = { byAccount: true },
+  options: { byAccount?: boolean; onlyFailures?: boolean } = {},
 ): RequestHandler[] {
+  const byAccount = options.byAccount ?? true;
   const common = {
     windowMs: settings.windowMs,
     standardHeaders: 'draft-8' as const,
     legacyHeaders: false,
     // Both limits answer the same way, whether or not the e-mail is known.
     handler: (_req: Request, _res: unknown, next: (error: unknown) => void) => next(tooMany()),
+    // Signing in correctly again (another tablet, another browser) is not an attack.
+    skipSuccessfulRequests: options.onlyFailures ?? false,
   };
   const limits = [
     rateLimit({
@@ -103,5 +106,5 @@ export function createRateLimits(
     }),
   ];
   // Requests without an e-mail (link redemption) would all share one account key.
-  return options.byAccount ? limits : limits.slice(0, 1);
+  return byAccount ? limits : limits.slice(0, 1);
 }

@@ -25,7 +25,7 @@ export function registerAuthRoutes(
   db: Db,
   config: AppConfig,
 ) {
-  const signInLimits = createRateLimits(db, 'sign-in', config.rateLimit);
+  const signInLimits = createRateLimits(db, 'sign-in', config.rateLimit, { onlyFailures: true });
   const linkLimits = createRateLimits(db, 'sign-in-link', config.rateLimit);
   const resetLimits = createRateLimits(db, 'password-reset', config.rateLimit);
   const redeemLimits = createRateLimits(db, 'link-redeem', config.rateLimit, { byAccount: false });
