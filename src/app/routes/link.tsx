@@ -23,7 +23,7 @@ export function LinkPage() {
   }, [token, redeem, navigate]);
 
   return (
-    <PublicFrame title="Signing you in">
+    <PublicFrame title={redeem.isError ? 'This link cannot sign you in' : 'Signing you in'}>
       {redeem.isError ? (
         <>
           <Notice tone="danger">{redeem.error.message}</Notice>

@@ -44,7 +44,7 @@ export function SignedInLayout() {
 
   return (
     <>
-      <header className="border-b border-line bg-paper-raised">
+      <header className="no-print border-b border-line bg-paper-raised">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <Logo size={28} />
           <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1">

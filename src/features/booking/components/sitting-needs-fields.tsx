@@ -76,7 +76,7 @@ export function SittingNeedsFields({
       </Checkbox>
       <TextField
         label="Access needs"
-        hint="For example step-free access or a chair. Only the studio team sees this."
+        hint="For example step-free access or a chair. The studio team and your company's coordinator for the day see this."
         value={value.accessNeeds}
         onChange={(next) => set('accessNeeds', next)}
         error={errors.accessNeeds}

@@ -27,7 +27,9 @@ export function CardFiguresPanel({ figures }: { figures: CardFigures }) {
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-sm">
         {figures.lights.map((light) => (
           <div key={light.role} className="contents">
-            <dt className="text-ink-muted capitalize">{light.role} on the sitter</dt>
+            <dt className="text-ink-muted">
+              {light.role.charAt(0).toUpperCase() + light.role.slice(1)} on the sitter
+            </dt>
             <dd>
               {light.role === 'key' ? 'reference' : stops(light.stopsRelativeToKey)}
               {light.apertureFromGuideNumber

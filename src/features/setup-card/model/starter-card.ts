@@ -2,7 +2,7 @@ import type { SetupCard } from '../../../../server/schemas/setup-card';
 
 /**
  * The card a station starts from: a typical key-plus-fill headshot set (common practice) —
- * key through a shoot-through umbrella at 1/2, fill four stops lower at 1/32, ISO 100, 1/125 s,
+ * key through a shoot-through umbrella at 1/2, fill four stops lower at 1/32 from the same distance, ISO 100, 1/125 s,
  * about f/5.6, camera 1.5 m from the sitter, sitter 2 m in front of the background.
  */
 export const starterCard: SetupCard = {
@@ -20,7 +20,7 @@ export const starterCard: SetupCard = {
       power: 1 / 32,
       modifier: 'Small diffuser',
       modifierLossStops: null,
-      distanceMetres: 1.5,
+      distanceMetres: 1.2,
       guideNumber: null,
     },
   ],
