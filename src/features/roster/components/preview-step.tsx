@@ -29,9 +29,13 @@ export function PreviewStep({
     Object.fromEntries(draft.newOffices.map((office) => [office, guessTimeZone(office)])),
   );
   const [zoneErrors, setZoneErrors] = useState<Record<string, string | undefined>>({});
-  const [deactivateMissing, setDeactivateMissing] = useState(true);
-  const commit = useCommitImport();
   const { counts } = draft;
+  // A file that leaves out most of the roster is more likely a partial export than a list of
+  // leavers: then nobody is deactivated unless the coordinator asks for it.
+  const rosterSize = counts.update + counts.unchanged + counts.missing;
+  const mostlyMissing = counts.missing > rosterSize / 2;
+  const [deactivateMissing, setDeactivateMissing] = useState(!mostlyMissing);
+  const commit = useCommitImport();
   const changes = counts.add + counts.update + (deactivateMissing ? counts.missing : 0);
 
   const confirm = () => {
@@ -110,6 +114,13 @@ export function PreviewStep({
           Mark the {counts.missing.toLocaleString()} people who are not in this file as inactive
           (they stay on record with their bookings)
         </label>
+      ) : null}
+      {mostlyMissing && counts.missing > 0 ? (
+        <Notice tone="caution">
+          This file leaves out {counts.missing.toLocaleString()} of the{' '}
+          {rosterSize.toLocaleString()} people on the roster. If it is only part of the staff list,
+          leave the box above unticked.
+        </Notice>
       ) : null}
       {commit.isError ? <Notice tone="danger">{commit.error.message}</Notice> : null}
       <div className="flex flex-wrap gap-3">
