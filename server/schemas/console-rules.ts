@@ -12,6 +12,19 @@ export function frameAfter(frame: number): number {
   return frame >= lastFrameNumber ? firstFrameNumber : frame + 1;
 }
 
+/** How many frames a sitting spans, counting the wrap from 9999 back to 0001. */
+export function framesInSitting(firstFrame: number, lastFrame: number): number {
+  return lastFrame >= firstFrame
+    ? lastFrame - firstFrame + 1
+    : lastFrameNumber - firstFrame + 1 + (lastFrame - firstFrameNumber + 1);
+}
+
+/**
+ * A sitting yields about 10-25 frames (common practice); anything past this many is a mistyped
+ * counter, most often a last frame below the first that is not a wrap past 9999.
+ */
+export const mostFramesInSitting = 500;
+
 /** Four digits, as the camera shows them. */
 export function formatFrame(frame: number): string {
   return String(frame).padStart(4, '0');

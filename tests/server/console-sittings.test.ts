@@ -113,6 +113,12 @@ describe('sittings', () => {
         firstFrame: 13,
       }),
     ).expect(201);
+    // A last frame below the first that is no wrap past 9999 is a mistyped counter.
+    const mistyped = await post(
+      photographer,
+      action('finish_sitting', { stationId, sittingId: retakeId, lastFrame: 5 }),
+    ).expect(400);
+    expect(mistyped.body.error.code).toBe('implausible_last_frame');
     await post(
       photographer,
       action('finish_sitting', { stationId, sittingId: retakeId, lastFrame: null }),

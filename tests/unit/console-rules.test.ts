@@ -4,6 +4,8 @@ import {
   expectedNextFrame,
   formatFrame,
   frameAfter,
+  framesInSitting,
+  mostFramesInSitting,
   mayMarkNoShow,
   noShowAllowedFrom,
 } from '../../server/schemas/console-rules';
@@ -13,6 +15,13 @@ describe('frame numbers (DCF 2.0, JEITA CP-3461: file numbers 0001-9999)', () =>
     expect(frameAfter(1)).toBe(2);
     expect(frameAfter(9998)).toBe(9999);
     expect(frameAfter(9999)).toBe(1);
+  });
+
+  it('counts the frames of a sitting across the wrap from 9999 to 0001', () => {
+    expect(framesInSitting(4521, 4540)).toBe(20);
+    expect(framesInSitting(9990, 12)).toBe(22);
+    // A last frame below the first without a wrap reads as thousands of frames: refused.
+    expect(framesInSitting(4521, 4500)).toBeGreaterThan(mostFramesInSitting);
   });
 
   it('shows four digits as the camera does', () => {

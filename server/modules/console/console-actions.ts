@@ -10,7 +10,13 @@ import {
   type ConsoleAction,
   type ConsoleActionResult,
 } from '../../schemas/console';
-import { mayMarkNoShow, noShowAllowedFrom } from '../../schemas/console-rules';
+import {
+  formatFrame,
+  framesInSitting,
+  mayMarkNoShow,
+  mostFramesInSitting,
+  noShowAllowedFrom,
+} from '../../schemas/console-rules';
 import { undoAction } from './console-undo';
 import * as repo from './console-actions.repository';
 import type { DayRecord } from './console.repository';
@@ -235,6 +241,17 @@ async function perform(context: ActionContext, action: ConsoleAction): Promise<s
       if (!sitting || sitting.undoneAt) throw notFound('That sitting');
       if (sitting.finishedAt) {
         throw new AppError('already_finished', 409, 'This sitting is already finished.');
+      }
+      if (
+        action.lastFrame != null &&
+        framesInSitting(sitting.firstFrame, action.lastFrame) > mostFramesInSitting
+      ) {
+        throw new AppError(
+          'implausible_last_frame',
+          400,
+          `The last frame ${formatFrame(action.lastFrame)} does not follow the first, ${formatFrame(sitting.firstFrame)}: check the camera's frame counter.`,
+          { fieldErrors: { lastFrame: ['Check the camera’s frame counter.'] } },
+        );
       }
       await trx
         .updateTable('sittings')
