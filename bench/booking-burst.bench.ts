@@ -35,8 +35,8 @@ const date = '2030-03-14';
 const hours = { opensAt: '09:00', closesAt: '17:00', slotMinutes: 5 };
 
 /** A small deterministic generator (mulberry32), so every run asks for the same slots. */
-function seededRandom(seed: number) {
-  let state = seed >>> 0;
+function repeatableRandom(start: number) {
+  let state = start >>> 0;
   return () => {
     state = (state + 0x6d2b79f5) >>> 0;
     let t = state;
@@ -52,7 +52,7 @@ const round = (value: number, digits = 1) => Number(value.toFixed(digits));
 
 const discardingMailer: Mailer = { send: async () => undefined, close: () => undefined };
 
-async function seed(url: string) {
+async function prepareDay(url: string) {
   const client = new pg.Client({ connectionString: url });
   await client.connect();
   try {
@@ -212,7 +212,7 @@ const benchmark: Benchmark = {
     let server: Server | undefined;
     try {
       await migrateToLatest(url);
-      const { dayId, tokens } = await seed(url);
+      const { dayId, tokens } = await prepareDay(url);
       const config = toAppConfig(
         parseEnvironment({ NODE_ENV: 'production', PUBLIC_URL: 'http://127.0.0.1' }),
       );
@@ -228,7 +228,7 @@ const benchmark: Benchmark = {
       await new Promise((resolve) => server!.once('listening', resolve));
       const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
       const slots = generateSlots({ date, timeZone: 'Europe/London', breaks: [], ...hours });
-      const random = seededRandom(2030);
+      const random = repeatableRandom(2030);
       const wanted = tokens.map(() => slots[Math.floor(random() * slots.length)]!.startsAt);
 
       const { latencies, outcomes, seconds } = await fireClaims({

@@ -39,8 +39,8 @@ export const demoCoordinators = [
 ];
 
 /** A small deterministic generator (mulberry32) so every install gets the same demo. */
-function seededRandom(seed: number) {
-  let state = seed >>> 0;
+function repeatableRandom(start: number) {
+  let state = start >>> 0;
   return () => {
     state = (state + 0x6d2b79f5) >>> 0;
     let t = state;
@@ -69,7 +69,7 @@ export interface DemoPerson {
 }
 
 export function generateDemoPeople(): DemoPerson[] {
-  const random = seededRandom(20270304);
+  const random = repeatableRandom(20270304);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)] as T;
   const used = new Set<string>();
   const people: DemoPerson[] = [];
