@@ -3,6 +3,8 @@ import type { ConsoleAction, QueueEntry } from '../../server/schemas/console';
 import { applyPending } from '../../src/features/station-console/model/apply-pending';
 import type { OutboxItem } from '../../src/features/station-console/model/outbox-item';
 
+// How waiting changes overlay the last loaded queue is the product's own rule (no outside source).
+
 const station = '00000000-0000-4000-8000-0000000000a1';
 const entry = (overrides: Partial<QueueEntry>): QueueEntry => ({
   key: 'booking-1',

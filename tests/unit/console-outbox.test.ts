@@ -4,6 +4,9 @@ import type { ConsoleAction, ConsoleActionResult } from '../../server/schemas/co
 import type { OutboxItem } from '../../src/features/station-console/model/outbox-item';
 import { ApiError } from '../../src/lib/api-client';
 
+// The outbox's order, retry and refusal rules are the product's own offline design (no outside
+// source); what they protect is the frame-to-sitter record the matching depends on.
+
 // IndexedDB stands in as a map: the outbox's ordering and retry rules are under test here.
 const stored = new Map<string, OutboxItem>();
 vi.mock('../../src/features/station-console/offline/outbox-store', () => ({

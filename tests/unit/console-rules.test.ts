@@ -52,6 +52,8 @@ describe('frame numbers (DCF 2.0, JEITA CP-3461: file numbers 0001-9999)', () =>
   });
 });
 
+// The grace period (10 minutes by default) and the queue order are the product's own rules,
+// set per day by the studio; they have no outside source.
 describe('no-show grace period', () => {
   const startsAt = '2030-03-14T09:00:00Z';
   it('opens exactly grace minutes after the booked start', () => {

@@ -3,6 +3,10 @@ import { diffRoster, type ExistingPerson } from '../../server/modules/roster/ros
 import { checkRows } from '../../server/modules/roster/roster-rows';
 import type { ColumnMapping, RosterField } from '../../server/schemas/roster';
 
+// Sources: the matching and deactivation rules are the product's own (issue: match by employee
+// id, then e-mail; never delete); e-mail syntax is zod's validator; case-folding of the address
+// is common practice (mailbox providers treat addresses case-insensitively).
+
 const headers = ['First name', 'Last name', 'Email', 'Employee id', 'Office', 'Shirt'];
 const mapping: ColumnMapping = [
   'givenName',
