@@ -1,4 +1,5 @@
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef } from '@tanstack/react-table';
+import { TableBody } from './table-body';
 
 /** A plain accessible table over TanStack Table's model. */
 export function DataTable<Row>({
@@ -28,17 +29,11 @@ export function DataTable<Row>({
             </tr>
           ))}
         </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-t border-line">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-4 py-3 align-middle">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
+        <TableBody
+          table={table}
+          rowClassName="border-t border-line"
+          cellClassName="px-4 py-3 align-middle"
+        />
       </table>
     </div>
   );

@@ -6,6 +6,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { Button } from './button';
+import { TableBody } from './table-body';
 
 export interface PageState {
   page: number;
@@ -103,17 +104,11 @@ export function PagedTable<Row>({
               </tr>
             ))}
           </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-t border-line align-top">
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
+          <TableBody
+            table={table}
+            rowClassName="border-t border-line align-top"
+            cellClassName="px-3 py-2"
+          />
         </table>
       </div>
       <nav aria-label={`${caption}: pages`} className="flex flex-wrap items-center gap-3 text-sm">
