@@ -3,42 +3,6 @@ import type { Db } from '../../db/database';
 import { staffedBy } from '../../db/day-scope';
 import type { SetupCard } from '../../schemas/setup-card';
 
-export interface DayHeader {
-  id: string;
-  dayDate: string;
-  clientName: string;
-  officeName: string;
-  address: string;
-  room: string;
-}
-
-export async function findDayHeader(db: Db, dayId: string): Promise<DayHeader | undefined> {
-  return db
-    .selectFrom('shootDays')
-    .innerJoin('clients', 'clients.id', 'shootDays.clientId')
-    .innerJoin('offices', 'offices.id', 'shootDays.officeId')
-    .select([
-      'shootDays.id',
-      sql<string>`to_char(shoot_days.day_date, 'YYYY-MM-DD')`.as('dayDate'),
-      'clients.name as clientName',
-      'offices.name as officeName',
-      'shootDays.address',
-      'shootDays.room',
-    ])
-    .where('shootDays.id', '=', dayId)
-    .executeTakeFirst();
-}
-
-export async function isAssignedToDay(db: Db, dayId: string, userId: string): Promise<boolean> {
-  const row = await db
-    .selectFrom('stations')
-    .select('id')
-    .where('dayId', '=', dayId)
-    .where('photographerId', '=', userId)
-    .executeTakeFirst();
-  return row !== undefined;
-}
-
 export async function listStationCards(db: Db, dayId: string) {
   const rows = await db
     .selectFrom('stations')

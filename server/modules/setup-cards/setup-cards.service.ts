@@ -3,6 +3,7 @@ import { recordAudit } from '../../lib/audit';
 import { AppError, forbidden, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import { setupCardSchema, type DaySetupCards, type SetupCard } from '../../schemas/setup-card';
+import { findDay } from '../days/days.repository';
 import * as repo from './setup-cards.repository';
 
 export type SetupCardsService = ReturnType<typeof createSetupCardsService>;
@@ -12,9 +13,10 @@ export function createSetupCardsService(deps: { db: Db }) {
   const { db } = deps;
 
   async function assertDayAccess(viewer: Viewer, dayId: string) {
-    const day = await repo.findDayHeader(db, dayId);
+    const day = await findDay(db, dayId);
     if (!day) throw notFound('That shoot day');
-    if (viewer.role === 'photographer' && !(await repo.isAssignedToDay(db, dayId, viewer.id))) {
+    const assigned = day.stations.some((station) => station.photographerId === viewer.id);
+    if (viewer.role === 'photographer' && !assigned) {
       throw forbidden('You are not assigned to this shoot day.');
     }
     return day;
@@ -30,8 +32,15 @@ export function createSetupCardsService(deps: { db: Db }) {
   return {
     async forDay(viewer: Viewer, dayId: string): Promise<DaySetupCards> {
       const day = await assertDayAccess(viewer, dayId);
-      const stations = await repo.listStationCards(db, dayId);
-      return { dayId: day.id, ...day, stations };
+      return {
+        dayId: day.id,
+        dayDate: day.date,
+        clientName: day.clientName,
+        officeName: day.officeName,
+        address: day.address,
+        room: day.room,
+        stations: await repo.listStationCards(db, dayId),
+      };
     },
 
     async save(viewer: Viewer, stationId: string, card: SetupCard): Promise<void> {
