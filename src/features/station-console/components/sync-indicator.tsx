@@ -23,18 +23,16 @@ export function SyncIndicator({
         : fromTablet
           ? 'Showing the copy on this tablet'
           : 'All changes saved';
-  const tone =
-    signedOut || !online
-      ? 'bg-caution-50 border-caution-600'
-      : waiting > 0
-        ? 'bg-spruce-50 border-spruce-500'
-        : 'bg-success-50 border-success-600';
+  const dot =
+    signedOut || !online ? 'bg-caution-600' : waiting > 0 ? 'bg-spruce-500' : 'bg-success-600';
   return (
     <p
       role="status"
       aria-label="Sync"
-      className={`inline-flex min-h-touch items-center rounded-control border-2 px-3 text-base font-semibold ${tone}`}
+      // A plain line of text with a dot, so it never reads as a button.
+      className="inline-flex items-center gap-2 text-base font-semibold"
     >
+      <span aria-hidden className={`size-3 shrink-0 rounded-full ${dot}`} />
       {text}
     </p>
   );
