@@ -1,3 +1,4 @@
+import path from 'node:path';
 import { z } from 'zod';
 
 const booleanFromEnv = z
@@ -27,6 +28,12 @@ export const configSchema = z.object({
   PG_PORT: z.coerce.number().int().min(1024).max(65535).default(54329),
   LOAD_DEMO: booleanFromEnv.default(true),
   MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  STORAGE: z.enum(['local', 's3']).default('local'),
+  STORAGE_LOCAL_ROOT: z.string().min(1).optional(),
+  S3_BUCKET: z.string().min(1).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ENDPOINT: z.url().optional(),
+  S3_FORCE_PATH_STYLE: booleanFromEnv.default(false),
 });
 
 export type RawConfig = z.infer<typeof configSchema>;
@@ -43,7 +50,16 @@ export interface AppConfig {
   setPasswordLinkTtlMs: number;
   passwordResetTtlMs: number;
   rateLimit: { windowMs: number; perAddress: number; perAccount: number };
+  storage: StorageSettings;
 }
+
+/**
+ * Where frames and their derived files are kept. S3 credentials are not settings here: the SDK
+ * reads AWS_ACCESS_KEY_ID / AWS_SECRET_ACCESS_KEY (or a profile or instance role) itself.
+ */
+export type StorageSettings =
+  | { kind: 'local'; root: string }
+  | { kind: 's3'; bucket: string; region: string; endpoint?: string; forcePathStyle: boolean };
 
 const HOUR = 3_600_000;
 const MINUTE = 60_000;
@@ -74,5 +90,28 @@ export function toAppConfig(raw: RawConfig): AppConfig {
       perAddress: raw.RATE_LIMIT_PER_ADDRESS,
       perAccount: raw.RATE_LIMIT_PER_ACCOUNT,
     },
+    storage: toStorageSettings(raw),
+  };
+}
+
+function toStorageSettings(raw: RawConfig): StorageSettings {
+  if (raw.STORAGE === 'local') {
+    return {
+      kind: 'local',
+      root: path.resolve(raw.STORAGE_LOCAL_ROOT ?? path.join(raw.LIKENESS_DATA_DIR, 'storage')),
+    };
+  }
+  // Checked here rather than in the schema because it depends on STORAGE; same message shape.
+  if (!raw.S3_BUCKET) {
+    throw new Error(
+      'Invalid configuration in the environment:\n  S3_BUCKET: required when STORAGE=s3',
+    );
+  }
+  return {
+    kind: 's3',
+    bucket: raw.S3_BUCKET,
+    region: raw.S3_REGION,
+    endpoint: raw.S3_ENDPOINT,
+    forcePathStyle: raw.S3_FORCE_PATH_STYLE,
   };
 }
