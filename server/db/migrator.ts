@@ -1,6 +1,7 @@
 import { promises as fs } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { runMigrations } from 'graphile-worker';
 import { FileMigrationProvider, Kysely, Migrator, PostgresDialect } from 'kysely';
 import pg from 'pg';
 
@@ -9,8 +10,13 @@ const migrationFolder = path.resolve(
   '../../migrations',
 );
 
-/** Runs every pending migration; throws with the failing migration's name. */
+/**
+ * Runs every pending migration; throws with the failing migration's name. graphile-worker's
+ * own schema comes first: every transaction that adds a job needs graphile_worker.add_job, and
+ * the migration that retired the old job table moves its waiting jobs over with it.
+ */
 export async function migrateToLatest(connectionString: string): Promise<string[]> {
+  await runMigrations({ connectionString });
   // Migrations get a plain Kysely (no camel-case plugin): they speak the database's own names.
   const db = new Kysely<unknown>({
     dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max: 1 }) }),

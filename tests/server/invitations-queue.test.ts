@@ -13,6 +13,7 @@ let mailer: ReturnType<typeof createSmtpMailer>;
 const runJobs = () =>
   runDayJobsOnce({
     db: t.db,
+    databaseUrl: t.database.url,
     clock: t.clock,
     mailer,
     config: t.config,

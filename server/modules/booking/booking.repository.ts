@@ -112,7 +112,7 @@ export async function lockPersonForDay(
 }
 
 /**
- * Claims a free seat of the slot and queues its confirmation mail, in one statement. A free
+ * Claims a free seat of the slot in one statement (the caller queues the confirmation). A free
  * station is picked at random so that people claiming the same slot at once rarely aim at the
  * same seat; when two do, the unique index decides and the loser gets null with candidates > 0
  * (try again). candidates = 0 means the slot is full.
@@ -130,7 +130,6 @@ export async function claimSeat(
     accessNeeds: string | null;
     flashSensitive: boolean;
     bookedByUserId: string | null;
-    mailJobKind: string;
   },
 ): Promise<{ bookingId: string | null; candidates: number }> {
   const result = await sql<{ bookingId: string | null; candidates: string }>`
@@ -154,10 +153,6 @@ export async function claimSeat(
       from chosen
       on conflict do nothing
       returning id
-    ), queued as (
-      insert into job_queue (kind, payload)
-      select ${values.mailJobKind}, jsonb_build_object('bookingId', id, 'kind', 'booked')
-      from inserted
     )
     select (select id from inserted) as "bookingId", (select count(*) from chosen) as candidates
   `.execute(trx);

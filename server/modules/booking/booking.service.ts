@@ -3,7 +3,7 @@ import type { Clock } from '../../adapters/clock';
 import type { Mailer } from '../../adapters/mail/mailer';
 import type { AppConfig } from '../../config';
 import type { Db } from '../../db/database';
-import { enqueueJobs, type JobHandlers } from '../../jobs/job-queue';
+import { addJob, type JobHandlers } from '../../jobs/job-queue';
 import { AppError, notFound } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
 import type { Viewer } from '../../lib/viewer';
@@ -225,9 +225,11 @@ export function createBookingService(deps: {
             accessNeeds: input.accessNeeds,
             flashSensitive: input.flashSensitive,
             bookedByUserId: viewer.kind === 'staff' ? viewer.id : null,
-            mailJobKind: bookingMailJob,
           });
-          if (claim.bookingId) return { id: claim.bookingId, created: true };
+          if (claim.bookingId) {
+            await addJob(trx, bookingMailJob, { bookingId: claim.bookingId, kind: 'booked' });
+            return { id: claim.bookingId, created: true };
+          }
           if (claim.candidates === 0) break;
           // The lock read above saw the snapshot from before it waited: a double click's first
           // booking may have landed meanwhile, so look again before trying another seat.
@@ -268,7 +270,13 @@ export function createBookingService(deps: {
           const [stationId] = await repo.freeStationsAt(trx, day.id, startsAt);
           if (!stationId) throw conflict('slot_taken', 'That slot is full. Please pick another.');
           await repo.moveBooking(trx, id, stationId, startsAt, clock.now());
-          await enqueueJobs(trx, bookingMailJob, [{ bookingId: id, kind: 'moved' }]);
+          // Two moves before the worker runs send one mail, about where the booking is now.
+          await addJob(
+            trx,
+            bookingMailJob,
+            { bookingId: id, kind: 'moved' },
+            { jobKey: `${bookingMailJob}:moved:${id}` },
+          );
         });
       } catch (error) {
         // Another sitter took the seat between our read and our write: the index refused it.
@@ -295,7 +303,7 @@ export function createBookingService(deps: {
         if (locked?.status !== 'active') return;
         if ((await repo.findBooking(trx, id))?.checkedIn) throw alreadyCheckedIn();
         await repo.cancelBooking(trx, id, clock.now());
-        await enqueueJobs(trx, bookingMailJob, [{ bookingId: id, kind: 'cancelled' }]);
+        await addJob(trx, bookingMailJob, { bookingId: id, kind: 'cancelled' });
       });
       const booking = await repo.findBooking(db, id);
       if (!booking) throw notFound('That booking');

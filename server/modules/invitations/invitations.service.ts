@@ -1,7 +1,7 @@
 import type { Clock } from '../../adapters/clock';
 import type { Mailer } from '../../adapters/mail/mailer';
 import type { Db } from '../../db/database';
-import { enqueueJobs, type JobHandlers } from '../../jobs/job-queue';
+import { addJobs, type JobHandlers } from '../../jobs/job-queue';
 import { recordAudit } from '../../lib/audit';
 import { AppError } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
@@ -51,10 +51,10 @@ export function createInvitationsService(deps: {
       await daysRepo.lockDay(trx, day.id);
       const round = kind === 'reminder' ? await repo.bumpReminderRound(trx, day.id) : 1;
       const ids = await repo.insertMailings(trx, day.id, personIds, kind, round);
-      await enqueueJobs(
+      await addJobs(
         trx,
         dayMailJob,
-        ids.map((mailingId) => ({ mailingId })),
+        ids.map((mailingId) => ({ payload: { mailingId }, jobKey: `${dayMailJob}:${mailingId}` })),
       );
       await recordAudit(trx, {
         actorUserId: viewer?.kind === 'staff' ? viewer.id : null,
