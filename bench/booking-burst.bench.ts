@@ -8,6 +8,7 @@ import path from 'node:path';
 import { CamelCasePlugin, Kysely, PostgresDialect } from 'kysely';
 import pg from 'pg';
 import { systemClock } from '../server/adapters/clock';
+import { LocalStorage } from '../server/adapters/storage/local-storage';
 import type { Mailer } from '../server/adapters/mail/mailer';
 import { createApp } from '../server/app';
 import { parseEnvironment, toAppConfig } from '../server/config';
@@ -223,6 +224,9 @@ const benchmark: Benchmark = {
         mailbox: null,
         clock: systemClock,
         logger: createLogger('silent'),
+        // Booking touches no files; an unused scratch folder keeps the app's shape.
+        storage: new LocalStorage(path.join(tmpdir(), 'likeness-bench-storage')),
+        uploads: { ...config.uploads, folder: path.join(tmpdir(), 'likeness-bench-uploads') },
       });
       server = app.listen(0, '127.0.0.1');
       await new Promise((resolve) => server!.once('listening', resolve));

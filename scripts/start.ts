@@ -6,11 +6,13 @@ import { systemClock } from '../server/adapters/clock';
 import { startMailCatcher, type MailCatcher } from '../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../server/adapters/mail/mailer';
 import { createPgNotifications } from '../server/adapters/notifications';
+import { createStorage } from '../server/adapters/storage/create-storage';
 import { createApp, type AppDeps } from '../server/app';
 import { parseEnvironment, toAppConfig } from '../server/config';
 import { createDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
 import { startDayJobsWorker } from '../server/jobs/day-jobs';
+import { frameTasks } from '../server/modules/frames/frame-tasks';
 import { createLogger } from '../server/lib/logger';
 import {
   DEMO_PASSWORD,
@@ -121,6 +123,14 @@ async function main() {
   );
   cleanups.push(() => notifications.close());
 
+  const storage = createStorage(config.storage);
+  cleanups.push(() => storage.close());
+  say(
+    config.storage.kind === 'local'
+      ? `Frames are stored in ${config.storage.root}.`
+      : `Frames are stored in the S3 bucket ${config.storage.bucket}.`,
+  );
+
   const { app } = createApp({
     db,
     config,
@@ -130,13 +140,18 @@ async function main() {
     logger,
     frontend: await frontend(),
     notifications,
+    storage,
+    uploads: config.uploads,
   });
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(raw.PORT, raw.HOST, () => resolve(listening));
     listening.once('error', reject);
   });
-  // Invitations, reminders and day-before mail go out from the PostgreSQL job queue.
-  const worker = startDayJobsWorker({ db, clock: systemClock, mailer, config, logger });
+  // Invitations, reminders, day-before mail and reading uploaded frames run on graphile-worker.
+  const worker = await startDayJobsWorker(
+    { db, databaseUrl, clock: systemClock, mailer, config, logger },
+    frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
+  );
   cleanups.push(() => worker.stop());
   cleanups.push(
     () =>

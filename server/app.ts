@@ -7,6 +7,7 @@ import type { Clock } from './adapters/clock';
 import type { Mailbox } from './adapters/mail/mail-catcher';
 import type { Mailer } from './adapters/mail/mailer';
 import type { Notifications } from './adapters/notifications';
+import type { ObjectStorage } from './adapters/storage/storage';
 import type { AppConfig } from './config';
 import type { Db } from './db/database';
 import { AppError } from './lib/errors';
@@ -23,6 +24,9 @@ import { registerConsoleRoutes } from './modules/console/console.routes';
 import { createConsoleService } from './modules/console/console.service';
 import { createClientsService } from './modules/clients/clients.service';
 import { registerDaysRoutes } from './modules/days/days.routes';
+import { mountFrameUploads } from './modules/frames/frame-upload-handler';
+import { registerFramesRoutes } from './modules/frames/frames.routes';
+import { createFramesService } from './modules/frames/frames.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { registerProgressRoutes } from './modules/progress/progress.routes';
 import { createProgressService } from './modules/progress/progress.service';
@@ -51,6 +55,10 @@ export interface AppDeps {
   frontend?: { kind: 'static'; folder: string } | { kind: 'middleware'; handler: RequestHandler };
   /** LISTEN/NOTIFY for the live station console; without it tablets fall back to polling. */
   notifications?: Notifications;
+  /** Originals, previews and thumbnails: local disk or S3-compatible storage. */
+  storage: ObjectStorage;
+  /** Where tus keeps files still arriving, and the limits every upload is held to. */
+  uploads: { folder: string; maxBytes: number; maxPixels: number };
 }
 
 /**
@@ -111,6 +119,20 @@ export function createApp(deps: AppDeps) {
     issueSitterInvitationLink: (personId) => auth.issueSitterInvitationLink(personId),
   });
   const progress = createProgressService({ db, days });
+  const frames = createFramesService({
+    db,
+    storage: deps.storage,
+    limits: { maxBytes: deps.uploads.maxBytes, maxPixels: deps.uploads.maxPixels },
+  });
+
+  // Before the API router: tus speaks its own content type, and checks access itself.
+  mountFrameUploads(app, {
+    frames,
+    folder: deps.uploads.folder,
+    maxBytes: deps.uploads.maxBytes,
+    resolveViewer: (token) => auth.resolveViewer(token),
+    logger,
+  });
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
@@ -134,6 +156,7 @@ export function createApp(deps: AppDeps) {
   registerBookingRoutes(routes, booking);
   registerProgressRoutes(routes, progress, invitations);
   registerSetupCardsRoutes(routes, createSetupCardsService({ db }));
+  registerFramesRoutes(routes, frames);
   registerConsoleRoutes(routes, createConsoleService({ db, clock }), deps.notifications);
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());

@@ -34,6 +34,8 @@ export const configSchema = z.object({
   S3_REGION: z.string().min(1).default('us-east-1'),
   S3_ENDPOINT: z.url().optional(),
   S3_FORCE_PATH_STYLE: booleanFromEnv.default(false),
+  UPLOAD_MAX_MB: z.coerce.number().int().min(1).max(10_000).default(200),
+  UPLOAD_MAX_MEGAPIXELS: z.coerce.number().int().min(1).max(1000).default(100),
 });
 
 export type RawConfig = z.infer<typeof configSchema>;
@@ -51,6 +53,8 @@ export interface AppConfig {
   passwordResetTtlMs: number;
   rateLimit: { windowMs: number; perAddress: number; perAccount: number };
   storage: StorageSettings;
+  /** Files still arriving live in `folder` (tus); no file over maxBytes or maxPixels is kept. */
+  uploads: { folder: string; maxBytes: number; maxPixels: number };
 }
 
 /**
@@ -91,6 +95,11 @@ export function toAppConfig(raw: RawConfig): AppConfig {
       perAccount: raw.RATE_LIMIT_PER_ACCOUNT,
     },
     storage: toStorageSettings(raw),
+    uploads: {
+      folder: path.resolve(raw.LIKENESS_DATA_DIR, 'uploads-in-flight'),
+      maxBytes: raw.UPLOAD_MAX_MB * 1_000_000,
+      maxPixels: raw.UPLOAD_MAX_MEGAPIXELS * 1_000_000,
+    },
   };
 }
 

@@ -4,6 +4,11 @@ import type { Database } from './types';
 
 export type Db = Kysely<Database>;
 
+// A timestamp without zone (a camera's unzoned wall clock) stays the text it is: parsing it
+// into a Date would silently place it in this process's time zone.
+const TIMESTAMP_WITHOUT_ZONE_OID = 1114;
+pg.types.setTypeParser(TIMESTAMP_WITHOUT_ZONE_OID, (value) => value);
+
 export function createDatabase(
   connectionString: string,
   options: { maxConnections?: number } = {},

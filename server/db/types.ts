@@ -5,6 +5,7 @@ import type {
   SittingsTable,
   StationActionsTable,
 } from './console-types';
+import type { FrameUploadsTable, FramesTable } from './frame-types';
 import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
@@ -180,17 +181,6 @@ export interface DayMailingsTable {
   sentAt: Timestamp | null;
 }
 
-export interface JobQueueTable {
-  id: Generated<string>;
-  kind: string;
-  payload: ColumnType<unknown, string, string>;
-  runAt: DefaultedTimestamp;
-  attempts: Generated<number>;
-  lockedUntil: Timestamp | null;
-  doneAt: Timestamp | null;
-  lastError: string | null;
-}
-
 export interface Database {
   clients: ClientsTable;
   users: UsersTable;
@@ -211,11 +201,12 @@ export interface Database {
   dayInvitees: DayInviteesTable;
   bookings: BookingsTable;
   dayMailings: DayMailingsTable;
-  jobQueue: JobQueueTable;
   stationActions: StationActionsTable;
   checkIns: CheckInsTable;
   sittings: SittingsTable;
   noShows: NoShowsTable;
+  frameUploads: FrameUploadsTable;
+  frames: FramesTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -112,6 +112,13 @@ export function createAppRouter(queryClient: QueryClient) {
               },
             },
             {
+              path: '/days/:dayId/frames',
+              lazy: async () => {
+                const page = await import('./routes/frames/day-frames');
+                return { Component: page.DayFramesPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/days/:dayId/sheet',
               lazy: async () => {
                 const page = await import('./routes/days/day-sheet');

@@ -43,6 +43,12 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'POST /api/clients/:clientId/people/:personId/erasure': ['studio_admin', 'coordinator'],
   'GET /api/days/:dayId/setup-cards': ['studio_admin', 'photographer'],
   'GET /api/setup-card-sources': ['studio_admin', 'photographer'],
+  'GET /api/days/:dayId/frames/overview': ['studio_admin', 'photographer'],
+  'GET /api/days/:dayId/frames': ['studio_admin', 'photographer'],
+  'POST /api/days/:dayId/frames/known': ['studio_admin', 'photographer'],
+  'GET /api/frames/:frameId/thumbnail': ['studio_admin', 'photographer'],
+  'GET /api/frames/:frameId/preview': ['studio_admin', 'photographer'],
+  'GET /api/frames/:frameId/original': ['studio_admin', 'photographer'],
   'PUT /api/stations/:stationId/setup-card': ['studio_admin', 'photographer'],
   'POST /api/stations/:stationId/setup-card/copy': ['studio_admin', 'photographer'],
   'GET /api/days': ['studio_admin', 'coordinator', 'photographer'],
@@ -129,6 +135,8 @@ beforeAll(async () => {
     dayId: day.id,
     stationId: day.stations[0]!.id,
     bookingId: booking.id,
+    // A frame that does not exist: as for imports, allowed roles get 404.
+    frameId: '00000000-0000-4000-8000-000000000001',
   };
 });
 afterAll(() => t.close());

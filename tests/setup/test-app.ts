@@ -1,7 +1,12 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import type { Clock } from '../../server/adapters/clock';
 import { startMailCatcher, type MailCatcher } from '../../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../../server/adapters/mail/mailer';
 import { createPgNotifications } from '../../server/adapters/notifications';
+import { LocalStorage } from '../../server/adapters/storage/local-storage';
+import type { ObjectStorage } from '../../server/adapters/storage/storage';
 import { createApp, type AppDeps } from '../../server/app';
 import { parseEnvironment, toAppConfig, type AppConfig } from '../../server/config';
 import { createLogger } from '../../server/lib/logger';
@@ -29,11 +34,19 @@ export interface TestApp {
   mail: MailCatcher;
   clock: ManualClock;
   config: AppConfig;
+  storage: ObjectStorage;
+  /** Where tus keeps files still arriving. */
+  uploadFolder: string;
   close(): Promise<void>;
 }
 
 export async function startTestApp(
-  options: { env?: Record<string, string>; frontend?: AppDeps['frontend'] } = {},
+  options: {
+    env?: Record<string, string>;
+    frontend?: AppDeps['frontend'];
+    storage?: ObjectStorage;
+    uploads?: Partial<AppDeps['uploads']>;
+  } = {},
 ): Promise<TestApp> {
   const database = await createTestDatabase();
   const mail = await startMailCatcher(0);
@@ -43,6 +56,9 @@ export async function startTestApp(
   const mailer = createSmtpMailer({ smtpUrl: mail.smtpUrl, from: config.mailFrom });
   const clock = new ManualClock();
   const notifications = await createPgNotifications(database.url);
+  const scratch = mkdtempSync(path.join(os.tmpdir(), 'likeness-test-files-'));
+  const storage = options.storage ?? new LocalStorage(path.join(scratch, 'storage'));
+  const uploadFolder = path.join(scratch, 'uploads');
   const { app, routeTable } = createApp({
     db: database.db,
     config,
@@ -52,6 +68,13 @@ export async function startTestApp(
     logger: createLogger('silent'),
     frontend: options.frontend,
     notifications,
+    storage,
+    uploads: {
+      folder: uploadFolder,
+      maxBytes: 200_000_000,
+      maxPixels: 100_000_000,
+      ...options.uploads,
+    },
   });
   return {
     app,
@@ -61,11 +84,14 @@ export async function startTestApp(
     mail,
     clock,
     config,
+    storage,
+    uploadFolder,
     async close() {
       mailer.close();
       await notifications.close();
       await mail.close();
       await database.drop();
+      rmSync(scratch, { recursive: true, force: true });
     },
   };
 }

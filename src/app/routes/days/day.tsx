@@ -63,6 +63,14 @@ export function DayPage() {
                 Setup cards (lights and camera)
               </Link>
             ) : null}
+            {session?.user.role !== 'coordinator' ? (
+              <Link
+                to={`/days/${day.id}/frames`}
+                className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+              >
+                Frames (upload the cards)
+              </Link>
+            ) : null}
             <a
               href={`/api/days/${day.id}/schedule.csv`}
               download
