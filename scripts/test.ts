@@ -16,20 +16,28 @@ const isRoot = process.getuid?.() === 0;
 const say = (line: string) => process.stdout.write(`[likeness test] ${line}\n`);
 const extraArgs = process.argv.slice(2);
 
-function ensureChromium() {
-  if (existsSync('/usr/bin/chromium')) return;
+/** Debian packages the tests use: Chromium (browser tests), exiftool (an independent EXIF reader). */
+const neededPackages = [
+  { file: '/usr/bin/chromium', name: 'chromium' },
+  { file: '/usr/bin/exiftool', name: 'libimage-exiftool-perl' },
+];
+
+function ensureDebianPackages() {
+  const missing = neededPackages.filter((entry) => !existsSync(entry.file));
+  if (missing.length === 0) return;
+  const names = missing.map((entry) => entry.name).join(' ');
   if (!isRoot) {
     throw new Error(
-      'Chromium is missing. Install it with: sudo apt-get update && sudo apt-get install -y chromium',
+      `Missing: ${names}. Install with: sudo apt-get update && sudo apt-get install -y ${names}`,
     );
   }
-  say('Chromium is missing: installing the Debian package (about a minute)...');
-  const result = spawnSync('sh', ['-c', 'apt-get update && apt-get install -y chromium'], {
+  say(`Installing Debian packages the tests need: ${names} (about a minute)...`);
+  const result = spawnSync('sh', ['-c', `apt-get update && apt-get install -y ${names}`], {
     stdio: 'inherit',
     env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
   });
-  if (result.status !== 0 || !existsSync('/usr/bin/chromium'))
-    throw new Error('Installing Chromium failed.');
+  if (result.status !== 0 || missing.some((entry) => !existsSync(entry.file)))
+    throw new Error(`Installing ${names} failed.`);
 }
 
 function run(
@@ -52,7 +60,7 @@ const bin = (name: string) => path.join(root, 'node_modules', '.bin', name);
 
 async function main() {
   ensurePostgresInstalled(say);
-  ensureChromium();
+  ensureDebianPackages();
 
   const failedSteps: string[] = [];
   if (!(await run('typecheck', bin('tsc'), ['--noEmit', '-p', 'tsconfig.json'])))
