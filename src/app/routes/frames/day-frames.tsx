@@ -1,5 +1,5 @@
-import type { QueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useEffect, useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
 import { SelectField } from '../../../components/ui/field';
@@ -26,8 +26,14 @@ export function DayFramesPage() {
   const { dayId = '' } = useParams();
   const { data } = useFramesOverview(dayId);
   const [filter, setFilter] = useState('');
+  const queryClient = useQueryClient();
+  const pending = data?.stations.some((station) => station.waiting + station.reading > 0) ?? false;
+  useEffect(() => {
+    // Reading just finished: the grid's last look may predate it.
+    if (!pending)
+      void queryClient.invalidateQueries({ queryKey: ['days', dayId, 'frames', 'list'] });
+  }, [pending, dayId, queryClient]);
   if (!data) return null;
-  const pending = data.stations.some((station) => station.waiting + station.reading > 0);
   return (
     <>
       <PageHeading title="Frames">

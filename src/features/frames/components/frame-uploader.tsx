@@ -169,7 +169,7 @@ export function FrameUploader({
                 Pause uploads
               </Button>
             )}
-            {problems.length > 0 && !snapshot.paused ? (
+            {snapshot.counts.failed > 0 && !snapshot.paused ? (
               <Button variant="secondary" onClick={() => queue.resume()}>
                 Try failed files again
               </Button>

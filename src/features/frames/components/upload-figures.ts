@@ -1,7 +1,8 @@
-/** Bytes as MB or GB with one decimal, for progress lines. */
+/** Bytes as KB, MB or GB, for progress lines. */
 export function formatBytes(bytes: number): string {
   if (bytes >= 1e9) return `${(bytes / 1e9).toFixed(1)} GB`;
-  return `${(bytes / 1e6).toFixed(1)} MB`;
+  if (bytes >= 1e6) return `${(bytes / 1e6).toFixed(1)} MB`;
+  return `${Math.ceil(bytes / 1e3)} KB`;
 }
 
 export function formatDuration(seconds: number): string {
