@@ -94,6 +94,8 @@ export function createApp(deps: AppDeps) {
           ? false
           : {
               directives: {
+                // The pass scanner's QR decoder is WebAssembly, bundled with the app.
+                'script-src': ["'self'", "'wasm-unsafe-eval'"],
                 'img-src': ["'self'", 'data:', 'blob:'],
                 'media-src': ["'self'", 'blob:'],
                 'upgrade-insecure-requests': null,

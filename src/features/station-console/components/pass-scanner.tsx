@@ -1,5 +1,15 @@
-import jsQR from 'jsqr';
 import { useEffect, useRef, useState } from 'react';
+import { prepareZXingModule, readBarcodes } from 'zxing-wasm/reader';
+import wasmUrl from 'zxing-wasm/reader/zxing_reader.wasm?url';
+
+// The decoder's .wasm is bundled with the app (and cached for offline use), never fetched from
+// a CDN: venue networks and offline tablets could not reach one.
+prepareZXingModule({
+  overrides: {
+    locateFile: (file: string, prefix: string) =>
+      file.endsWith('.wasm') ? wasmUrl : prefix + file,
+  },
+});
 
 /** How often a camera frame is decoded: often enough to feel instant, light on the battery. */
 const scanIntervalMs = 200;
@@ -7,7 +17,7 @@ const scanIntervalMs = 200;
 const sameCodePauseMs = 4000;
 
 /**
- * Reads a pass with the tablet's rear camera (facingMode "environment") and jsQR. Nothing here
+ * Reads a pass with the tablet's rear camera (facingMode "environment") and zxing-wasm. Nothing here
  * flashes: the video is shown as it is, with a still frame drawn around the scan area.
  */
 export function PassScanner({ onCode }: { onCode: (text: string) => void }) {
@@ -28,20 +38,27 @@ export function PassScanner({ onCode }: { onCode: (text: string) => void }) {
     const canvas = document.createElement('canvas');
     const context = canvas.getContext('2d', { willReadFrequently: true });
     let last = { text: '', at: 0 };
+    let busy = false;
 
-    const scan = () => {
+    const scan = async () => {
       const element = video.current;
-      if (!element || !context || element.readyState < 2 || element.videoWidth === 0) return;
-      canvas.width = element.videoWidth;
-      canvas.height = element.videoHeight;
-      context.drawImage(element, 0, 0);
-      const image = context.getImageData(0, 0, canvas.width, canvas.height);
-      const code = jsQR(image.data, image.width, image.height, { inversionAttempts: 'dontInvert' });
-      if (!code?.data) return;
-      const now = Date.now();
-      if (code.data === last.text && now - last.at < sameCodePauseMs) return;
-      last = { text: code.data, at: now };
-      onCodeRef.current(code.data);
+      if (busy || !element || !context || element.readyState < 2 || element.videoWidth === 0)
+        return;
+      busy = true;
+      try {
+        canvas.width = element.videoWidth;
+        canvas.height = element.videoHeight;
+        context.drawImage(element, 0, 0);
+        const image = context.getImageData(0, 0, canvas.width, canvas.height);
+        const [code] = await readBarcodes(image, { formats: ['QRCode'], maxNumberOfSymbols: 1 });
+        if (!code?.isValid || !code.text) return;
+        const now = Date.now();
+        if (code.text === last.text && now - last.at < sameCodePauseMs) return;
+        last = { text: code.text, at: now };
+        onCodeRef.current(code.text);
+      } finally {
+        busy = false;
+      }
     };
 
     navigator.mediaDevices
@@ -56,7 +73,7 @@ export function PassScanner({ onCode }: { onCode: (text: string) => void }) {
           video.current.srcObject = media;
           await video.current.play().catch(() => undefined);
         }
-        timer = setInterval(scan, scanIntervalMs);
+        timer = setInterval(() => void scan(), scanIntervalMs);
       })
       .catch(() =>
         setProblem('The camera is not available. Allow camera access, or search by name instead.'),
