@@ -72,10 +72,11 @@ export function toTaskList(handlers: JobHandlers): TaskList {
   return tasks;
 }
 
+// graphile-worker reports every finished job at "info": that is a debug detail here.
 const pinoLevels: Record<string, 'error' | 'warn' | 'info' | 'debug'> = {
   error: 'error',
   warning: 'warn',
-  info: 'info',
+  info: 'debug',
   debug: 'debug',
 };
 
