@@ -1,10 +1,9 @@
 import { createHash } from 'node:crypto';
 import { buffer as streamToBuffer } from 'node:stream/consumers';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createStorage } from '../../server/adapters/storage/create-storage';
 import { insertClient, insertOffice, insertStaff } from '../factories/accounts';
 import { insertDayWithStations } from '../factories/shoot-days';
-import { startS3Fake, type S3Fake } from '../setup/s3-fake';
+import { s3StorageFor, startS3Fake, type S3Fake } from '../setup/s3-fake';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { cameraJpeg, dcfName } from '../support/camera-cards';
 import { runQueuedJobs } from './booking-jobs';
@@ -21,16 +20,7 @@ let photographerEmail: string;
 
 beforeAll(async () => {
   fake = await startS3Fake();
-  const storage = createStorage(
-    {
-      kind: 's3',
-      bucket: fake.bucket,
-      region: fake.region,
-      endpoint: fake.endpoint,
-      forcePathStyle: true,
-    },
-    { credentials: fake.credentials },
-  );
+  const storage = s3StorageFor(fake);
   t = await startTestApp({ storage });
   const client = await insertClient(t.db);
   const office = await insertOffice(t.db, client.id);

@@ -14,7 +14,7 @@ import {
   type ObjectStorage,
 } from '../../server/adapters/storage/storage';
 import { AppError } from '../../server/lib/errors';
-import { startS3Fake } from '../setup/s3-fake';
+import { s3StorageFor, startS3Fake } from '../setup/s3-fake';
 
 const MiB = 1024 * 1024;
 
@@ -51,16 +51,7 @@ const implementations: Array<{ name: string; start(): Promise<Harness> }> = [
     name: 's3',
     async start() {
       const fake = await startS3Fake();
-      const storage = createStorage(
-        {
-          kind: 's3',
-          bucket: fake.bucket,
-          region: fake.region,
-          endpoint: fake.endpoint,
-          forcePathStyle: true,
-        },
-        { credentials: fake.credentials },
-      );
+      const storage = s3StorageFor(fake);
       if (!(storage instanceof S3Storage)) throw new Error('expected the S3 implementation');
       return {
         storage,

@@ -2,6 +2,7 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import S3rver from 's3rver';
+import { createStorage } from '../../server/adapters/storage/create-storage';
 
 export interface S3Fake {
   /** http://127.0.0.1:<port>, for S3_ENDPOINT (with path-style addressing). */
@@ -37,4 +38,18 @@ export async function startS3Fake(bucket = 'likeness-test'): Promise<S3Fake> {
       await rm(directory, { recursive: true, force: true });
     },
   };
+}
+
+/** The app's S3 storage pointed at a running fake. */
+export function s3StorageFor(fake: S3Fake) {
+  return createStorage(
+    {
+      kind: 's3',
+      bucket: fake.bucket,
+      region: fake.region,
+      endpoint: fake.endpoint,
+      forcePathStyle: true,
+    },
+    { credentials: fake.credentials },
+  );
 }

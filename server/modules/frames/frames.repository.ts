@@ -1,6 +1,11 @@
 import { sql, type Transaction } from 'kysely';
 import type { Db } from '../../db/database';
-import type { FrameFormat, FrameUploadStatus, IngestStatus } from '../../db/frame-types';
+import type {
+  FrameFormat,
+  FramesTable,
+  FrameUploadStatus,
+  IngestStatus,
+} from '../../db/frame-types';
 import type { Database } from '../../db/types';
 import type {
   FrameListQuery,
@@ -174,20 +179,21 @@ export async function markReading(db: Executor, id: string): Promise<void> {
     .execute();
 }
 
-export interface FrameReadingRecord {
-  previewKey: string | null;
-  thumbnailKey: string | null;
-  noPreview: boolean;
-  cameraSerial: string | null;
-  cameraMake: string | null;
-  cameraModel: string | null;
-  capturedLocal: string | null;
-  captureOffset: string | null;
-  orientation: number | null;
-  pixelWidth: number | null;
-  pixelHeight: number | null;
-  slateToken: string | null;
-}
+/** What reading a frame fills in on its row. */
+export type FrameReadingRecord = Pick<
+  FramesTable,
+  | 'previewKey'
+  | 'thumbnailKey'
+  | 'cameraSerial'
+  | 'cameraMake'
+  | 'cameraModel'
+  | 'capturedLocal'
+  | 'captureOffset'
+  | 'orientation'
+  | 'pixelWidth'
+  | 'pixelHeight'
+  | 'slateToken'
+> & { noPreview: boolean };
 
 export async function saveReading(db: Executor, id: string, reading: FrameReadingRecord) {
   await db
