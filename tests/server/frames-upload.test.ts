@@ -1,8 +1,12 @@
 import { createHash } from 'node:crypto';
 import { readdirSync } from 'node:fs';
 import { buffer as streamToBuffer } from 'node:stream/consumers';
+import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createLogger } from '../../server/lib/logger';
+import { frameTasks } from '../../server/modules/frames/frame-tasks';
+import { INGEST_FRAME_TASK } from '../../server/modules/frames/frames.service';
 import { insertClient, insertOffice, insertStaff } from '../factories/accounts';
 import { insertDayWithStations } from '../factories/shoot-days';
 import { startTestApp, type TestApp } from '../setup/test-app';
@@ -210,6 +214,42 @@ describe('uploading a card over tus (tus 1.0 resumable upload protocol)', () => 
       noPreview: true,
       pairedWithFrameId: null,
     });
+  });
+
+  it('accepts a HEIF frame (ISO/IEC 23008-12, AV1-coded: what sharp reads here)', async () => {
+    const bytes = await sharp(await cameraJpeg({ shade: 170 }))
+      .heif({ compression: 'av1' })
+      .toBuffer();
+    const cardPath = dcfName(104, 1, 'HPE_', 'HIF');
+    expect((await uploadWhole(photographer, cardPath, bytes)).status).toBe(204);
+    await runQueuedJobs(t);
+    const frame = (await frameRows()).find((row) => row.cardPath === cardPath);
+    expect(frame).toMatchObject({ format: 'heif', ingestStatus: 'read', noPreview: false });
+  });
+
+  it('reads a frame once however often its job runs (a retry after a crash)', async () => {
+    const bytes = await cameraJpeg({ shade: 33, serial: 'CV-RETRY' });
+    const cardPath = dcfName(105, 1);
+    await uploadWhole(photographer, cardPath, bytes);
+    const frame = (await frameRows()).find((row) => row.cardPath === cardPath)!;
+    const ingest = frameTasks({
+      db: t.db,
+      storage: t.storage,
+      maxPixels: 100_000_000,
+      logger: createLogger('silent'),
+    })[INGEST_FRAME_TASK]!;
+    // As if a worker died mid-read and the job came round again: both runs leave one good row.
+    await t.db
+      .updateTable('frames')
+      .set({ ingestStatus: 'reading' })
+      .where('id', '=', frame.id)
+      .execute();
+    await ingest({ frameId: frame.id }, { lastAttempt: false });
+    await ingest({ frameId: frame.id }, { lastAttempt: false });
+    await runQueuedJobs(t);
+    const rows = (await frameRows()).filter((row) => row.cardPath === cardPath);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatchObject({ ingestStatus: 'read', cameraSerial: 'CV-RETRY' });
   });
 
   it.each([

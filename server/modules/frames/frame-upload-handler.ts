@@ -11,6 +11,7 @@ import type { Viewer } from '../../lib/viewer';
 import type { FramesService } from './frames.service';
 
 export const UPLOAD_PATH = '/api/uploads';
+const DAY = 24 * 60 * 60 * 1000;
 
 /** The Node request behind tus's web Request (srvx keeps it at runtime.node.req). */
 function expressRequestOf(req: { runtime?: { node?: { req?: unknown } } }): Request {
@@ -46,7 +47,8 @@ export function mountFrameUploads(
   },
 ) {
   const { frames, folder, logger } = deps;
-  const store = new FileStore({ directory: folder });
+  // A file abandoned halfway (a laptop never reopened) is dropped after a week.
+  const store = new FileStore({ directory: folder, expirationPeriodInMilliseconds: 7 * DAY });
   const tus = new Server({
     path: UPLOAD_PATH,
     datastore: store,
@@ -75,6 +77,13 @@ export function mountFrameUploads(
       }
     },
   });
+
+  const sweep = () =>
+    tus.cleanUpExpiredUploads().catch((error: unknown) => {
+      logger.warn({ err: error }, 'could not remove expired uploads');
+    });
+  // Twice a day is plenty; the timer must not keep a stopping process alive.
+  setInterval(() => void sweep(), DAY / 2).unref();
 
   const checkAccess: RequestHandler = async (req: Request, res: Response, next: NextFunction) => {
     try {
