@@ -1,10 +1,12 @@
+import { useState } from 'react';
 import { formatFrame } from '../../../../server/schemas/console-rules';
 
 const keys = ['1', '2', '3', '4', '5', '6', '7', '8', '9', 'clear', '0', 'back'] as const;
 
 /**
  * A numeric keypad for the camera's frame number (DCF 0001-9999): big keys for one thumb,
- * no on-screen keyboard to cover the slate.
+ * no on-screen keyboard to cover the slate. A pre-filled number is replaced by the first digit
+ * typed, not appended to (0450 then 0-4-5-1 gives 0451, not 4510).
  */
 export function FrameKeypad({
   label,
@@ -17,9 +19,13 @@ export function FrameKeypad({
   onChange: (value: string) => void;
   error?: string | null;
 }) {
+  const [replaceNext, setReplaceNext] = useState(value !== '');
   const press = (key: (typeof keys)[number]) => {
+    const replacing = replaceNext;
+    setReplaceNext(false);
     if (key === 'clear') onChange('');
     else if (key === 'back') onChange(value.slice(0, -1));
+    else if (replacing) onChange(key);
     else if (value.length < 4) onChange(value + key);
   };
   return (
@@ -60,4 +66,23 @@ export function parseFrame(value: string): { frame: number } | { error: string }
   if (!value || !Number.isInteger(frame)) return { error: 'Enter the frame number.' };
   if (frame < 1 || frame > 9999) return { error: 'Frame numbers run from 0001 to 9999.' };
   return { frame };
+}
+
+/** How far a typed number may sit from the expected one before the console asks. */
+const FAR_FRAMES = 300;
+
+/**
+ * Why a typed frame number deserves a second look, or null: far from the expected number
+ * (counting a rollover past 9999 as near), or below it, which happens only after a card change.
+ */
+export function frameDoubt(typed: number, expected: number | null): string | null {
+  if (expected === null) return null;
+  const forward = (typed - expected + 9999) % 9999;
+  if (typed < expected && forward > FAR_FRAMES) {
+    return `${formatFrame(typed)} is below the expected ${formatFrame(expected)}. Did the card change?`;
+  }
+  if (forward > FAR_FRAMES) {
+    return `${formatFrame(typed)} is far from the expected ${formatFrame(expected)}. Check the camera's number.`;
+  }
+  return null;
 }

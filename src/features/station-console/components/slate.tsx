@@ -1,7 +1,7 @@
 import QRCode from 'qrcode';
 import { useEffect, useState } from 'react';
 import { Button } from '../../../components/ui/button';
-import { FrameKeypad, parseFrame } from './frame-keypad';
+import { FrameKeypad, frameDoubt, parseFrame } from './frame-keypad';
 
 /**
  * The slate: the sitter's name in large type and a QR code with the sitting's token, filling
@@ -27,6 +27,7 @@ export function Slate({
   const [code, setCode] = useState<string | null>(null);
   const [frame, setFrame] = useState(expectedFrame === null ? '' : String(expectedFrame));
   const [error, setError] = useState<string | null>(null);
+  const [doubtAccepted, setDoubtAccepted] = useState<number | null>(null);
   useEffect(() => {
     let current = true;
     void QRCode.toString([{ data: slateToken, mode: 'alphanumeric' }], {
@@ -42,10 +43,15 @@ export function Slate({
     };
   }, [slateToken]);
 
+  const parsedFrame = parseFrame(frame);
+  const doubt = 'frame' in parsedFrame ? frameDoubt(parsedFrame.frame, expectedFrame) : null;
   const start = () => {
-    const parsed = parseFrame(frame);
-    if ('error' in parsed) setError(parsed.error);
-    else onStart(parsed.frame);
+    if ('error' in parsedFrame) setError(parsedFrame.error);
+    // A doubtful number needs a second press: the first shows why.
+    else if (doubt && doubtAccepted !== parsedFrame.frame) {
+      setError(doubt);
+      setDoubtAccepted(parsedFrame.frame);
+    } else onStart(parsedFrame.frame);
   };
 
   return (
@@ -83,11 +89,14 @@ export function Slate({
           onChange={(value) => {
             setFrame(value);
             setError(null);
+            setDoubtAccepted(null);
           }}
           error={error}
         />
         <Button className="min-h-16 text-xl" onClick={start}>
-          Start sitting
+          {'frame' in parsedFrame && doubtAccepted === parsedFrame.frame
+            ? `Yes, start at ${frame.padStart(4, '0')}`
+            : 'Start sitting'}
         </Button>
         <Button variant="secondary" onClick={onCancel}>
           Back to the queue
