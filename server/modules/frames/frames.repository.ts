@@ -87,20 +87,21 @@ export async function findFrameByContent(
   return row?.id;
 }
 
-export interface NewFrame {
-  id: string;
-  dayId: string;
-  stationId: string;
-  uploadedByUserId: string | null;
-  cardPath: string;
-  contentSha256: string;
-  byteSize: number;
-  format: FrameFormat;
-  originalKey: string;
-  dcfFolder: number | null;
-  dcfNumber: number | null;
-  dcfStem: string | null;
-}
+/** A frame's row as the upload writes it; reading fills in the rest later. */
+export type NewFrame = Pick<
+  FramesTable,
+  | 'id'
+  | 'dayId'
+  | 'stationId'
+  | 'uploadedByUserId'
+  | 'cardPath'
+  | 'contentSha256'
+  | 'format'
+  | 'originalKey'
+  | 'dcfFolder'
+  | 'dcfNumber'
+  | 'dcfStem'
+> & { byteSize: number };
 
 /** Inserts the frame; a concurrent twin (same day, path and content) makes this return false. */
 export async function insertFrame(trx: Executor, frame: NewFrame): Promise<boolean> {
