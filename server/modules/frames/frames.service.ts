@@ -3,7 +3,7 @@ import type { Readable } from 'node:stream';
 import type { ObjectStorage } from '../../adapters/storage/storage';
 import type { Db } from '../../db/database';
 import { addJob } from '../../jobs/job-queue';
-import { AppError, forbidden, notFound } from '../../lib/errors';
+import { AppError, notFound } from '../../lib/errors';
 import { parseInput } from '../../lib/validate';
 import type { Viewer } from '../../lib/viewer';
 import {
@@ -14,7 +14,7 @@ import {
   type FrameUploadResult,
   type KnownFramesRequest,
 } from '../../schemas/frames';
-import { findDay } from '../days/days.repository';
+import { findStudioDay } from '../days/studio-day-access';
 import { parseDcfPath } from './reading/dcf-path';
 import { screenUploadedFile, sha256OfFile } from './frame-screening';
 import * as repo from './frames.repository';
@@ -36,17 +36,7 @@ export function createFramesService(deps: {
 }) {
   const { db, storage, limits } = deps;
 
-  async function dayFor(viewer: Viewer, dayId: string) {
-    const day = await findDay(db, dayId);
-    if (!day) throw notFound('That shoot day');
-    if (viewer.role === 'photographer') {
-      const assigned = day.stations.some((station) => station.photographerId === viewer.id);
-      if (!assigned) throw forbidden('You are not assigned to this shoot day.');
-    } else if (viewer.role !== 'studio_admin') {
-      throw forbidden('Only the studio works with a day’s frames.');
-    }
-    return day;
-  }
+  const dayFor = (viewer: Viewer, dayId: string) => findStudioDay(db, viewer, dayId);
 
   async function uploadOf(viewer: Viewer, uploadId: string) {
     const upload = await repo.findUpload(db, uploadId);

@@ -1,9 +1,9 @@
 import type { Db } from '../../db/database';
 import { recordAudit } from '../../lib/audit';
-import { AppError, forbidden, notFound } from '../../lib/errors';
+import { AppError, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import { setupCardSchema, type DaySetupCards, type SetupCard } from '../../schemas/setup-card';
-import { findDay } from '../days/days.repository';
+import { findStudioDay } from '../days/studio-day-access';
 import * as repo from './setup-cards.repository';
 
 export type SetupCardsService = ReturnType<typeof createSetupCardsService>;
@@ -12,15 +12,7 @@ export type SetupCardsService = ReturnType<typeof createSetupCardsService>;
 export function createSetupCardsService(deps: { db: Db }) {
   const { db } = deps;
 
-  async function assertDayAccess(viewer: Viewer, dayId: string) {
-    const day = await findDay(db, dayId);
-    if (!day) throw notFound('That shoot day');
-    const assigned = day.stations.some((station) => station.photographerId === viewer.id);
-    if (viewer.role === 'photographer' && !assigned) {
-      throw forbidden('You are not assigned to this shoot day.');
-    }
-    return day;
-  }
+  const assertDayAccess = (viewer: Viewer, dayId: string) => findStudioDay(db, viewer, dayId);
 
   async function stationFor(viewer: Viewer, stationId: string) {
     const station = await repo.findStation(db, stationId);
