@@ -27,6 +27,10 @@ export const newPasswordSchema = z
   .min(12, { error: 'Use at least 12 characters.' })
   .max(200, { error: 'Use at most 200 characters.' });
 
+/** C0 controls, DEL and C1 controls: never part of a name, a path or a label. */
+// eslint-disable-next-line no-control-regex
+export const controlCharacterPattern = /[\u0000-\u001f\u007f-\u009f]/;
+
 export const uuidSchema = z.uuid({ error: 'Not a valid identifier.' });
 
 export const apiErrorSchema = z.object({

@@ -1,15 +1,13 @@
 import { z } from 'zod';
-import { uuidSchema } from './common';
+import { controlCharacterPattern, uuidSchema } from './common';
 
 // Card paths come from the browser's folder upload: relative, forward slashes, printable.
-// eslint-disable-next-line no-control-regex
-const controlCharacters = /[\u0000-\u001f\u007f-\u009f]/;
 
 export const cardPathSchema = z
   .string({ error: 'Give the file’s path on the card.' })
   .min(1, { error: 'Give the file’s path on the card.' })
   .max(400, { error: 'That path on the card is too long (400 characters at most).' })
-  .refine((value) => !controlCharacters.test(value), {
+  .refine((value) => !controlCharacterPattern.test(value), {
     error: 'The path on the card contains control characters.',
   })
   .transform((value) => value.replace(/\\/g, '/').replace(/^\/+/, ''))

@@ -1,5 +1,6 @@
 import type { Readable } from 'node:stream';
 import { AppError } from '../../lib/errors';
+import { controlCharacterPattern } from '../../schemas/common';
 
 /**
  * Where frames, previews and thumbnails live. Keys are relative, slash-separated paths that the
@@ -60,10 +61,6 @@ export class StorageRangeNotSatisfiable extends AppError {
 
 const MAX_KEY_BYTES = 1024; // S3's own limit, applied to local storage too so keys stay portable.
 
-// Control characters (C0, DEL, C1) would make keys unsafe in logs, headers and file names.
-// eslint-disable-next-line no-control-regex
-const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f-\u009f]/;
-
 /**
  * Refuses keys that could escape the storage root or mean different things on disk and in S3:
  * empty, absolute, `.`/`..`/empty segments, backslashes, control characters, and segments starting
@@ -82,7 +79,7 @@ function findKeyProblem(key: string, what: 'key' | 'prefix'): string | null {
     return `is longer than ${MAX_KEY_BYTES} bytes`;
   if (key.startsWith('/')) return 'starts with "/"';
   if (key.includes('\\')) return 'contains "\\"';
-  if (CONTROL_CHARACTERS.test(key)) return 'contains a control character';
+  if (controlCharacterPattern.test(key)) return 'contains a control character';
   // A prefix may end with "/" (a whole folder); a key may not, since it would name a folder.
   const segments =
     what === 'prefix' && key.endsWith('/') ? key.slice(0, -1).split('/') : key.split('/');

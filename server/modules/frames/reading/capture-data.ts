@@ -1,4 +1,5 @@
 import exifr from 'exifr';
+import { controlCharacterPattern } from '../../../schemas/common';
 
 export interface CaptureData {
   /** 'YYYY-MM-DDTHH:MM:SS' plus '.fff' when the camera wrote sub-seconds; the camera's own clock. */
@@ -78,8 +79,7 @@ function offsetOf(value: string | null): string | null {
   return value && /^[+-]\d{2}:\d{2}$/.test(value) ? value : null;
 }
 
-// eslint-disable-next-line no-control-regex
-const controlCharacters = /[\u0000-\u001f\u007f-\u009f]/g;
+const controlCharacters = new RegExp(controlCharacterPattern.source, 'g');
 
 /** Camera strings are padded with NULs and spaces; keep at most 100 printable characters. */
 function text(value: unknown): string | null {
