@@ -44,7 +44,8 @@ const RETRY_DELAYS = [0, 1000, 3000, 5000, 10_000, 20_000, 30_000, 60_000, 60_00
  */
 export class UploadQueue {
   private files: QueuedFile[] = [];
-  private running = new Map<string, Upload>();
+  /** Files being sent; null while a file is still being checked (it counts as running). */
+  private running = new Map<string, Upload | null>();
   private listeners = new Set<() => void>();
   private samples: Array<{ at: number; sent: number }> = [];
   private paused = false;
@@ -80,7 +81,7 @@ export class UploadQueue {
   pause() {
     this.paused = true;
     for (const [key, upload] of this.running) {
-      void upload.abort();
+      void upload?.abort();
       this.update(key, { state: 'paused' });
     }
     this.running.clear();
@@ -118,7 +119,7 @@ export class UploadQueue {
       const next = this.files.find((item) => item.state === 'waiting');
       if (!next) return;
       next.state = 'checking';
-      this.running.set(next.key, placeholder);
+      this.running.set(next.key, null);
       void this.send(next);
     }
   }
@@ -136,7 +137,8 @@ export class UploadQueue {
           return;
         }
       }
-      if (this.running.get(item.key) !== placeholder) return;
+      // Paused while checking: the file waits for Resume.
+      if (this.running.get(item.key) !== null) return;
       const upload = new Upload(item.file, {
         endpoint: '/api/uploads',
         chunkSize: CHUNK_BYTES,
@@ -248,9 +250,6 @@ export class UploadQueue {
     };
   }
 }
-
-/** Marks a file whose upload is being prepared, so pump() counts it as running. */
-const placeholder = {} as Upload;
 
 function messageOf(response: { getBody(): string; getStatus(): number } | null): string {
   if (!response) return 'The upload failed.';
