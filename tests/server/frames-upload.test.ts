@@ -309,6 +309,26 @@ describe('uploading a card over tus (tus 1.0 resumable upload protocol)', () => 
     expect(JSON.parse(created.body).error.code).toBe('invalid_input');
   });
 
+  it('refuses bad input to the frames routes with a 4xx', async () => {
+    const admin = await signedInAgent(t, (await insertStaff(t.db)).email);
+    const known = `/api/days/${day.dayId}/frames/known`;
+    const sha = 'a'.repeat(64);
+    for (const body of [
+      { files: [{ cardPath: 'DCIM/100HPENG/A\u0000B_0001.JPG', sha256: sha }] },
+      { files: [{ cardPath: 'x'.repeat(5000), sha256: sha }] },
+      { files: [{ cardPath: 'DCIM/100HPENG/HPE_0001.JPG', sha256: 'not hex' }] },
+      { files: 'everything' },
+      { files: [{ cardPath: 42, sha256: sha }] },
+    ]) {
+      await admin.post(known).send(body).expect(400);
+    }
+    for (const query of ['page=0', 'page=abc', 'pageSize=100000', 'stationId=%00', 'status=lost']) {
+      await admin.get(`/api/days/${day.dayId}/frames?${query}`).expect(400);
+    }
+    await admin.get('/api/days/not-a-day/frames').expect(404);
+    await admin.get('/api/frames/not-a-frame/original').expect(404);
+  });
+
   it('keeps the JSON-only guard for the rest of the API', async () => {
     await request(t.app)
       .post('/api/session')

@@ -74,7 +74,7 @@ describe('previews', () => {
   });
 });
 
-describe('slates (QR codes, ISO/IEC 18004, decoded by zxing-wasm)', () => {
+describe('slates (QR codes, ISO/IEC 18004: drawn by the qrcode package, read back by zxing-wasm)', () => {
   it('finds the slate token in the preview of a 6000 × 4000 frame', async () => {
     const file = write('s.jpg', await cameraJpeg({ width: 6000, height: 4000, slateToken: token }));
     const reading = await readFrameFile({
