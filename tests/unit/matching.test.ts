@@ -111,6 +111,20 @@ describe('matching frames to sittings', () => {
     expect(result.matches.find((match) => match.frameId === 'shot')?.personId).toBe('person-one');
   });
 
+  it('takes a camera with no slate and no typed frame to run on the office clock', () => {
+    // The office is an hour ahead of UTC; the camera's clock reads local wall time.
+    const hour = 3_600_000;
+    const one = sitting('one', nine, { firstFrame: null });
+    const two = sitting('two', nine + 5 * 60_000, { firstFrame: null });
+    const frames = [frame('a', 10, nine + hour + 30_000), frame('b', 11, nine + hour + 6 * 60_000)];
+    const assumed = matchFrames({ sittings: [one, two], frames, assumedCameraOffset: hour });
+    expect(assumed.matches.map((match) => match.sittingId)).toEqual(['one', 'two']);
+    expect(assumed.cameraOffsets).toEqual({ 'CV-1': hour });
+    // Without the assumption there is no clock to go by: nothing is forced onto anyone.
+    const unknown = matchFrames({ sittings: [one, two], frames });
+    expect(unknown.matches.every((match) => match.sittingId === null)).toBe(true);
+  });
+
   it('reports a typed first frame that disagrees with the slate, and the slate wins', () => {
     const first = sitting('one', nine, { firstFrame: 4510 });
     const result = matchFrames({
@@ -155,13 +169,19 @@ describe('matching frames to sittings', () => {
         frame('test', 3, nine + 30_000),
       ],
       manual: [
-        { frameId: 'moved', sittingId: 'two' },
-        { frameId: 'test', sittingId: null },
+        { frameId: 'moved', personId: two.personId, sittingId: 'two' },
+        { frameId: 'test', personId: null, sittingId: null },
+        { frameId: 'gone', personId: two.personId, sittingId: 'two' },
       ],
     });
+    // A decision about a frame no longer on the day is ignored, not invented into a match.
+    expect(result.matches.map((match) => match.frameId)).toEqual(['slate', 'moved', 'test']);
     expect(result.matches.find((match) => match.frameId === 'moved')).toMatchObject({
       sittingId: 'two',
+      personId: two.personId,
       reason: 'manual',
+      // What the evidence alone says is kept, so an undo or a re-run can show it.
+      automatic: { sittingId: 'one', reason: 'after_slate' },
     });
     expect(result.matches.find((match) => match.frameId === 'test')).toMatchObject({
       sittingId: null,

@@ -30,7 +30,9 @@ export interface MatchSitting {
 
 export interface ManualDecision {
   frameId: string;
-  /** null marks a test frame: it belongs to nobody. */
+  /** The person the frame was given to by hand; null marks a test frame: it belongs to nobody. */
+  personId: string | null;
+  /** That person's sitting, when they have one (a split may give frames to someone without). */
   sittingId: string | null;
 }
 
@@ -52,6 +54,8 @@ export interface FrameMatch {
   confidence: number;
   /** For a conflict: the sittings the evidence points at. */
   candidates?: string[];
+  /** Under a manual decision: what the evidence alone would have said. */
+  automatic?: FrameMatch;
 }
 
 export interface MatchResult {
@@ -111,6 +115,11 @@ export function matchFrames(input: {
   frames: MatchFrame[];
   sittings: MatchSitting[];
   manual?: ManualDecision[];
+  /**
+   * A camera with neither slates nor typed frame numbers is taken to run on the office's wall
+   * clock: this is that clock minus UTC in ms (cameras are usually set to local time).
+   */
+  assumedCameraOffset?: number;
 }): MatchResult {
   const sittingByToken = new Map(input.sittings.map((sitting) => [sitting.slateToken, sitting]));
   const sittingById = new Map(input.sittings.map((sitting) => [sitting.id, sitting]));
@@ -147,7 +156,7 @@ export function matchFrames(input: {
         const sitting = typedAt.get(`${frame.stationId}:${frame.number}`);
         return sitting && frame.capturedAt !== null ? [frame.capturedAt - sitting.startedAt] : [];
       });
-      offset = median(typed);
+      offset = median(typed) ?? input.assumedCameraOffset ?? null;
     }
     if (offset !== null) cameraOffsets[camera] = offset;
   }
@@ -302,13 +311,17 @@ export function matchFrames(input: {
 
   // 3. People's own decisions always win.
   for (const decision of input.manual ?? []) {
+    const automatic = decided.get(decision.frameId);
+    if (!automatic) continue; // a decision about a frame that is no longer part of the day
     const sitting = decision.sittingId ? sittingById.get(decision.sittingId) : undefined;
+    const personId = decision.personId ?? sitting?.personId ?? null;
     decided.set(decision.frameId, {
       frameId: decision.frameId,
-      sittingId: sitting?.id ?? null,
-      personId: sitting?.personId ?? null,
-      reason: sitting ? 'manual' : 'manual_test_frame',
+      sittingId: personId !== null && sitting?.personId === personId ? sitting.id : null,
+      personId,
+      reason: personId === null ? 'manual_test_frame' : 'manual',
       confidence: 1,
+      automatic,
     });
   }
 
