@@ -52,6 +52,11 @@ export interface SittingsTable {
   tabletFinishedAt: OptionalTimestamp;
   finishedByUserId: ColumnType<string | null, string | null | undefined, string | null>;
   undoneAt: OptionalTimestamp;
+  /** What was typed on the keypad; firstFrame/lastFrame may since have been corrected. */
+  typedFirstFrame: ColumnType<number | null, number | null | undefined, number | null>;
+  typedLastFrame: ColumnType<number | null, number | null | undefined, number | null>;
+  framesCorrectedAt: OptionalTimestamp;
+  framesCorrectedByUserId: ColumnType<string | null, string | null | undefined, string | null>;
 }
 
 export interface NoShowsTable {

@@ -65,6 +65,19 @@ export const consoleActionSchema = z.discriminatedUnion('kind', [
     sittingId: uuidSchema,
     lastFrame: frameNumber.nullable(),
   }),
+  z
+    .object({
+      ...envelope,
+      kind: z.literal('correct_frames'),
+      sittingId: uuidSchema,
+      // Only the numbers being corrected are sent; the other stays as it is.
+      firstFrame: frameNumber.optional(),
+      lastFrame: frameNumber.optional(),
+    })
+    .refine((value) => value.firstFrame !== undefined || value.lastFrame !== undefined, {
+      error: 'Enter the corrected first or last frame.',
+      path: ['firstFrame'],
+    }),
   z.object({
     ...envelope,
     kind: z.literal('mark_no_show'),
@@ -124,8 +137,14 @@ export interface SittingView {
   stationId: string;
   checkInId: string;
   slateToken: string;
+  /** The photographer's best numbers: as typed, or as corrected at the station. */
   firstFrame: number;
   lastFrame: number | null;
+  /** What was typed on the keypad when the sitting started and finished. */
+  typedFirstFrame: number;
+  typedLastFrame: number | null;
+  /** Set once the numbers were corrected; the typed ones then differ or were confirmed. */
+  framesCorrectedAt: string | null;
   startedAt: string;
   finishedAt: string | null;
 }

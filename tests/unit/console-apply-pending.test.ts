@@ -95,4 +95,84 @@ describe('what the console shows while changes wait', () => {
     ]);
     expect(back.entries[0]!.status).toBe('booked');
   });
+
+  it('shows a corrected first frame at once, keeping what was typed', () => {
+    const start = item({
+      kind: 'start_sitting',
+      sittingId: 's5',
+      checkInId: 'c5',
+      slateToken: 'A',
+      firstFrame: 4510,
+    });
+    const checkedIn = entry({
+      status: 'arrived',
+      checkIn: { id: 'c5', at: '2030-03-14T08:59:00Z', stationId: station, byName: null },
+    });
+    const shown = applyPending({ entries: [checkedIn], sittings: [] }, [
+      start,
+      item({ kind: 'correct_frames', sittingId: 's5', firstFrame: 451 }),
+      item({ kind: 'finish_sitting', sittingId: 's5', lastFrame: 466 }),
+    ]);
+    expect(shown.sittings[0]).toMatchObject({
+      firstFrame: 451,
+      lastFrame: 466,
+      typedFirstFrame: 4510,
+      typedLastFrame: 466,
+      framesCorrectedAt: '2030-03-14T09:01:00.000Z',
+      waiting: true,
+    });
+    expect(shown.entries[0]!.status).toBe('done');
+  });
+
+  it('corrects a saved sitting’s last frame, but not the last frame of one still open', () => {
+    const saved = {
+      id: 's6',
+      personId: 'person-1',
+      stationId: station,
+      checkInId: 'c6',
+      slateToken: 'A',
+      firstFrame: 100,
+      lastFrame: 112,
+      typedFirstFrame: 100,
+      typedLastFrame: 112,
+      framesCorrectedAt: null,
+      startedAt: '2030-03-14T08:50:00.000Z',
+      finishedAt: '2030-03-14T08:55:00.000Z',
+    };
+    const corrected = applyPending({ entries: [], sittings: [saved] }, [
+      item({ kind: 'correct_frames', sittingId: 's6', lastFrame: 121 }),
+    ]);
+    expect(corrected.sittings[0]).toMatchObject({ lastFrame: 121, typedLastFrame: 112 });
+    const open = applyPending({ entries: [], sittings: [{ ...saved, finishedAt: null }] }, [
+      item({ kind: 'correct_frames', sittingId: 's6', lastFrame: 121 }),
+    ]);
+    expect(open.sittings[0]).toMatchObject({ lastFrame: 112, waiting: false });
+  });
+
+  it('an undone finish drops the typed last frame with the last frame', () => {
+    const saved = {
+      id: 's7',
+      personId: 'person-1',
+      stationId: station,
+      checkInId: 'c7',
+      slateToken: 'A',
+      firstFrame: 200,
+      lastFrame: null,
+      typedFirstFrame: 200,
+      typedLastFrame: null,
+      framesCorrectedAt: null,
+      startedAt: '2030-03-14T08:50:00.000Z',
+      finishedAt: null,
+    };
+    const finish = item({ kind: 'finish_sitting', sittingId: 's7', lastFrame: 210 });
+    const shown = applyPending({ entries: [], sittings: [saved] }, [
+      finish,
+      item({ kind: 'undo', targetKey: finish.action.idempotencyKey }, { target: finish.action }),
+    ]);
+    expect(shown.sittings[0]).toMatchObject({
+      finishedAt: null,
+      lastFrame: null,
+      typedLastFrame: null,
+    });
+  });
 });

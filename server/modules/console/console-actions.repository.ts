@@ -141,6 +141,22 @@ export function findSitting(db: Executor, dayId: string, sittingId: string) {
     .executeTakeFirst();
 }
 
+/** The sittings a station may still correct: the one in the chair and the last one finished. */
+export async function findCorrectableSittingIds(db: Executor, dayId: string, stationId: string) {
+  const rows = await db
+    .selectFrom('sittings')
+    .select(['id', 'finishedAt'])
+    .where('dayId', '=', dayId)
+    .where('stationId', '=', stationId)
+    .where('undoneAt', 'is', null)
+    .orderBy(sql`finished_at desc nulls first`)
+    .orderBy('startedAt', 'desc')
+    .execute();
+  const open = rows.find((row) => row.finishedAt === null);
+  const lastFinished = rows.find((row) => row.finishedAt !== null);
+  return [open?.id, lastFinished?.id].filter((id): id is string => id !== undefined);
+}
+
 export function findActiveNoShow(db: Executor, bookingId: string) {
   return db
     .selectFrom('noShows')

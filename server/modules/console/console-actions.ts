@@ -10,13 +10,8 @@ import {
   type ConsoleAction,
   type ConsoleActionResult,
 } from '../../schemas/console';
-import {
-  formatFrame,
-  framesInSitting,
-  mayMarkNoShow,
-  mostFramesInSitting,
-  noShowAllowedFrom,
-} from '../../schemas/console-rules';
+import { mayMarkNoShow, noShowAllowedFrom } from '../../schemas/console-rules';
+import { correctFrames, implausibleFrames } from './console-frame-corrections';
 import { undoAction } from './console-undo';
 import * as repo from './console-actions.repository';
 import type { DayRecord } from './console.repository';
@@ -229,6 +224,7 @@ async function perform(context: ActionContext, action: ConsoleAction): Promise<s
           checkInId: found.id,
           slateToken: action.slateToken,
           firstFrame: action.firstFrame,
+          typedFirstFrame: action.firstFrame,
           startedAt: now,
           tabletStartedAt: context.tabletAt,
           startedByUserId: context.viewer.id,
@@ -242,16 +238,12 @@ async function perform(context: ActionContext, action: ConsoleAction): Promise<s
       if (sitting.finishedAt) {
         throw new AppError('already_finished', 409, 'This sitting is already finished.');
       }
-      if (
-        action.lastFrame != null &&
-        framesInSitting(sitting.firstFrame, action.lastFrame) > mostFramesInSitting
-      ) {
-        throw new AppError(
-          'implausible_last_frame',
-          400,
-          `The last frame ${formatFrame(action.lastFrame)} does not follow the first, ${formatFrame(sitting.firstFrame)}: check the camera's frame counter.`,
-          { fieldErrors: { lastFrame: ['Check the camera’s frame counter.'] } },
-        );
+      const implausible = implausibleFrames(sitting.firstFrame, action.lastFrame);
+      if (implausible) {
+        // The tablet offers to correct the first frame when it sees this code.
+        throw new AppError('implausible_last_frame', 400, implausible, {
+          fieldErrors: { lastFrame: ['Check the camera’s frame counter.'] },
+        });
       }
       await trx
         .updateTable('sittings')
@@ -260,10 +252,15 @@ async function perform(context: ActionContext, action: ConsoleAction): Promise<s
           tabletFinishedAt: context.tabletAt,
           finishedByUserId: context.viewer.id,
           lastFrame: action.lastFrame,
+          typedLastFrame: action.lastFrame,
         })
         .where('id', '=', sitting.id)
         .execute();
       return `Sitting finished for ${await personName(trx, sitting.personId)}.`;
+    }
+    case 'correct_frames': {
+      const { personId, range } = await correctFrames(context, action);
+      return `Frame numbers of ${await personName(trx, personId)} corrected: ${range}.`;
     }
     case 'mark_no_show': {
       const booking = await repo.findBookingOnDay(trx, day.id, action.bookingId);

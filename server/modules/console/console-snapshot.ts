@@ -27,6 +27,10 @@ export function buildQueue(input: {
     slateToken: row.slateToken,
     firstFrame: row.firstFrame,
     lastFrame: row.lastFrame,
+    // Rows written without typed numbers were never corrected: the numbers are as typed.
+    typedFirstFrame: row.typedFirstFrame ?? row.firstFrame,
+    typedLastFrame: row.framesCorrectedAt ? row.typedLastFrame : row.lastFrame,
+    framesCorrectedAt: row.framesCorrectedAt ? row.framesCorrectedAt.toISOString() : null,
     startedAt: row.startedAt.toISOString(),
     finishedAt: row.finishedAt ? row.finishedAt.toISOString() : null,
   }));

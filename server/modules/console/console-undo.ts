@@ -53,7 +53,13 @@ export async function undoAction(
       // Reopening fails on the station's one-open-sitting index if another has begun.
       await trx
         .updateTable('sittings')
-        .set({ finishedAt: null, tabletFinishedAt: null, finishedByUserId: null, lastFrame: null })
+        .set({
+          finishedAt: null,
+          tabletFinishedAt: null,
+          finishedByUserId: null,
+          lastFrame: null,
+          typedLastFrame: null,
+        })
         .where('id', '=', sitting.id)
         .execute();
       return 'Sitting reopened.';
@@ -69,6 +75,13 @@ export async function undoAction(
         throw new AppError('already_undone', 409, 'Already undone.');
       return 'No-show mark removed.';
     }
+    case 'correct_frames':
+      // The typed numbers are kept anyway; a wrong correction is put right by correcting again.
+      throw new AppError(
+        'cannot_undo',
+        409,
+        'A correction is not undone: correct the frame numbers again instead.',
+      );
     case 'undo':
       throw new AppError('cannot_undo', 409, 'An undo cannot itself be undone.');
   }

@@ -100,6 +100,9 @@ export function applyPending(
           slateToken: action.slateToken,
           firstFrame: action.firstFrame,
           lastFrame: null,
+          typedFirstFrame: action.firstFrame,
+          typedLastFrame: null,
+          framesCorrectedAt: null,
           startedAt: action.tabletAt,
           finishedAt: null,
           waiting: true,
@@ -112,9 +115,20 @@ export function applyPending(
         if (!sitting) return;
         sitting.finishedAt = action.tabletAt;
         sitting.lastFrame = action.lastFrame;
+        sitting.typedLastFrame = action.lastFrame;
         sitting.waiting = true;
         const entry = entryOfPerson(sitting.personId);
         if (entry) refresh(entry);
+        return;
+      }
+      case 'correct_frames': {
+        const sitting = sittings.find((item) => item.id === action.sittingId);
+        // The server refuses a last frame for an open sitting; show it the same way.
+        if (!sitting || (action.lastFrame !== undefined && sitting.finishedAt === null)) return;
+        if (action.firstFrame !== undefined) sitting.firstFrame = action.firstFrame;
+        if (action.lastFrame !== undefined) sitting.lastFrame = action.lastFrame;
+        sitting.framesCorrectedAt = action.tabletAt;
+        sitting.waiting = true;
         return;
       }
       case 'mark_no_show': {
@@ -144,7 +158,14 @@ export function applyPending(
       const sitting = sittings[index];
       if (!sitting) return;
       if (target.kind === 'start_sitting') sittings.splice(index, 1);
-      else Object.assign(sitting, { finishedAt: null, lastFrame: null, waiting: true });
+      else {
+        Object.assign(sitting, {
+          finishedAt: null,
+          lastFrame: null,
+          typedLastFrame: null,
+          waiting: true,
+        });
+      }
       const entry = entryOfPerson(sitting.personId);
       if (entry) refresh(entry);
     } else if (target.kind === 'mark_no_show') {

@@ -1,0 +1,98 @@
+import { recordAudit } from '../../lib/audit';
+import { AppError, notFound } from '../../lib/errors';
+import type { ConsoleAction } from '../../schemas/console';
+import { formatFrame, framesInSitting, mostFramesInSitting } from '../../schemas/console-rules';
+import type { ActionContext } from './console-actions';
+import * as repo from './console-actions.repository';
+
+type CorrectFrames = Extract<ConsoleAction, { kind: 'correct_frames' }>;
+
+/** Why a sitting's frame numbers do not fit together, or null when they do. */
+export function implausibleFrames(firstFrame: number, lastFrame: number | null): string | null {
+  if (lastFrame === null || framesInSitting(firstFrame, lastFrame) <= mostFramesInSitting) {
+    return null;
+  }
+  return `The last frame ${formatFrame(lastFrame)} does not follow the first, ${formatFrame(firstFrame)}: check the camera's frame counter.`;
+}
+
+/**
+ * Corrects a mistyped first or last frame of the sitting in the chair or the last one finished
+ * at this station. The typed numbers stay on the sitting beside the corrected ones, and the
+ * audit log keeps each correction's before and after.
+ */
+export async function correctFrames(context: ActionContext, action: CorrectFrames) {
+  const { trx, day, now, viewer } = context;
+  const sitting = await repo.findSitting(trx, day.id, action.sittingId);
+  if (!sitting || sitting.undoneAt) throw notFound('That sitting');
+  if (sitting.stationId !== action.stationId) {
+    throw new AppError(
+      'other_station',
+      409,
+      'This sitting was taken at another station. Correct it on that station’s tablet.',
+    );
+  }
+  const correctable = await repo.findCorrectableSittingIds(trx, day.id, sitting.stationId);
+  if (!correctable.includes(sitting.id)) {
+    throw new AppError(
+      'too_late_to_correct',
+      409,
+      'Only the sitting in the chair and the last one finished can be corrected at the station.',
+    );
+  }
+  if (action.lastFrame !== undefined && !sitting.finishedAt) {
+    throw new AppError(
+      'sitting_open',
+      409,
+      'This sitting is still in the chair: enter the last frame when you finish it.',
+    );
+  }
+  const firstFrame = action.firstFrame ?? sitting.firstFrame;
+  const lastFrame = action.lastFrame ?? sitting.lastFrame;
+  const changed = action.firstFrame !== undefined ? 'firstFrame' : 'lastFrame';
+  if (firstFrame === sitting.firstFrame && lastFrame === sitting.lastFrame) {
+    throw new AppError(
+      'nothing_to_correct',
+      400,
+      'These are already the sitting’s frame numbers.',
+      {
+        fieldErrors: { [changed]: ['This is the number already recorded.'] },
+      },
+    );
+  }
+  const implausible = implausibleFrames(firstFrame, lastFrame);
+  if (implausible) {
+    throw new AppError('implausible_frames', 400, implausible, {
+      fieldErrors: { [changed]: ['Check the camera’s frame counter.'] },
+    });
+  }
+  await trx
+    .updateTable('sittings')
+    .set({
+      firstFrame,
+      lastFrame,
+      // Rows written before typed numbers were kept: what stood there was what was typed.
+      typedFirstFrame: sitting.typedFirstFrame ?? sitting.firstFrame,
+      framesCorrectedAt: now,
+      framesCorrectedByUserId: viewer.id,
+    })
+    .where('id', '=', sitting.id)
+    .execute();
+  await recordAudit(trx, {
+    actorUserId: viewer.id,
+    action: 'sitting.frames_corrected',
+    subjectType: 'sitting',
+    subjectId: sitting.id,
+    details: {
+      dayId: day.id,
+      stationId: sitting.stationId,
+      idempotencyKey: action.idempotencyKey,
+      before: { firstFrame: sitting.firstFrame, lastFrame: sitting.lastFrame },
+      after: { firstFrame, lastFrame },
+    },
+  });
+  const range =
+    lastFrame === null
+      ? `from ${formatFrame(firstFrame)}`
+      : `${formatFrame(firstFrame)}–${formatFrame(lastFrame)}`;
+  return { personId: sitting.personId, range };
+}
