@@ -13,6 +13,7 @@ import { createDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
 import { startDayJobsWorker } from '../server/jobs/day-jobs';
 import { frameTasks } from '../server/modules/frames/frame-tasks';
+import { matchingTasks } from '../server/modules/matching/matching-tasks';
 import { createLogger } from '../server/lib/logger';
 import {
   DEMO_PASSWORD,
@@ -150,7 +151,10 @@ async function main() {
   // Invitations, reminders, day-before mail and reading uploaded frames run on graphile-worker.
   const worker = await startDayJobsWorker(
     { db, databaseUrl, clock: systemClock, mailer, config, logger },
-    frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
+    {
+      ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
+      ...matchingTasks({ db, logger }),
+    },
   );
   cleanups.push(() => worker.stop());
   cleanups.push(

@@ -27,6 +27,8 @@ import { registerDaysRoutes } from './modules/days/days.routes';
 import { mountFrameUploads } from './modules/frames/frame-upload-handler';
 import { registerFramesRoutes } from './modules/frames/frames.routes';
 import { createFramesService } from './modules/frames/frames.service';
+import { registerMatchingRoutes } from './modules/matching/matching.routes';
+import { createMatchingService } from './modules/matching/matching.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { registerProgressRoutes } from './modules/progress/progress.routes';
 import { createProgressService } from './modules/progress/progress.service';
@@ -159,6 +161,7 @@ export function createApp(deps: AppDeps) {
   registerProgressRoutes(routes, progress, invitations);
   registerSetupCardsRoutes(routes, createSetupCardsService({ db }));
   registerFramesRoutes(routes, frames);
+  registerMatchingRoutes(routes, createMatchingService({ db }));
   registerConsoleRoutes(routes, createConsoleService({ db, clock }), deps.notifications);
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());

@@ -6,6 +6,7 @@ import type {
   StationActionsTable,
 } from './console-types';
 import type { FrameUploadsTable, FramesTable } from './frame-types';
+import type { FrameMatchesTable, MatchDecisionsTable, MatchRunsTable } from './match-types';
 import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
@@ -207,6 +208,9 @@ export interface Database {
   noShows: NoShowsTable;
   frameUploads: FrameUploadsTable;
   frames: FramesTable;
+  matchRuns: MatchRunsTable;
+  frameMatches: FrameMatchesTable;
+  matchDecisions: MatchDecisionsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -16,6 +16,8 @@ export type JobHandlers = Record<string, JobHandler>;
 export interface AddJobOptions {
   /** A second job with the same key, while the first still waits, replaces it (one run). */
   jobKey?: string;
+  /** 'preserve_run_at': a burst of adds keeps the first one's time, so the job is not starved. */
+  jobKeyMode?: 'replace' | 'preserve_run_at';
   maxAttempts?: number;
   runAt?: Date;
 }
@@ -45,6 +47,7 @@ export async function addJobs(
   const specs = jobs.map((job) => ({
     payload: job.payload ?? null,
     jobKey: job.jobKey ?? null,
+    jobKeyMode: job.jobKeyMode ?? 'replace',
     maxAttempts: job.maxAttempts ?? DEFAULT_MAX_ATTEMPTS,
     runAt: job.runAt?.toISOString() ?? null,
   }));
@@ -54,7 +57,8 @@ export async function addJobs(
       job -> 'payload',
       run_at => (job ->> 'runAt')::timestamptz,
       max_attempts => (job ->> 'maxAttempts')::int,
-      job_key => job ->> 'jobKey'
+      job_key => job ->> 'jobKey',
+      job_key_mode => job ->> 'jobKeyMode'
     )).id
     from json_array_elements(${JSON.stringify(specs)}::json) as job`.execute(db);
 }

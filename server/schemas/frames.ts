@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { controlCharacterPattern, uuidSchema } from './common';
+import type { MatchReasonName } from './matching';
 
 // Card paths come from the browser's folder upload: relative, forward slashes, printable.
 
@@ -44,6 +45,8 @@ export const frameListQuerySchema = z.object({
   status: z.enum(['waiting', 'reading', 'read', 'failed']).optional(),
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(500).default(100),
+  /** csv: every frame of the query (no paging), for a spreadsheet. */
+  format: z.enum(['json', 'csv'], { error: 'Ask for format=json or format=csv.' }).default('json'),
 });
 export type FrameListQuery = z.infer<typeof frameListQuerySchema>;
 
@@ -82,6 +85,13 @@ export interface FrameSummary {
   ingestStatus: IngestStatusName;
   ingestError: string | null;
   uploadedAt: string;
+  /** The sitter the frame belongs to now, by a person's decision or by the matcher. */
+  personId: string | null;
+  employeeId: string | null;
+  sitterName: string | null;
+  matchReason: MatchReasonName;
+  /** A person placed this frame (or marked it a test frame); re-running never changes it. */
+  manual: boolean;
 }
 
 export interface FramePage {

@@ -5,7 +5,7 @@ import {
   quoteCell,
   toCsv,
   toCsvRecord,
-} from '../../server/modules/roster/csv-export';
+} from '../../server/lib/csv';
 import { parseRosterFile } from '../../server/modules/roster/csv-decode';
 
 describe('OWASP CSV Injection: cells that start a formula are neutralised', () => {

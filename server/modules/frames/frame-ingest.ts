@@ -6,6 +6,7 @@ import { pipeline } from 'node:stream/promises';
 import type { ObjectStorage } from '../../adapters/storage/storage';
 import type { Db } from '../../db/database';
 import type { Logger } from '../../lib/logger';
+import { queueDayMatch } from '../matching/matching-tasks';
 import * as repo from './frames.repository';
 import { FrameReadError } from './reading/previews';
 import { readFrameFile } from './reading/read-frame';
@@ -51,24 +52,31 @@ export function createFrameIngest(deps: {
         await storage.put(previewKey, reading.preview, { contentType: 'image/jpeg' });
         await storage.put(thumbnailKey, reading.thumbnail, { contentType: 'image/jpeg' });
       }
-      await repo.saveReading(db, frame.id, {
-        previewKey,
-        thumbnailKey,
-        noPreview: reading.preview === null,
-        cameraSerial: reading.capture.cameraSerial,
-        cameraMake: reading.capture.make,
-        cameraModel: reading.capture.model,
-        capturedLocal: reading.capture.capturedLocal,
-        captureOffset: reading.capture.offset,
-        orientation: reading.capture.orientation,
-        pixelWidth: reading.width ?? reading.capture.pixelWidth,
-        pixelHeight: reading.height ?? reading.capture.pixelHeight,
-        slateToken: reading.slateTokens[0] ?? null,
+      await db.transaction().execute(async (trx) => {
+        await repo.saveReading(trx, frame.id, {
+          previewKey,
+          thumbnailKey,
+          noPreview: reading.preview === null,
+          cameraSerial: reading.capture.cameraSerial,
+          cameraMake: reading.capture.make,
+          cameraModel: reading.capture.model,
+          capturedLocal: reading.capture.capturedLocal,
+          captureOffset: reading.capture.offset,
+          orientation: reading.capture.orientation,
+          pixelWidth: reading.width ?? reading.capture.pixelWidth,
+          pixelHeight: reading.height ?? reading.capture.pixelHeight,
+          slateToken: reading.slateTokens[0] ?? null,
+        });
+        await queueDayMatch(trx, frame.dayId, 'frames');
       });
     } catch (error) {
       if (error instanceof FrameReadError || attempt.lastAttempt) {
         logger.warn({ err: error, frameId: frame.id }, 'frame could not be read');
-        await repo.saveFailure(db, frame.id, readableReason(error));
+        await db.transaction().execute(async (trx) => {
+          await repo.saveFailure(trx, frame.id, readableReason(error));
+          // A frame that cannot be read is still a frame of the day: it is shown as left over.
+          await queueDayMatch(trx, frame.dayId, 'frames');
+        });
         return;
       }
       throw error;

@@ -14,6 +14,9 @@ import type {
   DayFramesOverview,
 } from '../../schemas/frames';
 
+import type { MatchReasonName } from '../../schemas/matching';
+import { activeDecisionsQuery, matchedFrameKey, sitterName } from '../matching/matching.repository';
+
 type Executor = Db | Transaction<Database>;
 
 export interface UploadRecord {
@@ -229,10 +232,18 @@ export async function knownFiles(
   return rows.map((row) => ({ cardPath: row.cardPath, sha256: row.contentSha256 }));
 }
 
+/** The person a frame belongs to now: a standing decision, else what the matcher found. */
+const effectivePersonId = sql<string>`case
+  when decision.action = 'test_frame' then null
+  when decision.action is not null then decision.person_id
+  else auto.person_id end`;
+
+/** One page of the day's frames, or every frame when `paged` is false (the CSV). */
 export async function listFrames(
   db: Executor,
   dayId: string,
   query: FrameListQuery,
+  paged = true,
 ): Promise<{ frames: FrameSummary[]; total: number }> {
   let base = db.selectFrom('frames').where('frames.dayId', '=', dayId);
   if (query.stationId) base = base.where('frames.stationId', '=', query.stationId);
@@ -240,6 +251,12 @@ export async function listFrames(
   const [rows, count] = await Promise.all([
     base
       .innerJoin('stations', 'stations.id', 'frames.stationId')
+      // A raw file shares its JPEG's match: the JPEG is the frame that was matched.
+      .leftJoin('frameMatches as auto', (join) => join.on('auto.frameId', '=', matchedFrameKey))
+      .leftJoin(activeDecisionsQuery(db, dayId).as('decision'), (join) =>
+        join.on('decision.frameId', '=', matchedFrameKey),
+      )
+      .leftJoin('people as sitter', (join) => join.on('sitter.id', '=', effectivePersonId))
       .select([
         'frames.id',
         'frames.stationId',
@@ -272,14 +289,23 @@ export async function listFrames(
         'frames.ingestStatus',
         'frames.ingestError',
         'frames.uploadedAt',
+        'sitter.id as personId',
+        'sitter.employeeId',
+        sql<
+          string | null
+        >`case when sitter.id is null then null else ${sitterName('sitter')} end`.as('sitterName'),
+        sql<MatchReasonName>`case
+          when decision.action = 'test_frame' then 'manual_test_frame'
+          when decision.action is not null then 'manual'
+          else coalesce(auto.reason, 'not_read_yet') end`.as('matchReason'),
+        sql<boolean>`decision.action is not null`.as('manual'),
       ])
       .orderBy('stations.position')
       .orderBy('frames.dcfFolder')
       .orderBy('frames.dcfNumber')
       .orderBy('frames.cardPath')
       .orderBy('frames.id')
-      .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize)
+      .$if(paged, (qb) => qb.limit(query.pageSize).offset((query.page - 1) * query.pageSize))
       .execute(),
     base.select((eb) => eb.fn.countAll<string>().as('total')).executeTakeFirstOrThrow(),
   ]);

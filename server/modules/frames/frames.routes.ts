@@ -13,9 +13,18 @@ export function registerFramesRoutes(routes: RouteTable, frames: FramesService) 
     res.json(await frames.overview(viewerOf(req), parseId(req.params.dayId, 'That shoot day')));
   });
 
-  routes.add('get', '/days/:dayId/frames', studio, async (req, res) => {
+  // Coordinators may ask, and get counts only.
+  routes.add('get', '/days/:dayId/frames', [...studio, 'coordinator'], async (req, res) => {
     const query = parseInput(frameListQuerySchema, req.query);
-    res.json(await frames.list(viewerOf(req), parseId(req.params.dayId, 'That shoot day'), query));
+    const dayId = parseId(req.params.dayId, 'That shoot day');
+    if (query.format === 'csv') {
+      const csv = await frames.exportCsv(viewerOf(req), dayId, query);
+      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+      res.setHeader('Content-Disposition', `attachment; filename="frames-${dayId}.csv"`);
+      res.send(csv);
+      return;
+    }
+    res.json(await frames.list(viewerOf(req), dayId, query));
   });
 
   routes.add('post', '/days/:dayId/frames/known', studio, async (req, res) => {

@@ -3,7 +3,8 @@ import type { Readable } from 'node:stream';
 import type { ObjectStorage } from '../../adapters/storage/storage';
 import type { Db } from '../../db/database';
 import { addJob } from '../../jobs/job-queue';
-import { AppError, notFound } from '../../lib/errors';
+import { AppError, forbidden, notFound } from '../../lib/errors';
+import { toCsv } from '../../lib/csv';
 import { parseInput } from '../../lib/validate';
 import type { Viewer } from '../../lib/viewer';
 import {
@@ -14,7 +15,13 @@ import {
   type FrameUploadResult,
   type KnownFramesRequest,
 } from '../../schemas/frames';
+import type { DayFrameCounts } from '../../schemas/matching';
+import { findDay } from '../days/days.repository';
+import { staffMaySee } from '../days/days.service';
 import { findStudioDay } from '../days/studio-day-access';
+import { frameCounts } from '../matching/review-model';
+import { effectiveFrames } from '../matching/review.repository';
+import { frameCsvHeader, frameCsvRow } from './frame-csv';
 import { parseDcfPath } from './reading/dcf-path';
 import { screenUploadedFile, sha256OfFile } from './frame-screening';
 import * as repo from './frames.repository';
@@ -179,10 +186,30 @@ export function createFramesService(deps: {
       };
     },
 
-    async list(viewer: Viewer, dayId: string, query: FrameListQuery): Promise<FramePage> {
+    /** The day's frames with their sitters; a coordinator of the client sees counts only. */
+    async list(
+      viewer: Viewer,
+      dayId: string,
+      query: FrameListQuery,
+    ): Promise<FramePage | DayFrameCounts> {
+      if (viewer.role === 'coordinator') {
+        const day = await findDay(db, dayId);
+        if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
+        return { dayId: day.id, counts: frameCounts(await effectiveFrames(db, day.id)) };
+      }
       const day = await dayFor(viewer, dayId);
       const { frames, total } = await repo.listFrames(db, day.id, query);
       return { frames, total, page: query.page, pageSize: query.pageSize };
+    },
+
+    /** Every frame of the query as CSV rows (header first), for the studio's spreadsheet. */
+    async exportCsv(viewer: Viewer, dayId: string, query: FrameListQuery): Promise<string> {
+      if (viewer.role === 'coordinator') {
+        throw forbidden('Coordinators see how many frames are matched, not the frames.');
+      }
+      const day = await dayFor(viewer, dayId);
+      const { frames } = await repo.listFrames(db, day.id, query, false);
+      return toCsv([frameCsvHeader, ...frames.map(frameCsvRow)]);
     },
 
     /** Streams a frame's thumbnail, preview or original after checking the viewer may see it. */

@@ -11,7 +11,7 @@ import {
 import type { savePersonRequestSchema } from '../../schemas/roster';
 import type { z } from 'zod';
 import { assertClientAccess } from '../roster/client-access';
-import { toCsv } from '../roster/csv-export';
+import { toCsv } from '../../lib/csv';
 import { rosterFieldLabels } from '../../schemas/roster';
 import * as repo from './people.repository';
 

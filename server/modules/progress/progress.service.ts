@@ -6,7 +6,7 @@ import * as bookingRepo from '../booking/booking.repository';
 import * as daysRepo from '../days/days.repository';
 import type { DaysService } from '../days/days.service';
 import { wallClockAt } from '../days/zoned-time';
-import { toCsv } from '../roster/csv-export';
+import { toCsv } from '../../lib/csv';
 
 export type ProgressService = ReturnType<typeof createProgressService>;
 

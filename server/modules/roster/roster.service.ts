@@ -18,7 +18,7 @@ import {
 } from '../../schemas/roster';
 import { assertClientAccess } from './client-access';
 import { mappingToRemember, normaliseHeader, suggestMapping } from './column-mapping';
-import { toCsv } from './csv-export';
+import { toCsv } from '../../lib/csv';
 import { parseRosterFile } from './csv-decode';
 import { diffRoster } from './roster-diff';
 import { checkRows } from './roster-rows';
