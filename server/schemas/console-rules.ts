@@ -30,6 +30,14 @@ export function formatFrame(frame: number): string {
   return String(frame).padStart(4, '0');
 }
 
+/** Why a sitting's last frame cannot follow its first, or null when it can (or is unknown). */
+export function implausibleFrames(firstFrame: number, lastFrame: number | null): string | null {
+  if (lastFrame === null || framesInSitting(firstFrame, lastFrame) <= mostFramesInSitting) {
+    return null;
+  }
+  return `The last frame ${formatFrame(lastFrame)} does not follow the first, ${formatFrame(firstFrame)}: check the camera's frame counter.`;
+}
+
 /**
  * The frame number the camera should show next on a station: one after the last frame of its
  * latest sitting. When the latest sitting ended without a last frame we cannot know how many

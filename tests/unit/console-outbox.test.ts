@@ -137,4 +137,40 @@ describe('offline outbox', () => {
     expect(outbox.getState().signedOut).toBe(false);
     outbox.stop();
   });
+
+  it('offers to correct the first frame when the server refuses a last frame, and only then', async () => {
+    const sittingId = randomUUID();
+    const finish = (lastFrame: number | null) => ({
+      label: `finish at ${lastFrame}`,
+      action: {
+        kind: 'finish_sitting',
+        idempotencyKey: randomUUID(),
+        stationId,
+        tabletAt: new Date().toISOString(),
+        sittingId,
+        lastFrame,
+      } satisfies ConsoleAction,
+    });
+    const outbox = new Outbox(
+      'day',
+      async (item) => {
+        if (item.label === 'finish at 466') {
+          throw new ApiError(400, 'implausible_last_frame', 'The last frame 0466 does not follow.');
+        }
+        throw new ApiError(409, 'already_finished', 'This sitting is already finished.');
+      },
+      async () => undefined,
+    );
+    await outbox.submit(finish(466));
+    await outbox.submit(finish(null));
+    await vi.waitFor(() => expect(outbox.getState().notices).toHaveLength(2));
+    expect(outbox.getState().notices.map(({ text, fix }) => ({ text, fix }))).toEqual([
+      {
+        text: 'Not saved — finish at 466: The last frame 0466 does not follow.',
+        fix: { sittingId, lastFrame: 466 },
+      },
+      { text: 'Not saved — finish at null: This sitting is already finished.', fix: undefined },
+    ]);
+    outbox.stop();
+  });
 });

@@ -10,8 +10,8 @@ import {
   type ConsoleAction,
   type ConsoleActionResult,
 } from '../../schemas/console';
-import { mayMarkNoShow, noShowAllowedFrom } from '../../schemas/console-rules';
-import { correctFrames, implausibleFrames } from './console-frame-corrections';
+import { implausibleFrames, mayMarkNoShow, noShowAllowedFrom } from '../../schemas/console-rules';
+import { correctFrames } from './console-frame-corrections';
 import { undoAction } from './console-undo';
 import * as repo from './console-actions.repository';
 import type { DayRecord } from './console.repository';

@@ -1,19 +1,11 @@
 import { recordAudit } from '../../lib/audit';
 import { AppError, notFound } from '../../lib/errors';
 import type { ConsoleAction } from '../../schemas/console';
-import { formatFrame, framesInSitting, mostFramesInSitting } from '../../schemas/console-rules';
+import { formatFrame, implausibleFrames } from '../../schemas/console-rules';
 import type { ActionContext } from './console-actions';
 import * as repo from './console-actions.repository';
 
 type CorrectFrames = Extract<ConsoleAction, { kind: 'correct_frames' }>;
-
-/** Why a sitting's frame numbers do not fit together, or null when they do. */
-export function implausibleFrames(firstFrame: number, lastFrame: number | null): string | null {
-  if (lastFrame === null || framesInSitting(firstFrame, lastFrame) <= mostFramesInSitting) {
-    return null;
-  }
-  return `The last frame ${formatFrame(lastFrame)} does not follow the first, ${formatFrame(firstFrame)}: check the camera's frame counter.`;
-}
 
 /**
  * Corrects a mistyped first or last frame of the sitting in the chair or the last one finished

@@ -5,9 +5,11 @@ import type { OutboxNotice } from '../offline/outbox';
 export function Notices({
   notices,
   onDismiss,
+  onFix,
 }: {
   notices: OutboxNotice[];
   onDismiss: (id: string) => void;
+  onFix: (noticeId: string, fix: NonNullable<OutboxNotice['fix']>) => void;
 }) {
   return (
     <div aria-live="polite" className="flex flex-col gap-2">
@@ -15,13 +17,18 @@ export function Notices({
         <div
           key={notice.id}
           role={notice.tone === 'danger' ? 'alert' : 'status'}
-          className={`flex items-center gap-3 rounded-control border-l-4 px-4 py-2 text-lg ${
+          className={`flex flex-wrap items-center gap-3 rounded-control border-l-4 px-4 py-2 text-lg ${
             notice.tone === 'danger'
               ? 'border-danger-600 bg-danger-50 text-danger-700'
               : 'border-success-600 bg-success-50 text-ink'
           }`}
         >
           <p className="flex-1">{notice.text}</p>
+          {notice.fix ? (
+            <Button variant="secondary" onClick={() => onFix(notice.id, notice.fix!)}>
+              Correct the first frame
+            </Button>
+          ) : null}
           <Button variant="quiet" onClick={() => onDismiss(notice.id)}>
             Dismiss
           </Button>

@@ -7,12 +7,15 @@ import { useConsoleSnapshot } from '../api/get-console-snapshot';
 import { useConsoleEvents } from '../live/use-console-events';
 import { useWakeLock } from '../live/use-wake-lock';
 import { applyPending, type ShownEntry, type ShownSitting } from '../model/apply-pending';
+import { correctableSittings } from '../model/correctable-sittings';
 import { useBrowserOnline, useOutbox } from '../offline/use-outbox';
 import { CheckInPanel } from './check-in-panel';
+import { CorrectFrames } from './correct-frames';
 import { FinishSitting } from './finish-sitting';
 import { Notices } from './notices';
 import { QueueEntryCard } from './queue-entry';
 import { Slate } from './slate';
+import { StationFrames } from './station-frames';
 import { SyncIndicator } from './sync-indicator';
 import { UndoBar } from './undo-bar';
 import { useConsoleCommands } from './use-console-commands';
@@ -35,9 +38,12 @@ export function StationConsoleScreen({
   const [now, setNow] = useState(() => new Date());
   const [checkingIn, setCheckingIn] = useState(false);
   const [slate, setSlate] = useState<{ entry: ShownEntry; token: string } | null>(null);
-  const [finishing, setFinishing] = useState<{ entry: ShownEntry; sitting: ShownSitting } | null>(
-    null,
-  );
+  const [finishing, setFinishing] = useState<{
+    entry: ShownEntry;
+    sitting: ShownSitting;
+    refusedLastFrame?: number;
+  } | null>(null);
+  const [correcting, setCorrecting] = useState<{ name: string; sittingId: string } | null>(null);
   const [scope, setScope] = useState<'station' | 'all'>('station');
   useEffect(() => {
     // Re-read the clock so no-show buttons appear when their grace period ends.
@@ -94,6 +100,24 @@ export function StationConsoleScreen({
   const next =
     entries.find((entry) => entry.status === 'arrived') ??
     entries.find((entry) => entry.status === 'booked');
+  const nameOf = (sitting: ShownSitting) =>
+    shown.entries.find((entry) => entry.personId === sitting.personId)?.name ?? 'The sitter';
+  const { inChair, lastFinished } = correctableSittings(shown.sittings, stationId);
+  // Looked up on every render, so the dialog follows the sitting as changes are applied.
+  const correctingSitting = correcting
+    ? shown.sittings.find((sitting) => sitting.id === correcting.sittingId)
+    : undefined;
+  const fixRefusedFinish = (noticeId: string, fix: { sittingId: string; lastFrame: number }) => {
+    const sitting = shown.sittings.find((item) => item.id === fix.sittingId);
+    const entry = sitting && shown.entries.find((item) => item.personId === sitting.personId);
+    if (!sitting || !entry) return;
+    outbox.dismiss(noticeId);
+    if (sitting.finishedAt === null) {
+      setFinishing({ entry, sitting, refusedLastFrame: fix.lastFrame });
+    } else {
+      setCorrecting({ name: entry.name, sittingId: sitting.id });
+    }
+  };
   const flashCount = entries.filter(
     (entry) => entry.flashSensitive && ['booked', 'arrived', 'in_chair'].includes(entry.status),
   ).length;
@@ -138,7 +162,11 @@ export function StationConsoleScreen({
       </header>
       <main className="flex flex-1 flex-wrap gap-4 p-4">
         <section aria-label="Queue" className="flex min-w-80 flex-1 flex-col gap-3">
-          <Notices notices={state.notices} onDismiss={(id) => outbox.dismiss(id)} />
+          <Notices
+            notices={state.notices}
+            onDismiss={(id) => outbox.dismiss(id)}
+            onFix={fixRefusedFinish}
+          />
           {!data.canAct ? (
             <Notice>You can follow the console; only the studio can change it.</Notice>
           ) : null}
@@ -148,6 +176,13 @@ export function StationConsoleScreen({
               come: use continuous light and single exposures for them.
             </Notice>
           ) : null}
+          <StationFrames
+            inChair={inChair}
+            lastFinished={lastFinished}
+            nameOf={nameOf}
+            canAct={data.canAct}
+            onCorrect={(sitting) => setCorrecting({ name: nameOf(sitting), sittingId: sitting.id })}
+          />
           <div role="group" aria-label="Show" className="flex gap-2">
             {(['station', 'all'] as const).map((value) => (
               <button
@@ -225,11 +260,33 @@ export function StationConsoleScreen({
         <FinishSitting
           name={finishing.entry.name}
           firstFrame={finishing.sitting.firstFrame}
+          typedFirstFrame={finishing.sitting.typedFirstFrame}
+          refusedLastFrame={finishing.refusedLastFrame}
           onFinish={(lastFrame) => {
             commands.finishSitting(finishing.entry, finishing.sitting, lastFrame);
             setFinishing(null);
           }}
+          onCorrectFirstAndFinish={(firstFrame, lastFrame) => {
+            void commands.correctFirstAndFinish(
+              finishing.entry,
+              finishing.sitting,
+              firstFrame,
+              lastFrame,
+            );
+            setFinishing(null);
+          }}
           onCancel={() => setFinishing(null)}
+        />
+      ) : null}
+      {correcting && correctingSitting ? (
+        <CorrectFrames
+          name={correcting.name}
+          sitting={correctingSitting}
+          onSave={(correction) => {
+            commands.correctFrames(correcting.name, correctingSitting, correction);
+            setCorrecting(null);
+          }}
+          onCancel={() => setCorrecting(null)}
         />
       ) : null}
       {commands.undo ? (

@@ -4,6 +4,7 @@ import type { ShownConsole, ShownEntry, ShownSitting } from '../model/apply-pend
 import { newId, newSlateToken, sha256Hex } from '../model/ids';
 import type { OutboxItem } from '../model/outbox-item';
 import type { Outbox } from '../offline/outbox';
+import type { FrameCorrection } from './correct-frames';
 import type { NewPersonInput } from './new-person-form';
 
 type Body = ConsoleAction extends infer A
@@ -25,6 +26,8 @@ export function useConsoleCommands(outbox: Outbox, stationId: string, shown: Sho
     body: Body,
     label: string,
     extra: Pick<OutboxItem, 'personName' | 'passHash' | 'target'> = {},
+    // A correction is put right by correcting again, so it offers no undo.
+    undoable = true,
   ) {
     const action = {
       ...body,
@@ -38,7 +41,7 @@ export function useConsoleCommands(outbox: Outbox, stationId: string, shown: Sho
       outbox.note('danger', `Not saved — ${label}: this tablet could not store the change.`);
       return;
     }
-    if (action.kind === 'undo') return;
+    if (action.kind === 'undo' || !undoable) return;
     clearTimeout(undoTimer.current);
     setUndo({ key: action.idempotencyKey, label, target: action });
     undoTimer.current = setTimeout(() => setUndo(null), undoSeconds * 1000);
@@ -108,6 +111,32 @@ export function useConsoleCommands(outbox: Outbox, stationId: string, shown: Sho
     },
     finishSitting(entry: ShownEntry, sitting: ShownSitting, lastFrame: number | null) {
       void record(
+        { kind: 'finish_sitting', sittingId: sitting.id, lastFrame },
+        `finish the sitting of ${entry.name}`,
+      );
+    },
+    correctFrames(name: string, sitting: ShownSitting, correction: FrameCorrection) {
+      void record(
+        { kind: 'correct_frames', sittingId: sitting.id, ...correction },
+        `correct the frame numbers of ${name}`,
+        {},
+        false,
+      );
+    },
+    async correctFirstAndFinish(
+      entry: ShownEntry,
+      sitting: ShownSitting,
+      firstFrame: number,
+      lastFrame: number,
+    ) {
+      // Recorded one after the other, so the outbox sends the correction first.
+      await record(
+        { kind: 'correct_frames', sittingId: sitting.id, firstFrame },
+        `correct the first frame of ${entry.name}`,
+        {},
+        false,
+      );
+      await record(
         { kind: 'finish_sitting', sittingId: sitting.id, lastFrame },
         `finish the sitting of ${entry.name}`,
       );

@@ -7,6 +7,8 @@ export interface OutboxNotice {
   id: string;
   tone: 'success' | 'danger';
   text: string;
+  /** A refused last frame: the console offers to correct the first frame and finish. */
+  fix?: { sittingId: string; lastFrame: number };
 }
 
 export interface OutboxState {
@@ -58,8 +60,8 @@ export class Outbox {
     this.notify(tone, text);
   }
 
-  private notify(tone: OutboxNotice['tone'], text: string) {
-    const notice = { id: crypto.randomUUID(), tone, text };
+  private notify(tone: OutboxNotice['tone'], text: string, fix?: OutboxNotice['fix']) {
+    const notice: OutboxNotice = { id: crypto.randomUUID(), tone, text, ...(fix ? { fix } : {}) };
     this.set({ notices: [...this.state.notices, notice].slice(-4) });
     if (tone === 'success') setTimeout(() => this.dismiss(notice.id), 6000);
   }
@@ -135,7 +137,14 @@ export class Outbox {
           }
           await outboxStore.remove(next.action.idempotencyKey);
           this.mark(next, 'refused');
-          this.notify('danger', `Not saved — ${next.label}: ${error.message}`);
+          const { action } = next;
+          const fix =
+            error.code === 'implausible_last_frame' &&
+            action.kind === 'finish_sitting' &&
+            action.lastFrame !== null
+              ? { sittingId: action.sittingId, lastFrame: action.lastFrame }
+              : undefined;
+          this.notify('danger', `Not saved — ${next.label}: ${error.message}`, fix);
         } finally {
           this.inFlight = null;
         }
