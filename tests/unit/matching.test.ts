@@ -63,6 +63,30 @@ describe('matching frames to sittings', () => {
     expect(right / total).toBeGreaterThanOrEqual(0.995);
   });
 
+  it('matches every frame the same whatever order the files were read in', () => {
+    // Cards are usually read in shooting order; the matcher must not depend on it.
+    fc.assert(
+      fc.property(camerasAndCards, fc.boolean(), ({ seed, ...faults }, missing) => {
+        const day = generateDay(
+          { ...cleanDay, ...faults, missingSlates: missing ? 1 / 3 : 0, typos: 0.2 },
+          seeded(seed),
+        );
+        const random = seeded(seed + 1);
+        const shuffled = day.frames
+          .map((frame) => ({ frame, key: random() }))
+          .sort((a, b) => a.key - b.key)
+          .map(({ frame }) => frame);
+        const inOrder = matchFrames(day);
+        const outOfOrder = matchFrames({ ...day, frames: shuffled });
+        const byFrame = (matches: Array<{ frameId: string }>) =>
+          new Map(matches.map((match) => [match.frameId, match]));
+        expect(byFrame(outOfOrder.matches)).toEqual(byFrame(inOrder.matches));
+        expect(outOfOrder.cameraOffsets).toEqual(inOrder.cameraOffsets);
+      }),
+      { numRuns: 100 },
+    );
+  });
+
   const sitting = (
     id: string,
     startedAt: number,
