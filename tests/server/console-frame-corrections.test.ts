@@ -113,7 +113,7 @@ describe('correcting a mistyped first frame', () => {
     expect(corrected.body).toMatchObject({
       kind: 'correct_frames',
       replayed: false,
-      message: expect.stringMatching(/^Frame numbers of Ines Sample-\S+ corrected: from 0451\.$/),
+      message: expect.stringMatching(/^Corrected for Ines Sample-\S+: first frame 0451\.$/),
     });
     await post(action('finish_sitting', { stationId, sittingId, lastFrame: 466 })).expect(201);
 
@@ -194,7 +194,10 @@ describe('correcting a last frame', () => {
     const { sittingId } = await seated(500);
     const finish = action('finish_sitting', { stationId, sittingId, lastFrame: 512 });
     await post(finish).expect(201);
-    await post(action('correct_frames', { stationId, sittingId, lastFrame: 521 })).expect(201);
+    const corrected = await post(
+      action('correct_frames', { stationId, sittingId, lastFrame: 521 }),
+    ).expect(201);
+    expect(corrected.body.message).toMatch(/^Corrected for Ines Sample-\S+: last frame 0521\.$/);
     expect(await sittingRow(sittingId)).toMatchObject({
       firstFrame: 500,
       lastFrame: 521,

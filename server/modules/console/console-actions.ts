@@ -259,8 +259,8 @@ async function perform(context: ActionContext, action: ConsoleAction): Promise<s
       return `Sitting finished for ${await personName(trx, sitting.personId)}.`;
     }
     case 'correct_frames': {
-      const { personId, range } = await correctFrames(context, action);
-      return `Frame numbers of ${await personName(trx, personId)} corrected: ${range}.`;
+      const { personId, corrected } = await correctFrames(context, action);
+      return `Corrected for ${await personName(trx, personId)}: ${corrected}.`;
     }
     case 'mark_no_show': {
       const booking = await repo.findBookingOnDay(trx, day.id, action.bookingId);

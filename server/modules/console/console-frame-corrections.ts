@@ -82,9 +82,11 @@ export async function correctFrames(context: ActionContext, action: CorrectFrame
       after: { firstFrame, lastFrame },
     },
   });
-  const range =
-    lastFrame === null
-      ? `from ${formatFrame(firstFrame)}`
-      : `${formatFrame(firstFrame)}–${formatFrame(lastFrame)}`;
-  return { personId: sitting.personId, range };
+  const parts = [
+    action.firstFrame === undefined ? null : `first frame ${formatFrame(firstFrame)}`,
+    action.lastFrame === undefined || lastFrame === null
+      ? null
+      : `last frame ${formatFrame(lastFrame)}`,
+  ].filter((part) => part !== null);
+  return { personId: sitting.personId, corrected: parts.join(' and ') };
 }
