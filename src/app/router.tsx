@@ -119,6 +119,13 @@ export function createAppRouter(queryClient: QueryClient) {
               },
             },
             {
+              path: '/days/:dayId/review',
+              lazy: async () => {
+                const page = await import('./routes/frames/day-review');
+                return { Component: page.DayReviewPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/days/:dayId/sheet',
               lazy: async () => {
                 const page = await import('./routes/days/day-sheet');

@@ -1,11 +1,6 @@
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
-import {
-  neutraliseCell,
-  quoteCell,
-  toCsv,
-  toCsvRecord,
-} from '../../server/lib/csv';
+import { neutraliseCell, quoteCell, toCsv, toCsvRecord } from '../../server/lib/csv';
 import { parseRosterFile } from '../../server/modules/roster/csv-decode';
 
 describe('OWASP CSV Injection: cells that start a formula are neutralised', () => {

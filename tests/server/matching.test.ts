@@ -1,4 +1,4 @@
-import request from 'supertest';
+import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
 import { insertDayWithStations } from '../factories/shoot-days';

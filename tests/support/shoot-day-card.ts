@@ -27,6 +27,8 @@ export function planCard(options: {
   clockOffsetMs: number;
   firstNumber: number;
   withoutSlate?: number[];
+  /** One more frame of this sitting, shot just after it was finished on the console. */
+  lateFrameIn?: number;
   serial?: string;
 }): CardPlan {
   const serial = options.serial ?? 'CV-40117';
@@ -62,6 +64,7 @@ export function planCard(options: {
     for (let frame = 0; frame < options.framesPerSitting; frame += 1) {
       shot(startedAt + 30_000 + frame * 20_000, index);
     }
+    if (options.lateFrameIn === index) shot(startedAt + 4 * 60_000 + 20_000, index);
     sittings.push({
       index,
       slateToken,

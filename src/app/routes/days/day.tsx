@@ -71,6 +71,14 @@ export function DayPage() {
                 Frames (upload the cards)
               </Link>
             ) : null}
+            {session?.user.role !== 'coordinator' ? (
+              <Link
+                to={`/days/${day.id}/review`}
+                className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+              >
+                Frames by sitter (review the matching)
+              </Link>
+            ) : null}
             <a
               href={`/api/days/${day.id}/schedule.csv`}
               download

@@ -40,6 +40,10 @@ export function DayFramesPage() {
         {data.clientName}, {data.officeName} · {data.dayDate} ·{' '}
         <Link to={`/days/${dayId}`} className="text-spruce-700 underline">
           back to the day
+        </Link>{' '}
+        ·{' '}
+        <Link to={`/days/${dayId}/review`} className="text-spruce-700 underline">
+          frames by sitter
         </Link>
       </PageHeading>
       <div className="flex flex-col gap-5">

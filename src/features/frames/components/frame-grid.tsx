@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { ingestStatusLabels } from '../../../../server/schemas/frames';
+import { matchReasonLabels } from '../../../../server/schemas/matching';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { useFrames } from '../api/list-frames';
@@ -69,6 +70,9 @@ export function FrameGrid({
                   : ' (no sitting has this code)'}
               </span>
             ) : null}
+            <span className={frame.personId ? 'text-ink' : 'text-ink-muted'}>
+              {frame.sitterName ?? matchReasonLabels[frame.matchReason]}
+            </span>
             {frame.ingestError ? (
               <span className="text-danger-700">{frame.ingestError}</span>
             ) : null}
