@@ -274,6 +274,29 @@ describe('matching a day after its card is uploaded', () => {
     );
   });
 
+  it('says which automatic results a re-run changed, and which of them a decision pins', async () => {
+    // The middle sitting is undone at the station: its frames lose their sitter.
+    await t.db
+      .updateTable('sittings')
+      .set({ undoneAt: new Date() })
+      .where('slateToken', '=', plan.sittings[1]!.slateToken)
+      .execute();
+    await runQueuedJobs(t);
+    const body = await review();
+    expect(body.lastRun.cause).toBe('sittings');
+    const own = plan.files.filter((file) => file.sitting === 1);
+    expect(body.lastRun.changed).toBe(own.length);
+    const names = new Set(body.lastRun.changes.map((change: { from: string }) => change.from));
+    expect([...names]).toHaveLength(1);
+    // The two frames split off by hand earlier keep their person; the run says so.
+    expect(
+      body.lastRun.changes.filter((change: { pinned: boolean }) => change.pinned),
+    ).toHaveLength(2);
+    expect(body.sitters.map((sitter: { personId: string }) => sitter.personId)).not.toContain(
+      people[1]!.id,
+    );
+  });
+
   it('shows a coordinator counts only, and keeps other photographers out', async () => {
     const coordinator = await signedInAgent(t, coordinatorEmail);
     const counts = await coordinator.get(`/api/days/${day.dayId}/frames`).expect(200);
