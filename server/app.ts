@@ -28,6 +28,10 @@ import { mountFrameUploads } from './modules/frames/frame-upload-handler';
 import { registerFramesRoutes } from './modules/frames/frames.routes';
 import { createFramesService } from './modules/frames/frames.service';
 import { registerMatchingRoutes } from './modules/matching/matching.routes';
+import { createProofUrls } from './modules/proofs/proof-urls';
+import { registerProofsRoutes } from './modules/proofs/proofs.routes';
+import { proofsServiceFor } from './modules/proofs/proofs-wiring';
+import { createSitterProofsService } from './modules/proofs/sitter-proofs.service';
 import { createMatchingService } from './modules/matching/matching.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { registerProgressRoutes } from './modules/progress/progress.routes';
@@ -162,6 +166,16 @@ export function createApp(deps: AppDeps) {
   registerSetupCardsRoutes(routes, createSetupCardsService({ db }));
   registerFramesRoutes(routes, frames);
   registerMatchingRoutes(routes, createMatchingService({ db }));
+  registerProofsRoutes(
+    routes,
+    proofsServiceFor({ db, clock, mailer, auth }),
+    createSitterProofsService({
+      db,
+      clock,
+      storage: deps.storage,
+      urls: createProofUrls(config.proofUrls),
+    }),
+  );
   registerConsoleRoutes(routes, createConsoleService({ db, clock }), deps.notifications);
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());

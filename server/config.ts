@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -36,6 +37,9 @@ export const configSchema = z.object({
   S3_FORCE_PATH_STYLE: booleanFromEnv.default(false),
   UPLOAD_MAX_MB: z.coerce.number().int().min(1).max(10_000).default(200),
   UPLOAD_MAX_MEGAPIXELS: z.coerce.number().int().min(1).max(1000).default(100),
+  /** Signs proof-image URLs; set it when several app processes serve one site. */
+  URL_SIGNING_SECRET: z.string().min(32).optional(),
+  PROOF_URL_TTL_MINUTES: z.coerce.number().int().min(1).max(1440).default(60),
 });
 
 export type RawConfig = z.infer<typeof configSchema>;
@@ -55,6 +59,8 @@ export interface AppConfig {
   storage: StorageSettings;
   /** Files still arriving live in `folder` (tus); no file over maxBytes or maxPixels is kept. */
   uploads: { folder: string; maxBytes: number; maxPixels: number };
+  /** Proof previews are served through signed URLs that expire. */
+  proofUrls: { secret: string; ttlMs: number };
 }
 
 /**
@@ -99,6 +105,12 @@ export function toAppConfig(raw: RawConfig): AppConfig {
       folder: path.resolve(raw.LIKENESS_DATA_DIR, 'uploads-in-flight'),
       maxBytes: raw.UPLOAD_MAX_MB * 1_000_000,
       maxPixels: raw.UPLOAD_MAX_MEGAPIXELS * 1_000_000,
+    },
+    proofUrls: {
+      // Without a configured secret each process makes its own: a restart only means the
+      // proofs page asks for fresh URLs, which it does on every load anyway.
+      secret: raw.URL_SIGNING_SECRET ?? randomBytes(32).toString('hex'),
+      ttlMs: raw.PROOF_URL_TTL_MINUTES * MINUTE,
     },
   };
 }

@@ -16,7 +16,10 @@ export type IngestStatus = 'waiting' | 'reading' | 'read' | 'failed';
 export interface FrameUploadsTable {
   id: string;
   dayId: string;
-  stationId: string;
+  /** Set for a card's frame; a retouched final names its pick instead. */
+  stationId: string | null;
+  purpose: ColumnType<'frame' | 'final', 'frame' | 'final' | undefined, 'frame' | 'final'>;
+  pickId: ColumnType<string | null, string | null | undefined, string | null>;
   userId: string | null;
   cardPath: string;
   declaredSize: BigIntColumn;

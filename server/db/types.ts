@@ -7,6 +7,12 @@ import type {
 } from './console-types';
 import type { FrameUploadsTable, FramesTable } from './frame-types';
 import type { FrameMatchesTable, MatchDecisionsTable, MatchRunsTable } from './match-types';
+import type {
+  ClientProofSettingsTable,
+  DayProofsTable,
+  PicksTable,
+  StudioPicksTable,
+} from './proof-types';
 import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
@@ -174,7 +180,7 @@ export interface DayMailingsTable {
   id: Generated<string>;
   dayId: string;
   personId: string;
-  kind: 'invitation' | 'reminder' | 'day_before';
+  kind: 'invitation' | 'reminder' | 'day_before' | 'proofs' | 'proofs_reminder';
   round: Generated<number>;
   status: Generated<'queued' | 'sent' | 'failed'>;
   reason: string | null;
@@ -211,6 +217,10 @@ export interface Database {
   matchRuns: MatchRunsTable;
   frameMatches: FrameMatchesTable;
   matchDecisions: MatchDecisionsTable;
+  clientProofSettings: ClientProofSettingsTable;
+  dayProofs: DayProofsTable;
+  studioPicks: StudioPicksTable;
+  picks: PicksTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

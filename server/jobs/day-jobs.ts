@@ -8,6 +8,7 @@ import { createAuthService } from '../modules/auth/auth.service';
 import { createBookingService } from '../modules/booking/booking.service';
 import { createDaysService } from '../modules/days/days.service';
 import { createInvitationsService } from '../modules/invitations/invitations.service';
+import { proofsServiceFor } from '../modules/proofs/proofs-wiring';
 import { toTaskList, workerLogger, type JobHandlers } from './job-queue';
 
 export interface JobDeps {
@@ -34,8 +35,9 @@ export function createDayJobs(deps: JobDeps) {
     booking,
     issueSitterInvitationLink: (personId) => auth.issueSitterInvitationLink(personId),
   });
+  const proofs = proofsServiceFor({ ...deps, auth });
   return {
-    handlers: { ...invitations.handlers(), ...booking.handlers() },
+    handlers: { ...invitations.handlers(), ...booking.handlers(), ...proofs.handlers() },
     queueDueDayBefore: () => invitations.queueDueDayBefore(),
   };
 }

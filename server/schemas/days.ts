@@ -116,7 +116,13 @@ export const slotSchema = z.object({
 export type SlotWithSeats = z.infer<typeof slotSchema>;
 export type SlotList = { timeZone: string; slots: SlotWithSeats[] };
 
-export const mailingKinds = ['invitation', 'reminder', 'day_before'] as const;
+export const mailingKinds = [
+  'invitation',
+  'reminder',
+  'day_before',
+  'proofs',
+  'proofs_reminder',
+] as const;
 export type MailingKind = (typeof mailingKinds)[number];
 
 export interface MailingLog {

@@ -32,6 +32,16 @@ export const frameUploadMetadataSchema = z.object({
 });
 export type FrameUploadMetadata = z.infer<typeof frameUploadMetadataSchema>;
 
+/** A retouched final for a pick: its file name as the editor exported it. */
+export const finalUploadMetadataSchema = z.object({
+  purpose: z.literal('final'),
+  dayId: uuidSchema,
+  pickId: uuidSchema,
+  cardPath: cardPathSchema,
+  sha256: sha256Schema.optional(),
+});
+export type FinalUploadMetadata = z.infer<typeof finalUploadMetadataSchema>;
+
 /** Before uploading, the page asks which files the day already holds (by path and content). */
 export const knownFramesRequestSchema = z.object({
   files: z

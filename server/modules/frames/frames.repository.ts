@@ -13,16 +13,23 @@ import type {
   StationFrameProgress,
   DayFramesOverview,
 } from '../../schemas/frames';
-
 import type { MatchReasonName } from '../../schemas/matching';
-import { activeDecisionsQuery, matchedFrameKey, sitterName } from '../matching/matching.repository';
+import {
+  activeDecisionsQuery,
+  effectivePersonId,
+  matchedFrameKey,
+  sitterName,
+} from '../matching/matching.repository';
 
 type Executor = Db | Transaction<Database>;
 
 export interface UploadRecord {
   id: string;
   dayId: string;
-  stationId: string;
+  /** A card's frame names its station; a retouched final names its pick instead. */
+  stationId: string | null;
+  purpose: 'frame' | 'final';
+  pickId: string | null;
   userId: string | null;
   cardPath: string;
   declaredSize: number;
@@ -31,7 +38,11 @@ export interface UploadRecord {
   frameId: string | null;
 }
 
-export async function insertUpload(db: Executor, upload: Omit<UploadRecord, 'status' | 'frameId'>) {
+export async function insertUpload(
+  db: Executor,
+  upload: Omit<UploadRecord, 'status' | 'frameId' | 'purpose' | 'pickId'> &
+    Partial<Pick<UploadRecord, 'purpose' | 'pickId'>>,
+) {
   await db
     .insertInto('frameUploads')
     .values({ ...upload, declaredSize: upload.declaredSize })
@@ -45,6 +56,8 @@ export async function findUpload(db: Executor, id: string): Promise<UploadRecord
       'id',
       'dayId',
       'stationId',
+      'purpose',
+      'pickId',
       'userId',
       'cardPath',
       'declaredSize',
@@ -231,12 +244,6 @@ export async function knownFiles(
     .execute();
   return rows.map((row) => ({ cardPath: row.cardPath, sha256: row.contentSha256 }));
 }
-
-/** The person a frame belongs to now: a standing decision, else what the matcher found. */
-const effectivePersonId = sql<string>`case
-  when decision.action = 'test_frame' then null
-  when decision.action is not null then decision.person_id
-  else auto.person_id end`;
 
 /** One page of the day's frames, or every frame when `paged` is false (the CSV). */
 export async function listFrames(

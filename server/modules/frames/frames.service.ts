@@ -8,7 +8,9 @@ import { toCsv } from '../../lib/csv';
 import { parseInput } from '../../lib/validate';
 import type { Viewer } from '../../lib/viewer';
 import {
+  finalUploadMetadataSchema,
   frameUploadMetadataSchema,
+  type FinalUploadMetadata,
   type DayFramesOverview,
   type FrameListQuery,
   type FramePage,
@@ -36,10 +38,19 @@ export interface UploadLimits {
 export type FramesService = ReturnType<typeof createFramesService>;
 
 /** Frames belong to the studio: its admin, and the photographers working that day. */
+/** Retouched finals come back through the same resumable upload; their rules live elsewhere. */
+export interface FinalUploads {
+  /** Checks a final before its first byte is accepted: the day and pick it is for. */
+  check(viewer: Viewer, metadata: FinalUploadMetadata): Promise<void>;
+  /** The last byte has arrived: screen and store the final beside its pick's original. */
+  finish(upload: repo.UploadRecord, filePath: string): Promise<FrameUploadResult>;
+}
+
 export function createFramesService(deps: {
   db: Db;
   storage: ObjectStorage;
   limits: UploadLimits;
+  finals?: FinalUploads;
 }) {
   const { db, storage, limits } = deps;
 
@@ -62,9 +73,15 @@ export function createFramesService(deps: {
       viewer: Viewer,
       input: { metadata: Record<string, string | null>; declaredSize: number | null },
     ): Promise<string> {
-      const metadata = parseInput(frameUploadMetadataSchema, input.metadata);
+      const final = input.metadata.purpose === 'final';
+      const metadata = final
+        ? parseInput(finalUploadMetadataSchema, input.metadata)
+        : parseInput(frameUploadMetadataSchema, input.metadata);
       const day = await dayFor(viewer, metadata.dayId);
-      if (!day.stations.some((station) => station.id === metadata.stationId)) {
+      if ('pickId' in metadata) {
+        if (!deps.finals) throw new AppError('invalid_input', 400, 'Finals cannot be sent here.');
+        await deps.finals.check(viewer, metadata);
+      } else if (!day.stations.some((station) => station.id === metadata.stationId)) {
         throw new AppError('invalid_input', 400, 'That station is not part of this shoot day.');
       }
       const size = input.declaredSize;
@@ -82,7 +99,9 @@ export function createFramesService(deps: {
       await repo.insertUpload(db, {
         id,
         dayId: day.id,
-        stationId: metadata.stationId,
+        stationId: 'stationId' in metadata ? metadata.stationId : null,
+        purpose: 'pickId' in metadata ? 'final' : 'frame',
+        pickId: 'pickId' in metadata ? metadata.pickId : null,
         userId: viewer.id,
         cardPath: metadata.cardPath,
         declaredSize: size,
@@ -106,6 +125,12 @@ export function createFramesService(deps: {
     async finishUpload(uploadId: string, filePath: string): Promise<FrameUploadResult> {
       const upload = await repo.findUpload(db, uploadId);
       if (!upload) throw notFound('That upload');
+      if (upload.purpose === 'final') {
+        if (!deps.finals) throw notFound('That upload');
+        return deps.finals.finish(upload, filePath);
+      }
+      const stationId = upload.stationId;
+      if (!stationId) throw notFound('That upload');
       const sha256 = await sha256OfFile(filePath);
       if (upload.declaredSha256 && upload.declaredSha256 !== sha256) {
         return refuse(
@@ -131,7 +156,7 @@ export function createFramesService(deps: {
       const frame: repo.NewFrame = {
         id: frameId,
         dayId: upload.dayId,
-        stationId: upload.stationId,
+        stationId,
         uploadedByUserId: upload.userId,
         cardPath: upload.cardPath,
         contentSha256: sha256,
@@ -242,9 +267,19 @@ export function createFramesService(deps: {
   };
 
   async function refuse(uploadId: string, code: string, message: string): Promise<never> {
-    await repo.closeUpload(db, uploadId, { status: 'refused', refusal: message });
-    throw new AppError(code, 422, message);
+    return refuseUpload(db, uploadId, code, message);
   }
+}
+
+/** Records why an upload was refused and answers 422 with the same words. */
+export async function refuseUpload(
+  db: Db,
+  uploadId: string,
+  code: string,
+  message: string,
+): Promise<never> {
+  await repo.closeUpload(db, uploadId, { status: 'refused', refusal: message });
+  throw new AppError(code, 422, message);
 }
 
 function contentTypeOf(format: 'jpeg' | 'heif' | 'raw') {

@@ -71,6 +71,8 @@ export function createInvitationsService(deps: {
   async function sendMailing(mailingId: string, lastAttempt: boolean): Promise<void> {
     const mailing = await repo.findMailing(db, mailingId);
     if (!mailing || mailing.status !== 'queued') return; // already handled: never send twice
+    // Proof mail shares the log but is sent by the proofs module's own job.
+    if (mailing.kind === 'proofs' || mailing.kind === 'proofs_reminder') return;
     const day = await daysRepo.findDay(db, mailing.dayId);
     const now = clock.now();
     if (!day || !mailing.active) {

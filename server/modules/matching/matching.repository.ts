@@ -9,6 +9,15 @@ type Executor = Db | Transaction<Database>;
 /** The frame a raw file shares with its JPEG: the JPEG's id is the one matched. */
 export const matchedFrameKey = sql<string>`coalesce(frames.paired_with_frame_id, frames.id)`;
 
+/**
+ * The person a frame belongs to now: a standing decision, else what the matcher found. Needs
+ * the frame_matches row joined as `auto` and the active decision as `decision`.
+ */
+export const effectivePersonId = sql<string>`case
+  when decision.action = 'test_frame' then null
+  when decision.action is not null then decision.person_id
+  else auto.person_id end`;
+
 export const sitterName = (table: string) =>
   sql<string>`coalesce(${sql.ref(`${table}.preferred_name`)}, ${sql.ref(`${table}.given_name`)}) || ' ' || ${sql.ref(`${table}.family_name`)}`;
 

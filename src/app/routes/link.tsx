@@ -1,5 +1,5 @@
 import { useEffect, useRef } from 'react';
-import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { Card } from '../../components/ui/card';
 import { Notice } from '../../components/ui/notice';
 import { useRedeemSignInLink } from '../../features/auth/api/redeem-sign-in-link';
@@ -13,14 +13,18 @@ import { PublicFrame } from './public-frame';
 export function LinkPage() {
   const { token = '' } = useParams();
   const navigate = useNavigate();
+  const [search] = useSearchParams();
+  // Only a path of this site: never another origin (//host) or a scheme.
+  const requested = search.get('next') ?? '';
+  const next = /^\/(?!\/)[A-Za-z0-9/_-]*$/.test(requested) ? requested : '/';
   const redeem = useRedeemSignInLink();
   const started = useRef(false);
 
   useEffect(() => {
     if (started.current) return;
     started.current = true;
-    redeem.mutate(token, { onSuccess: () => navigate('/', { replace: true }) });
-  }, [token, redeem, navigate]);
+    redeem.mutate(token, { onSuccess: () => navigate(next, { replace: true }) });
+  }, [token, redeem, navigate, next]);
 
   return (
     <PublicFrame title={redeem.isError ? 'This link cannot sign you in' : 'Signing you in'}>

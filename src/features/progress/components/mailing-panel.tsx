@@ -3,7 +3,13 @@ import { Notice } from '../../../components/ui/notice';
 import { useMailings } from '../api/get-mailings';
 import { useQueueMailings } from '../api/queue-mailings';
 
-const kindLabel = { invitation: 'Invitation', reminder: 'Reminder', day_before: 'Day before' };
+const kindLabel = {
+  invitation: 'Invitation',
+  reminder: 'Reminder',
+  day_before: 'Day before',
+  proofs: 'Proofs ready',
+  proofs_reminder: 'Proofs reminder',
+};
 
 /** Sending happens in the background; this shows how far it got and each person's outcome. */
 export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: boolean }) {
