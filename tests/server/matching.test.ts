@@ -4,10 +4,11 @@ import { insertClient, insertOffice, insertPerson, insertStaff } from '../factor
 import { insertDayWithStations } from '../factories/shoot-days';
 import { insertSitting } from '../factories/sittings';
 import { startTestApp, type TestApp } from '../setup/test-app';
-import { cardFileBytes, planCard, type CardPlan } from '../support/shoot-day-card';
+import { planCard, type CardPlan } from '../support/shoot-day-card';
 import { runQueuedJobs } from './booking-jobs';
 import { signedInAgent } from './helpers';
-import { createUpload, openTusSession, patchUpload, type TusSession } from './tus-client';
+import { uploadCardAndMatch } from './card-upload';
+import { openTusSession, type TusSession } from './tus-client';
 
 // A generated card uploaded through tus, read by the ingest job and matched by the match job,
 // on the real database. The day is in March in London (UTC+00:00); the camera's clock runs an
@@ -94,18 +95,7 @@ beforeAll(async () => {
   }
   session = await openTusSession(t, photographer.email);
   agent = await signedInAgent(t, photographer.email);
-  for (const file of plan.files) {
-    const bytes = await cardFileBytes(file);
-    const created = await createUpload(
-      session,
-      { dayId: day.dayId, stationId: day.stations[0]!.id, cardPath: file.cardPath },
-      bytes.length,
-    );
-    expect(created.status, created.body).toBe(201);
-    const finished = await patchUpload(session, created.url!, 0, bytes);
-    expect(finished.status).toBe(204);
-  }
-  await runQueuedJobs(t);
+  await uploadCardAndMatch(t, session, { dayId: day.dayId, stationId: day.stations[0]!.id }, plan);
   for (const frame of await listFrames()) frameIdByPath.set(frame.cardPath, frame.id);
 }, 120_000);
 

@@ -17,6 +17,12 @@ export function deadlineWords(picksCloseAt: Date, timeZone: string): string {
   return `${when.replace(/, (\d\d:\d\d)$/, ' at $1')} (${timeZone} time)`;
 }
 
+/** "4 March 2027" for a calendar date. */
+const longDate = (date: string) =>
+  new Intl.DateTimeFormat('en-GB', { dateStyle: 'long', timeZone: 'UTC' }).format(
+    new Date(`${date}T12:00:00Z`),
+  );
+
 export function proofsMail(input: {
   kind: 'proofs' | 'proofs_reminder';
   to: string;
@@ -32,7 +38,7 @@ export function proofsMail(input: {
     heading: `Hello ${input.name},`,
     paragraphs: [
       input.kind === 'proofs'
-        ? `Your ${input.day.clientName} portraits from ${input.day.date} are ready: choose ${portraits} to be finished.`
+        ? `Your ${input.day.clientName} portraits from ${longDate(input.day.date)} are ready: choose ${portraits} to be finished.`
         : `A reminder: you have not chosen your ${input.day.clientName} portrait yet.`,
       `Choose by ${deadline}. You can change your mind until then; after it, the photographer’s choice stands.`,
       'You can add a short note for the retouch, such as a blemish, a stray hair or glare on glasses.',
