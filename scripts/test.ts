@@ -16,10 +16,14 @@ const isRoot = process.getuid?.() === 0;
 const say = (line: string) => process.stdout.write(`[likeness test] ${line}\n`);
 const extraArgs = process.argv.slice(2);
 
-/** Debian packages the tests use: Chromium (browser tests), exiftool (an independent EXIF reader). */
+/**
+ * Debian packages the tests use: Chromium (browser tests), exiftool (an independent EXIF
+ * reader), Info-ZIP unzip (an independent ZIP reader).
+ */
 const neededPackages = [
   { file: '/usr/bin/chromium', name: 'chromium' },
   { file: '/usr/bin/exiftool', name: 'libimage-exiftool-perl' },
+  { file: '/usr/bin/unzip', name: 'unzip' },
 ];
 
 function ensureDebianPackages() {

@@ -32,6 +32,8 @@ import { createProofUrls } from './modules/proofs/proof-urls';
 import { registerProofsRoutes } from './modules/proofs/proofs.routes';
 import { proofsServiceFor } from './modules/proofs/proofs-wiring';
 import { createSitterProofsService } from './modules/proofs/sitter-proofs.service';
+import { registerRetouchRoutes } from './modules/retouch/retouch.routes';
+import { createRetouchService } from './modules/retouch/retouch.service';
 import { createMatchingService } from './modules/matching/matching.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { registerProgressRoutes } from './modules/progress/progress.routes';
@@ -127,10 +129,16 @@ export function createApp(deps: AppDeps) {
     issueSitterInvitationLink: (personId) => auth.issueSitterInvitationLink(personId),
   });
   const progress = createProgressService({ db, days });
+  const retouch = createRetouchService({
+    db,
+    storage: deps.storage,
+    maxPixels: deps.uploads.maxPixels,
+  });
   const frames = createFramesService({
     db,
     storage: deps.storage,
     limits: { maxBytes: deps.uploads.maxBytes, maxPixels: deps.uploads.maxPixels },
+    finals: retouch.finals,
   });
 
   // Before the API router: tus speaks its own content type, and checks access itself.
@@ -166,6 +174,7 @@ export function createApp(deps: AppDeps) {
   registerSetupCardsRoutes(routes, createSetupCardsService({ db }));
   registerFramesRoutes(routes, frames);
   registerMatchingRoutes(routes, createMatchingService({ db }));
+  registerRetouchRoutes(routes, retouch);
   registerProofsRoutes(
     routes,
     proofsServiceFor({ db, clock, mailer, auth }),

@@ -18,10 +18,9 @@ export const pickNoteSchema = z
 export const savePicksRequestSchema = z
   .object({
     picks: z
-      .array(
-        z.object({ frameId: uuidSchema, note: pickNoteSchema.nullish() }).strict(),
-        { error: 'Send the frames you pick.' },
-      )
+      .array(z.object({ frameId: uuidSchema, note: pickNoteSchema.nullish() }).strict(), {
+        error: 'Send the frames you pick.',
+      })
       .max(40, { error: 'Pick at most 40 frames.' })
       .refine((picks) => new Set(picks.map((pick) => pick.frameId)).size === picks.length, {
         error: 'A frame is picked twice.',

@@ -5,85 +5,36 @@ import { createSmtpMailer } from '../../server/adapters/mail/mailer';
 import { createAuthService } from '../../server/modules/auth/auth.service';
 import { proofsServiceFor } from '../../server/modules/proofs/proofs-wiring';
 import { createLogger } from '../../server/lib/logger';
-import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
-import { insertDayWithStations } from '../factories/shoot-days';
-import { insertSitting } from '../factories/sittings';
 import { startTestApp, type TestApp } from '../setup/test-app';
-import { planCard, type CardPlan } from '../support/shoot-day-card';
+import { insertStaff } from '../factories/accounts';
 import { runQueuedJobs } from './booking-jobs';
-import { uploadCardAndMatch } from './card-upload';
-import { linkTokenFrom, signedInAgent } from './helpers';
-import { openTusSession, type TusSession } from './tus-client';
+import { signedInAgent } from './helpers';
+import { setUpProofsDay } from './proofs-day';
+import type { TusSession } from './tus-client';
 
-// Two sitters photographed, their card uploaded and matched; then proofs are released, picked,
-// reminded and settled, on the real database.
 let t: TestApp;
-let day: Awaited<ReturnType<typeof insertDayWithStations>>;
-let plan: CardPlan;
+let day: Awaited<ReturnType<typeof setUpProofsDay>>['day'];
 let session: TusSession;
 let studio: request.Agent;
 let coordinator: request.Agent;
 let clientId: string;
-const sitters: Array<{ id: string; email: string; agent: request.Agent }> = [];
-
-async function sitterAgent(email: string) {
-  const mail = await t.mail.waitFor(email);
-  const agent = request.agent(t.app);
-  await agent
-    .post('/api/sign-in-links/redeem')
-    .send({ token: linkTokenFrom(mail.text, 'link') })
-    .expect(201);
-  return { agent, mail };
-}
+let sitters: Awaited<ReturnType<typeof setUpProofsDay>>['sitters'];
 
 beforeAll(async () => {
   t = await startTestApp();
-  const client = await insertClient(t.db);
-  clientId = client.id;
-  const office = await insertOffice(t.db, client.id);
-  const photographer = await insertStaff(t.db, { role: 'photographer' });
-  day = await insertDayWithStations(t.db, {
-    clientId: client.id,
-    officeId: office.id,
-    photographerIds: [photographer.id],
-  });
-  plan = planCard({
-    firstSittingAt: new Date('2027-03-04T09:00:00Z'),
-    sittings: 2,
-    framesPerSitting: 3,
-    clockOffsetMs: 0,
-    firstNumber: 120,
-  });
-  const people = [];
-  for (const sitting of plan.sittings) {
-    const person = await insertPerson(t.db, client.id);
-    people.push(person);
-    await insertSitting(t.db, {
-      dayId: day.dayId,
-      stationId: day.stations[0]!.id,
-      personId: person.id,
-      ...sitting,
-    });
-  }
-  session = await openTusSession(t, photographer.email);
-  await uploadCardAndMatch(t, session, { dayId: day.dayId, stationId: day.stations[0]!.id }, plan);
-  studio = await signedInAgent(t, photographer.email);
+  const ready = await setUpProofsDay(t);
+  ({ day, session, studio, sitters } = ready);
+  clientId = ready.client.id;
   coordinator = await signedInAgent(
     t,
-    (await insertStaff(t.db, { role: 'coordinator', clientId: client.id })).email,
+    (await insertStaff(t.db, { role: 'coordinator', clientId })).email,
   );
-
-  const released = await studio.post(`/api/days/${day.dayId}/proofs/release`).send({}).expect(201);
-  expect(released.body).toMatchObject({ queued: 2, alreadySent: 0 });
-  await runQueuedJobs(t);
-  for (const person of people) {
-    const { agent, mail } = await sitterAgent(person.email);
+  for (const { mail } of sitters) {
     expect(mail.subject).toMatch(/portraits are ready to choose/);
     // The deadline in the mail is a week after the shoot, on the office's clock.
     expect(mail.text).toContain('Thursday, 11 March 2027 at 23:59 (Europe/London time)');
     expect(mail.text).toContain('portraits from 4 March 2027 are ready');
     expect(mail.text).toContain(`?next=${encodeURIComponent(`/proofs/${day.dayId}`)}`);
-    sitters.push({ id: person.id, email: person.email, agent });
   }
 }, 120_000);
 
@@ -95,6 +46,8 @@ afterAll(async () => {
 const proofsOf = async (index: number) =>
   (await sitters[index]!.agent.get(`/api/proofs/${day.dayId}`).expect(200)).body;
 
+// Two sitters photographed, their card uploaded and matched; then proofs are released, picked,
+// reminded and settled, on the real database.
 describe('proofs and picks', () => {
   it('shows each sitter only their own frames, never the slate, as marked web-sized proofs', async () => {
     const first = await proofsOf(0);

@@ -60,6 +60,10 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/days/:dayId/proofs/people/:personId': ['coordinator'],
   'PUT /api/days/:dayId/proofs/people/:personId/picks': ['coordinator'],
   'GET /api/clients/:clientId/proof-settings': ['studio_admin'],
+  'GET /api/days/:dayId/retouch': ['studio_admin', 'photographer'],
+  'PATCH /api/picks/:pickId': ['studio_admin', 'photographer'],
+  'GET /api/days/:dayId/retouch/originals.zip': ['studio_admin', 'photographer'],
+  'GET /api/picks/:pickId/final': ['studio_admin', 'photographer'],
   'PUT /api/clients/:clientId/proof-settings': ['studio_admin'],
   'POST /api/days/:dayId/frames/known': ['studio_admin', 'photographer'],
   'GET /api/frames/:frameId/thumbnail': ['studio_admin', 'photographer'],
@@ -153,6 +157,7 @@ beforeAll(async () => {
     bookingId: booking.id,
     // A frame that does not exist: as for imports, allowed roles get 404.
     frameId: '00000000-0000-4000-8000-000000000001',
+    pickId: '00000000-0000-4000-8000-000000000002',
   };
 });
 afterAll(() => t.close());
