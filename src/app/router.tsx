@@ -126,6 +126,20 @@ export function createAppRouter(queryClient: QueryClient) {
               },
             },
             {
+              path: '/days/:dayId/retouch',
+              lazy: async () => {
+                const page = await import('./routes/frames/day-retouch');
+                return { Component: page.DayRetouchPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/proofs/:dayId',
+              lazy: async () => {
+                const page = await import('./routes/proofs/sitter-proofs');
+                return { Component: page.SitterProofsPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/days/:dayId/sheet',
               lazy: async () => {
                 const page = await import('./routes/days/day-sheet');

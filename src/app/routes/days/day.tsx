@@ -9,6 +9,7 @@ import { dayQueryOptions, useDay } from '../../../features/days/api/get-day';
 import { ConfirmDayForm } from '../../../features/days/components/confirm-day-form';
 import { MailingPanel } from '../../../features/progress/components/mailing-panel';
 import { ProgressDashboard } from '../../../features/progress/components/progress-dashboard';
+import { ProofsPanel } from '../../../features/proofs/components/proofs-panel';
 import { requireRole } from '../../guards';
 
 export const makeLoader =
@@ -79,6 +80,14 @@ export function DayPage() {
                 Frames by sitter (review the matching)
               </Link>
             ) : null}
+            {session?.user.role !== 'coordinator' ? (
+              <Link
+                to={`/days/${day.id}/retouch`}
+                className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+              >
+                Retouch queue
+              </Link>
+            ) : null}
             <a
               href={`/api/days/${day.id}/schedule.csv`}
               download
@@ -101,6 +110,15 @@ export function DayPage() {
             <Card title="Progress" className="lg:col-span-2">
               <ProgressDashboard dayId={day.id} />
             </Card>
+            {day.status === 'confirmed' ? (
+              <Card title="Portraits chosen">
+                <ProofsPanel
+                  dayId={day.id}
+                  dayDate={day.date}
+                  canRelease={session?.user.role === 'studio_admin'}
+                />
+              </Card>
+            ) : null}
             {day.status === 'confirmed' ? (
               <Card title="Book for someone" className="lg:col-span-2">
                 <BookForPerson dayId={day.id} />

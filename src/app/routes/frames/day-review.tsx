@@ -1,6 +1,8 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Card } from '../../../components/ui/card';
 import { PageHeading } from '../../../components/ui/page-heading';
+import { ProofsPanel } from '../../../features/proofs/components/proofs-panel';
 import { reviewQueryOptions, useReview } from '../../../features/review/api/get-review';
 import { ReviewScreen } from '../../../features/review/components/review-screen';
 import { requireRole } from '../../guards';
@@ -34,6 +36,16 @@ export function DayReviewPage() {
           every frame as CSV
         </a>
       </PageHeading>
+      <div className="mb-5">
+        <Card title="Proofs">
+          <ProofsPanel dayId={dayId} dayDate={data.dayDate} canRelease />
+          <p className="mt-3 text-sm">
+            <Link to={`/days/${dayId}/retouch`} className="text-spruce-700 underline">
+              Open the retouch queue
+            </Link>
+          </p>
+        </Card>
+      </div>
       <ReviewScreen review={data} />
     </>
   );

@@ -17,7 +17,8 @@ export interface QueuedFile {
   key: string;
   file: File;
   cardPath: string;
-  stationId: string;
+  /** What the file is for, sent as tus metadata: a card's station, or a final's pick. */
+  target: { stationId: string } | { purpose: 'final'; pickId: string };
   state: FileState;
   sent: number;
   message: string | null;
@@ -67,12 +68,27 @@ export class UploadQueue {
   };
 
   add(entries: Array<{ file: File; cardPath: string }>, stationId: string) {
+    this.enqueue(entries.map((entry) => ({ ...entry, target: { stationId } })));
+  }
+
+  /** Retouched finals, each for the pick it was matched to. */
+  addFinals(entries: Array<{ file: File; cardPath: string; pickId: string }>) {
+    this.enqueue(
+      entries.map(({ pickId, ...entry }) => ({
+        ...entry,
+        target: { purpose: 'final' as const, pickId },
+      })),
+    );
+  }
+
+  private enqueue(entries: Array<Pick<QueuedFile, 'file' | 'cardPath' | 'target'>>) {
     const present = new Set(this.files.map((item) => item.key));
     for (const entry of entries) {
-      const key = `${stationId}:${entry.cardPath}:${entry.file.size}:${entry.file.lastModified}`;
+      const where = 'pickId' in entry.target ? entry.target.pickId : entry.target.stationId;
+      const key = `${where}:${entry.cardPath}:${entry.file.size}:${entry.file.lastModified}`;
       if (present.has(key)) continue;
       present.add(key);
-      this.files.push({ ...entry, key, stationId, state: 'waiting', sent: 0, message: null });
+      this.files.push({ ...entry, key, state: 'waiting', sent: 0, message: null });
     }
     this.changed();
     this.pump();
@@ -128,7 +144,7 @@ export class UploadQueue {
     try {
       // Digests need a secure page; over plain http the server still recognises duplicates.
       const sha256 = await sha256Hex(item.file);
-      if (sha256) {
+      if (sha256 && 'stationId' in item.target) {
         const { known } = await findKnownFrames(this.dayId, {
           files: [{ cardPath: item.cardPath, sha256 }],
         });
@@ -146,7 +162,7 @@ export class UploadQueue {
         removeFingerprintOnSuccess: true,
         metadata: {
           dayId: this.dayId,
-          stationId: item.stationId,
+          ...item.target,
           cardPath: item.cardPath,
           ...(sha256 ? { sha256 } : {}),
         },

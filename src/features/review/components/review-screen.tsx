@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
+import { useStudioPick } from '../../proofs/api/day-proofs';
 import { useDecision, useRequestMatch, useUndoLastChange } from '../api/review-changes';
 import { reviewGroups, type ReviewGroup } from '../model/review-groups';
 import { ChoosePerson } from './choose-person';
@@ -28,6 +29,7 @@ export function ReviewScreen({ review }: { review: DayReview }) {
   const decision = useDecision(review.dayId);
   const undo = useUndoLastChange(review.dayId);
   const run = useRequestMatch(review.dayId);
+  const studioPick = useStudioPick(review.dayId);
 
   const groups = useMemo(
     () => reviewGroups(review, { stationId, onlyProblems }),
@@ -87,6 +89,8 @@ export function ReviewScreen({ review }: { review: DayReview }) {
         ? markTest
         : null;
   const chosen = [...selection.selected];
+  const single =
+    chosen.length === 1 ? review.frames.find((frame) => frame.id === chosen[0]) : undefined;
 
   return (
     <div className="flex flex-col gap-4">
@@ -155,6 +159,26 @@ export function ReviewScreen({ review }: { review: DayReview }) {
               <Button variant="secondary" onClick={() => setChoosing('split')}>
                 Split off to someone else…
               </Button>
+              {single?.personId ? (
+                <Button
+                  variant="secondary"
+                  onClick={() =>
+                    studioPick.mutate(
+                      { personId: single.personId!, frameId: single.id },
+                      {
+                        onSuccess: () =>
+                          setMessage({
+                            tone: 'success',
+                            text: `Studio’s pick for ${names.get(single.personId!) ?? 'the sitter'} saved: it stands if they do not choose.`,
+                          }),
+                        onError: (error) => setMessage({ tone: 'danger', text: error.message }),
+                      },
+                    )
+                  }
+                >
+                  Make it the studio’s pick
+                </Button>
+              ) : null}
               <Button variant="quiet" onClick={selection.clear}>
                 Clear the choice
               </Button>

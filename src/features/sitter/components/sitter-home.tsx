@@ -2,6 +2,7 @@ import { Card } from '../../../components/ui/card';
 import { Notice } from '../../../components/ui/notice';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { SitterBookings } from '../../booking/components/sitter-bookings';
+import { MyProofsCard } from '../../proofs/components/my-proofs-card';
 import { useMyProfile } from '../api/get-my-profile';
 
 export function SitterHome() {
@@ -16,6 +17,7 @@ export function SitterHome() {
         Your portrait for {me.clientName}
         {me.office ? `, ${me.office.name} office` : ''}.
       </PageHeading>
+      <MyProofsCard />
       <SitterBookings />
       <Card title="What to wear">
         <ul className="flex list-disc flex-col gap-1.5 pl-5">
