@@ -10,13 +10,22 @@ export async function up(db: Kysely<any>): Promise<void> {
       col.primaryKey().references('clients.id').onDelete('cascade'),
     )
     .addColumn('picks_included', 'integer', (col) =>
-      col.notNull().defaultTo(1).check(sql`picks_included between 1 and 20`),
+      col
+        .notNull()
+        .defaultTo(1)
+        .check(sql`picks_included between 1 and 20`),
     )
     .addColumn('extra_picks_allowed', 'integer', (col) =>
-      col.notNull().defaultTo(0).check(sql`extra_picks_allowed between 0 and 20`),
+      col
+        .notNull()
+        .defaultTo(0)
+        .check(sql`extra_picks_allowed between 0 and 20`),
     )
     .addColumn('extra_pick_price_cents', 'integer', (col) =>
-      col.notNull().defaultTo(0).check(sql`extra_pick_price_cents between 0 and 10000000`),
+      col
+        .notNull()
+        .defaultTo(0)
+        .check(sql`extra_pick_price_cents between 0 and 10000000`),
     )
     .addColumn('hr_may_choose', 'boolean', (col) => col.notNull().defaultTo(false))
     .addColumn('updated_at', 'timestamptz', (col) => col.notNull().defaultTo(sql`now()`))
@@ -112,7 +121,10 @@ export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .alterTable('frame_uploads')
     .addColumn('purpose', 'text', (col) =>
-      col.notNull().defaultTo('frame').check(sql`purpose in ('frame', 'final')`),
+      col
+        .notNull()
+        .defaultTo('frame')
+        .check(sql`purpose in ('frame', 'final')`),
     )
     .addColumn('pick_id', 'uuid', (col) => col.references('picks.id').onDelete('cascade'))
     .execute();
