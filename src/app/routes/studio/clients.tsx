@@ -2,6 +2,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { Link, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
+import { PackageSettings } from '../../../features/proofs/components/package-settings';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { clientsQueryOptions, useClients } from '../../../features/clients/api/list-clients';
 import { CreateClientForm } from '../../../features/clients/components/create-client-form';
@@ -55,6 +56,12 @@ export function ClientsPage() {
                 ) : (
                   <p className="mt-2 text-sm">No offices yet: they come with the roster.</p>
                 )}
+                <details className="mt-3">
+                  <summary className="cursor-pointer text-sm font-medium text-spruce-700">
+                    Portrait package
+                  </summary>
+                  <PackageSettings clientId={client.id} />
+                </details>
               </Card>
             ))
           )}
