@@ -6,6 +6,14 @@ import type {
   StationActionsTable,
 } from './console-types';
 import type { FrameUploadsTable, FramesTable } from './frame-types';
+import type {
+  ClientLooksTable,
+  DeliveredRenditionsTable,
+  DeliveriesTable,
+  PortraitEyesTable,
+  PortraitRenditionsTable,
+  SitterDownloadLinksTable,
+} from './look-types';
 import type { FrameMatchesTable, MatchDecisionsTable, MatchRunsTable } from './match-types';
 import type {
   ClientProofSettingsTable,
@@ -180,7 +188,7 @@ export interface DayMailingsTable {
   id: Generated<string>;
   dayId: string;
   personId: string;
-  kind: 'invitation' | 'reminder' | 'day_before' | 'proofs' | 'proofs_reminder';
+  kind: 'invitation' | 'reminder' | 'day_before' | 'proofs' | 'proofs_reminder' | 'portraits_ready';
   round: Generated<number>;
   status: Generated<'queued' | 'sent' | 'failed'>;
   reason: string | null;
@@ -221,6 +229,12 @@ export interface Database {
   dayProofs: DayProofsTable;
   studioPicks: StudioPicksTable;
   picks: PicksTable;
+  clientLooks: ClientLooksTable;
+  portraitEyes: PortraitEyesTable;
+  portraitRenditions: PortraitRenditionsTable;
+  deliveries: DeliveriesTable;
+  deliveredRenditions: DeliveredRenditionsTable;
+  sitterDownloadLinks: SitterDownloadLinksTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

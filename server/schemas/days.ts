@@ -122,6 +122,7 @@ export const mailingKinds = [
   'day_before',
   'proofs',
   'proofs_reminder',
+  'portraits_ready',
 ] as const;
 export type MailingKind = (typeof mailingKinds)[number];
 

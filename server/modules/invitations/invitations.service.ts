@@ -71,8 +71,13 @@ export function createInvitationsService(deps: {
   async function sendMailing(mailingId: string, lastAttempt: boolean): Promise<void> {
     const mailing = await repo.findMailing(db, mailingId);
     if (!mailing || mailing.status !== 'queued') return; // already handled: never send twice
-    // Proof mail shares the log but is sent by the proofs module's own job.
-    if (mailing.kind === 'proofs' || mailing.kind === 'proofs_reminder') return;
+    // Proof and delivery mail share the log but are sent by their modules' own jobs.
+    if (
+      mailing.kind !== 'invitation' &&
+      mailing.kind !== 'reminder' &&
+      mailing.kind !== 'day_before'
+    )
+      return;
     const day = await daysRepo.findDay(db, mailing.dayId);
     const now = clock.now();
     if (!day || !mailing.active) {

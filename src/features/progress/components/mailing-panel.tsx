@@ -9,6 +9,7 @@ const kindLabel = {
   day_before: 'Day before',
   proofs: 'Proofs ready',
   proofs_reminder: 'Proofs reminder',
+  portraits_ready: 'Portraits ready',
 };
 
 /** Sending happens in the background; this shows how far it got and each person's outcome. */
