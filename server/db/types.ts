@@ -6,6 +6,7 @@ import type {
   StationActionsTable,
 } from './console-types';
 import type { FrameUploadsTable, FramesTable } from './frame-types';
+import type { InvoiceSequencesTable, InvoicesTable, PriceListsTable } from './invoice-types';
 import type {
   ClientLooksTable,
   DeliveredRenditionsTable,
@@ -235,6 +236,9 @@ export interface Database {
   deliveries: DeliveriesTable;
   deliveredRenditions: DeliveredRenditionsTable;
   sitterDownloadLinks: SitterDownloadLinksTable;
+  priceLists: PriceListsTable;
+  invoiceSequences: InvoiceSequencesTable;
+  invoices: InvoicesTable;
 }
 
 export type UserRow = Selectable<UsersTable>;
