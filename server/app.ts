@@ -32,6 +32,8 @@ import { createProofUrls } from './modules/proofs/proof-urls';
 import { registerProofsRoutes } from './modules/proofs/proofs.routes';
 import { proofsServiceFor } from './modules/proofs/proofs-wiring';
 import { createSitterProofsService } from './modules/proofs/sitter-proofs.service';
+import { registerDeliveryRoutes } from './modules/delivery/delivery.routes';
+import { createDeliveryService } from './modules/delivery/delivery.service';
 import { registerRetouchRoutes } from './modules/retouch/retouch.routes';
 import { createRetouchService } from './modules/retouch/retouch.service';
 import { createMatchingService } from './modules/matching/matching.service';
@@ -175,6 +177,7 @@ export function createApp(deps: AppDeps) {
   registerFramesRoutes(routes, frames);
   registerMatchingRoutes(routes, createMatchingService({ db }));
   registerRetouchRoutes(routes, retouch);
+  registerDeliveryRoutes(routes, createDeliveryService({ db, clock, storage: deps.storage }));
   registerProofsRoutes(
     routes,
     proofsServiceFor({ db, clock, mailer, auth }),

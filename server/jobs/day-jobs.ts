@@ -8,6 +8,7 @@ import { createAuthService } from '../modules/auth/auth.service';
 import { createBookingService } from '../modules/booking/booking.service';
 import { createDaysService } from '../modules/days/days.service';
 import { createInvitationsService } from '../modules/invitations/invitations.service';
+import { portraitsMailTasks } from '../modules/delivery/delivery-mail';
 import { proofsServiceFor } from '../modules/proofs/proofs-wiring';
 import { toTaskList, workerLogger, type JobHandlers } from './job-queue';
 
@@ -37,7 +38,12 @@ export function createDayJobs(deps: JobDeps) {
   });
   const proofs = proofsServiceFor({ ...deps, auth });
   return {
-    handlers: { ...invitations.handlers(), ...booking.handlers(), ...proofs.handlers() },
+    handlers: {
+      ...invitations.handlers(),
+      ...booking.handlers(),
+      ...proofs.handlers(),
+      ...portraitsMailTasks({ ...deps, publicUrl: deps.config.publicUrl }),
+    },
     queueDueDayBefore: () => invitations.queueDueDayBefore(),
   };
 }

@@ -64,6 +64,14 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'PATCH /api/picks/:pickId': ['studio_admin', 'photographer'],
   'GET /api/days/:dayId/retouch/originals.zip': ['studio_admin', 'photographer'],
   'GET /api/picks/:pickId/final': ['studio_admin', 'photographer'],
+  'GET /api/days/:dayId/delivery': ['studio_admin', 'photographer', 'coordinator'],
+  'POST /api/days/:dayId/delivery/release': ['studio_admin', 'photographer'],
+  'GET /api/days/:dayId/delivery.zip': ['studio_admin', 'coordinator'],
+  'DELETE /api/days/:dayId/delivery/links/:personId': ['studio_admin', 'photographer'],
+  'GET /api/portraits/:token': 'public',
+  'GET /api/portraits/:token/files/:fileId': 'public',
+  'GET /api/my-portraits/:dayId': ['sitter'],
+  'GET /api/my-portraits/:dayId/files/:fileId': ['sitter'],
   'PUT /api/clients/:clientId/proof-settings': ['studio_admin'],
   'POST /api/days/:dayId/frames/known': ['studio_admin', 'photographer'],
   'GET /api/frames/:frameId/thumbnail': ['studio_admin', 'photographer'],
@@ -158,6 +166,8 @@ beforeAll(async () => {
     // A frame that does not exist: as for imports, allowed roles get 404.
     frameId: '00000000-0000-4000-8000-000000000001',
     pickId: '00000000-0000-4000-8000-000000000002',
+    token: 'A'.repeat(43),
+    fileId: '00000000-0000-4000-8000-000000000003',
   };
 });
 afterAll(() => t.close());

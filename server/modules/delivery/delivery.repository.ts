@@ -1,0 +1,167 @@
+import { sql, type Transaction } from 'kysely';
+import type { Db } from '../../db/database';
+import type { Database } from '../../db/types';
+import type { DayRecord } from '../days/days.repository';
+import { invitedPeopleQuery } from '../days/days.repository';
+
+type Executor = Db | Transaction<Database>;
+
+/** Every rendered rendition of a day's picks, with what a file name and the manifest need. */
+export async function renderedSet(db: Executor, dayId: string, lookVersion: number) {
+  return db
+    .selectFrom('portraitRenditions as rendition')
+    .innerJoin('picks', 'picks.id', 'rendition.pickId')
+    .innerJoin('people', 'people.id', 'picks.personId')
+    .leftJoin('offices', 'offices.id', 'people.officeId')
+    .innerJoin('frames', 'frames.id', 'picks.frameId')
+    .innerJoin('stations', 'stations.id', 'frames.stationId')
+    .where('picks.dayId', '=', dayId)
+    .where('rendition.status', '=', 'rendered')
+    .where('rendition.lookVersion', '=', lookVersion)
+    .select([
+      'picks.id as pickId',
+      'picks.personId',
+      'picks.position',
+      'rendition.renditionName',
+      'rendition.key',
+      'rendition.byteSize',
+      'rendition.sha256',
+      'people.employeeId',
+      'people.email',
+      'people.givenName',
+      'people.familyName',
+      'people.preferredName',
+      'people.department',
+      'offices.name as officeName',
+      'stations.name as stationName',
+      sql<string | null>`to_char(frames.captured_local, 'YYYY-MM-DD"T"HH24:MI:SS')`.as(
+        'capturedLocal',
+      ),
+    ])
+    .orderBy('people.familyName')
+    .orderBy('people.givenName')
+    .orderBy('picks.position')
+    .orderBy('rendition.renditionName')
+    .execute();
+}
+
+export async function currentSet(db: Executor, dayId: string) {
+  return db
+    .selectFrom('deliveredRenditions as delivered')
+    .innerJoin('people', 'people.id', 'delivered.personId')
+    .leftJoin('offices', 'offices.id', 'people.officeId')
+    .where('delivered.dayId', '=', dayId)
+    .select([
+      'delivered.id',
+      'delivered.personId',
+      'delivered.pickId',
+      'delivered.renditionName',
+      'delivered.fileName',
+      'delivered.key',
+      'delivered.byteSize',
+      'delivered.sha256',
+      'delivered.changed',
+      'people.employeeId',
+      'people.email',
+      'people.givenName',
+      'people.familyName',
+      'people.preferredName',
+      'people.department',
+      'offices.name as officeName',
+    ])
+    .orderBy('delivered.fileName')
+    .execute();
+}
+
+export async function latestRelease(db: Executor, dayId: string) {
+  return db
+    .selectFrom('deliveries')
+    .where('dayId', '=', dayId)
+    .selectAll()
+    .orderBy('release', 'desc')
+    .limit(1)
+    .executeTakeFirst();
+}
+
+export async function replaceSet(
+  trx: Transaction<Database>,
+  delivery: { id: string; dayId: string; release: number; userId: string; changed: number },
+  rows: Array<{
+    id: string;
+    personId: string;
+    pickId: string;
+    renditionName: string;
+    fileName: string;
+    key: string;
+    byteSize: string;
+    sha256: string;
+    changed: boolean;
+  }>,
+) {
+  await trx
+    .insertInto('deliveries')
+    .values({
+      id: delivery.id,
+      dayId: delivery.dayId,
+      release: delivery.release,
+      releasedByUserId: delivery.userId,
+      files: rows.length,
+      changed: delivery.changed,
+    })
+    .execute();
+  await trx.deleteFrom('deliveredRenditions').where('dayId', '=', delivery.dayId).execute();
+  for (let start = 0; start < rows.length; start += 2000) {
+    await trx
+      .insertInto('deliveredRenditions')
+      .values(
+        rows
+          .slice(start, start + 2000)
+          .map((row) => ({ ...row, dayId: delivery.dayId, deliveryId: delivery.id })),
+      )
+      .execute();
+  }
+}
+
+/** The day's invited people (and walk-ins photographed), for the list of who is missing. */
+export async function expectedPeople(db: Executor, day: DayRecord) {
+  const invited = await invitedPeopleQuery(db, day).execute();
+  const photographed = await db
+    .selectFrom('sittings')
+    .innerJoin('people', 'people.id', 'sittings.personId')
+    .where('sittings.dayId', '=', day.id)
+    .where('sittings.undoneAt', 'is', null)
+    .select('people.id')
+    .distinct()
+    .execute();
+  const picked = await db
+    .selectFrom('picks')
+    .where('dayId', '=', day.id)
+    .select('personId')
+    .distinct()
+    .execute();
+  return {
+    invitedIds: invited.map((person) => person.id),
+    photographed: new Set(photographed.map((row) => row.id)),
+    picked: new Set(picked.map((row) => row.personId)),
+  };
+}
+
+export async function peopleByIds(db: Executor, ids: string[]) {
+  if (ids.length === 0) return [];
+  return db
+    .selectFrom('people')
+    .leftJoin('offices', 'offices.id', 'people.officeId')
+    .where('people.id', 'in', ids)
+    .select([
+      'people.id',
+      'people.employeeId',
+      'people.email',
+      'people.givenName',
+      'people.familyName',
+      'people.preferredName',
+      'people.department',
+      'offices.name as officeName',
+    ])
+    .orderBy('people.familyName')
+    .execute();
+}

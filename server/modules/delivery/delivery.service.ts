@@ -1,0 +1,322 @@
+import { createHash, randomBytes, randomUUID } from 'node:crypto';
+import type { Writable } from 'node:stream';
+import { once } from 'node:events';
+import { ZipArchive } from 'archiver';
+import type { Clock } from '../../adapters/clock';
+import type { ObjectStorage } from '../../adapters/storage/storage';
+import type { Db } from '../../db/database';
+import { addJobs } from '../../jobs/job-queue';
+import { recordAudit } from '../../lib/audit';
+import { toCsv } from '../../lib/csv';
+import { AppError, forbidden, notFound } from '../../lib/errors';
+import type { Viewer } from '../../lib/viewer';
+import { findDay, type DayRecord } from '../days/days.repository';
+import { staffMaySee } from '../days/days.service';
+import { findStudioDay } from '../days/studio-day-access';
+import * as mailings from '../invitations/invitations.repository';
+import { findLook } from '../looks/looks.repository';
+import * as repo from './delivery.repository';
+import { uniqueFileNames } from './file-names';
+
+export const PORTRAITS_MAIL_TASK = 'portraits-mail';
+const LINK_TTL_MS = 30 * 24 * 3_600_000;
+export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+
+export type DeliveryService = ReturnType<typeof createDeliveryService>;
+
+/** A personal link for a sitter's own renditions: random, stored hashed, 30 days, revocable. */
+export async function issueDownloadLink(db: Db, clock: Clock, dayId: string, personId: string) {
+  const token = randomBytes(32).toString('base64url');
+  await db
+    .insertInto('sitterDownloadLinks')
+    .values({
+      id: randomUUID(),
+      dayId,
+      personId,
+      tokenHash: hashToken(token),
+      expiresAt: new Date(clock.now().getTime() + LINK_TTL_MS),
+    })
+    .execute();
+  return token;
+}
+
+/** The finished set: released by the studio, downloaded by HR, each sitter's own link. */
+export function createDeliveryService(deps: { db: Db; clock: Clock; storage: ObjectStorage }) {
+  const { db, clock, storage } = deps;
+
+  /** Studio staff of the day, or a coordinator of the day's client. */
+  async function readableDay(viewer: Viewer, dayId: string): Promise<DayRecord> {
+    if (viewer.role !== 'coordinator') return findStudioDay(db, viewer, dayId);
+    const day = await findDay(db, dayId);
+    if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
+    return day;
+  }
+
+  return {
+    readableDay,
+
+    /** Makes the day's current set from its rendered renditions; says what changed. */
+    async release(viewer: Viewer, dayId: string) {
+      const day = await findStudioDay(db, viewer, dayId);
+      const look = await findLook(db, day.clientId);
+      if (!look) throw new AppError('no_look', 409, 'Set up the client’s look first.');
+      const rendered = await repo.renderedSet(db, day.id, look.version);
+      if (rendered.length === 0) {
+        throw new AppError(
+          'nothing_rendered',
+          409,
+          'No portrait has been rendered in the current look yet.',
+        );
+      }
+      const names = uniqueFileNames(
+        look.fileNameTemplate,
+        rendered.map((row) => ({
+          parts: {
+            employee_id: row.employeeId,
+            given: row.givenName,
+            family: row.familyName,
+            preferred: row.preferredName,
+            office: row.officeName,
+            department: row.department,
+            rendition: row.renditionName,
+            day: day.date,
+          },
+          extension: 'jpg',
+        })),
+      );
+      const before = new Map(
+        (await repo.currentSet(db, day.id)).map((row) => [
+          `${row.pickId}:${row.renditionName}`,
+          row.sha256,
+        ]),
+      );
+      const rows = rendered.map((row, index) => ({
+        id: randomUUID(),
+        personId: row.personId,
+        pickId: row.pickId,
+        renditionName: row.renditionName,
+        fileName: names[index]!,
+        key: row.key!,
+        byteSize: row.byteSize ?? '0',
+        sha256: row.sha256!,
+        changed: before.get(`${row.pickId}:${row.renditionName}`) !== row.sha256,
+      }));
+      const changed = rows.filter((row) => row.changed).length;
+      const previous = await repo.latestRelease(db, day.id);
+      const release = (previous?.release ?? 0) + 1;
+      const people = [...new Set(rows.filter((row) => row.changed).map((row) => row.personId))];
+      await db.transaction().execute(async (trx) => {
+        await repo.replaceSet(
+          trx,
+          { id: randomUUID(), dayId: day.id, release, userId: viewer.id, changed },
+          rows,
+        );
+        const ids = await mailings.insertMailings(trx, day.id, people, 'portraits_ready', release);
+        await addJobs(
+          trx,
+          PORTRAITS_MAIL_TASK,
+          ids.map((mailingId) => ({
+            payload: { mailingId },
+            jobKey: `portraits-mail:${mailingId}`,
+          })),
+        );
+        await recordAudit(trx, {
+          actorUserId: viewer.id,
+          action: 'delivery.released',
+          subjectType: 'shoot_day',
+          subjectId: day.id,
+          details: { release, files: rows.length, changed },
+        });
+      });
+      return {
+        release,
+        files: rows.length,
+        changed,
+        people: new Set(rows.map((row) => row.personId)).size,
+      };
+    },
+
+    async status(viewer: Viewer, dayId: string) {
+      const day = await readableDay(viewer, dayId);
+      const [latest, set] = await Promise.all([
+        repo.latestRelease(db, day.id),
+        repo.currentSet(db, day.id),
+      ]);
+      const offices = [
+        ...new Set(set.map((row) => row.officeName).filter((name): name is string => !!name)),
+      ].sort();
+      const departments = [
+        ...new Set(set.map((row) => row.department).filter((name): name is string => !!name)),
+      ].sort();
+      return {
+        release: latest?.release ?? null,
+        releasedAt: latest?.releasedAt.toISOString() ?? null,
+        files: set.length,
+        changed: set.filter((row) => row.changed).length,
+        people: new Set(set.map((row) => row.personId)).size,
+        offices,
+        departments,
+      };
+    },
+
+    /**
+     * Streams the set (or one office's or department's part) as a ZIP while it is written:
+     * manifest.csv, missing.csv, then each file, one at a time (memory stays flat; ZIP64 is
+     * automatic past 4 GB).
+     */
+    async writeZip(
+      viewer: Viewer,
+      dayId: string,
+      filter: { office?: string | undefined; department?: string | undefined },
+      out: Writable,
+    ) {
+      const day = await readableDay(viewer, dayId);
+      if (viewer.role === 'photographer')
+        throw forbidden('HR and the studio admin download the set.');
+      const set = (await repo.currentSet(db, day.id)).filter(
+        (row) =>
+          (!filter.office || row.officeName === filter.office) &&
+          (!filter.department || row.department === filter.department),
+      );
+      if (set.length === 0)
+        throw new AppError(
+          'nothing_released',
+          409,
+          'No portraits have been released for that yet.',
+        );
+      const expected = await repo.expectedPeople(db, day);
+      const delivered = new Set(set.map((row) => row.personId));
+      const missingPeople = await repo.peopleByIds(
+        db,
+        expected.invitedIds.filter((id) => !delivered.has(id)),
+      );
+      const missing = missingPeople.filter(
+        (person) =>
+          (!filter.office || person.officeName === filter.office) &&
+          (!filter.department || person.department === filter.department),
+      );
+      const archive = new ZipArchive({ zlib: { level: 0 } });
+      archive.pipe(out);
+      archive.append(
+        toCsv([
+          [
+            'Employee id',
+            'E-mail',
+            'Given name',
+            'Family name',
+            'Preferred name',
+            'Office',
+            'Department',
+            'Rendition',
+            'File name',
+            'Bytes',
+            'Changed in this release',
+          ],
+          ...set.map((row) => [
+            row.employeeId ?? '',
+            row.email ?? '',
+            row.givenName,
+            row.familyName,
+            row.preferredName ?? '',
+            row.officeName ?? '',
+            row.department ?? '',
+            row.renditionName,
+            row.fileName,
+            String(row.byteSize),
+            row.changed ? 'yes' : 'no',
+          ]),
+        ]),
+        { name: 'manifest.csv' },
+      );
+      await once(archive, 'entry');
+      archive.append(
+        toCsv([
+          ['Employee id', 'E-mail', 'Given name', 'Family name', 'Office', 'Department', 'Why'],
+          ...missing.map((person) => [
+            person.employeeId ?? '',
+            person.email ?? '',
+            person.givenName,
+            person.familyName,
+            person.officeName ?? '',
+            person.department ?? '',
+            !expected.photographed.has(person.id)
+              ? 'Not photographed'
+              : expected.picked.has(person.id)
+                ? 'Photographed; portrait not finished yet'
+                : 'Photographed; no portrait chosen yet',
+          ]),
+        ]),
+        { name: 'missing.csv' },
+      );
+      await once(archive, 'entry');
+      for (const row of set) {
+        archive.append(await storage.read(row.key), { name: row.fileName });
+        await once(archive, 'entry');
+      }
+      await archive.finalize();
+    },
+
+    issueLink: (dayId: string, personId: string) => issueDownloadLink(db, clock, dayId, personId),
+
+    async revokeLinks(viewer: Viewer, dayId: string, personId: string) {
+      const day = await findStudioDay(db, viewer, dayId);
+      const result = await db
+        .updateTable('sitterDownloadLinks')
+        .set({ revokedAt: clock.now() })
+        .where('dayId', '=', day.id)
+        .where('personId', '=', personId)
+        .where('revokedAt', 'is', null)
+        .executeTakeFirst();
+      return { revoked: Number(result.numUpdatedRows) };
+    },
+
+    /** The files behind a sitter's link, or a plain refusal when it is unknown, expired or revoked. */
+    async filesForLink(token: string) {
+      const link = await db
+        .selectFrom('sitterDownloadLinks')
+        .where('tokenHash', '=', hashToken(token))
+        .selectAll()
+        .executeTakeFirst();
+      if (!link || link.revokedAt || link.expiresAt.getTime() < clock.now().getTime()) {
+        throw new AppError(
+          'link_expired',
+          410,
+          'This download link has expired or was withdrawn: ask the studio for a new one.',
+        );
+      }
+      return filesOf(link.dayId, link.personId);
+    },
+
+    filesOf,
+
+    async openDelivered(id: string, personId: string) {
+      const row = await db
+        .selectFrom('deliveredRenditions')
+        .where('id', '=', id)
+        .where('personId', '=', personId)
+        .select(['key', 'fileName', 'byteSize'])
+        .executeTakeFirst();
+      if (!row) throw notFound('That portrait');
+      return {
+        stream: await storage.read(row.key),
+        fileName: row.fileName,
+        size: Number(row.byteSize),
+      };
+    },
+  };
+
+  async function filesOf(dayId: string, personId: string) {
+    const rows = await db
+      .selectFrom('deliveredRenditions')
+      .where('dayId', '=', dayId)
+      .where('personId', '=', personId)
+      .select(['id', 'fileName', 'renditionName', 'byteSize'])
+      .orderBy('renditionName')
+      .execute();
+    return {
+      dayId,
+      personId,
+      files: rows.map((row) => ({ ...row, byteSize: Number(row.byteSize) })),
+    };
+  }
+}
