@@ -27,6 +27,8 @@ import { registerDaysRoutes } from './modules/days/days.routes';
 import { mountFrameUploads } from './modules/frames/frame-upload-handler';
 import { registerFramesRoutes } from './modules/frames/frames.routes';
 import { createFramesService } from './modules/frames/frames.service';
+import { registerInvoicesRoutes } from './modules/invoices/invoices.routes';
+import { createInvoicesService } from './modules/invoices/invoices.service';
 import { registerMatchingRoutes } from './modules/matching/matching.routes';
 import { createProofUrls } from './modules/proofs/proof-urls';
 import { registerProofsRoutes } from './modules/proofs/proofs.routes';
@@ -177,6 +179,7 @@ export function createApp(deps: AppDeps) {
   registerFramesRoutes(routes, frames);
   registerMatchingRoutes(routes, createMatchingService({ db }));
   registerRetouchRoutes(routes, retouch);
+  registerInvoicesRoutes(routes, createInvoicesService({ db, clock, days }));
   registerDeliveryRoutes(routes, createDeliveryService({ db, clock, storage: deps.storage }));
   registerProofsRoutes(
     routes,
