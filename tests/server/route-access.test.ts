@@ -105,6 +105,14 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/days/:dayId/console': ['studio_admin', 'photographer', 'coordinator'],
   'GET /api/days/:dayId/console/roster': ['studio_admin', 'photographer', 'coordinator'],
   'POST /api/days/:dayId/console/actions': ['studio_admin', 'photographer'],
+  'GET /api/days/:dayId/summary': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/summary': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/price-list': ['studio_admin', 'coordinator'],
+  'PUT /api/clients/:clientId/price-list': ['studio_admin'],
+  'POST /api/days/:dayId/invoice': ['studio_admin'],
+  'GET /api/invoices/:invoiceId': ['studio_admin', 'coordinator'],
+  'GET /api/invoices/:invoiceId/invoice.pdf': ['studio_admin', 'coordinator'],
+  'GET /api/invoices/:invoiceId/invoice.csv': ['studio_admin', 'coordinator'],
   // Without ?stationId= an allowed caller gets 400 instead of an endless event stream.
   'GET /api/days/:dayId/console/events': ['studio_admin', 'photographer', 'coordinator'],
 };
@@ -166,6 +174,7 @@ beforeAll(async () => {
     // A frame that does not exist: as for imports, allowed roles get 404.
     frameId: '00000000-0000-4000-8000-000000000001',
     pickId: '00000000-0000-4000-8000-000000000002',
+    invoiceId: '00000000-0000-4000-8000-000000000003',
     token: 'A'.repeat(43),
     fileId: '00000000-0000-4000-8000-000000000003',
   };
