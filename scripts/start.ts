@@ -14,6 +14,7 @@ import { migrateToLatest } from '../server/db/migrator';
 import { startDayJobsWorker } from '../server/jobs/day-jobs';
 import { frameTasks } from '../server/modules/frames/frame-tasks';
 import { matchingTasks } from '../server/modules/matching/matching-tasks';
+import { portraitTasks } from '../server/modules/looks/portrait-tasks';
 import { createLogger } from '../server/lib/logger';
 import {
   DEMO_PASSWORD,
@@ -148,14 +149,17 @@ async function main() {
     const listening = app.listen(raw.PORT, raw.HOST, () => resolve(listening));
     listening.once('error', reject);
   });
-  // Invitations, reminders, day-before mail and reading uploaded frames run on graphile-worker.
+  const portraits = portraitTasks({ db, storage, logger, studioName: config.studioName });
+  // Invitations, reminders, day-before mail, reading frames and rendering portraits run on graphile-worker.
   const worker = await startDayJobsWorker(
     { db, databaseUrl, clock: systemClock, mailer, config, logger },
     {
       ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
       ...matchingTasks({ db, logger }),
+      ...portraits.handlers,
     },
   );
+  cleanups.push(() => portraits.close());
   cleanups.push(() => worker.stop());
   cleanups.push(
     () =>

@@ -36,6 +36,9 @@ import { proofsServiceFor } from './modules/proofs/proofs-wiring';
 import { createSitterProofsService } from './modules/proofs/sitter-proofs.service';
 import { registerDeliveryRoutes } from './modules/delivery/delivery.routes';
 import { createDeliveryService } from './modules/delivery/delivery.service';
+import { registerLooksRoutes } from './modules/looks/looks.routes';
+import { createLooksService } from './modules/looks/looks.service';
+import { createPortraitsService } from './modules/looks/portraits.service';
 import { registerRetouchRoutes } from './modules/retouch/retouch.routes';
 import { createRetouchService } from './modules/retouch/retouch.service';
 import { createMatchingService } from './modules/matching/matching.service';
@@ -181,6 +184,20 @@ export function createApp(deps: AppDeps) {
   registerRetouchRoutes(routes, retouch);
   registerInvoicesRoutes(routes, createInvoicesService({ db, clock, days }));
   registerDeliveryRoutes(routes, createDeliveryService({ db, clock, storage: deps.storage }));
+  registerLooksRoutes(
+    routes,
+    createLooksService({ db }),
+    createPortraitsService({
+      db,
+      storage: deps.storage,
+      logger,
+      studioName: config.studioName,
+      // Requests only mark eyes and serve files: the model runs in the worker's jobs.
+      eyeFinder: () => {
+        throw new Error('Eyes are found by the detect_eyes job, not in a request.');
+      },
+    }),
+  );
   registerProofsRoutes(
     routes,
     proofsServiceFor({ db, clock, mailer, auth }),

@@ -39,6 +39,8 @@ export const configSchema = z.object({
   UPLOAD_MAX_MEGAPIXELS: z.coerce.number().int().min(1).max(1000).default(100),
   /** Signs proof-image URLs; set it when several app processes serve one site. */
   URL_SIGNING_SECRET: z.string().min(32).optional(),
+  /** Written as the credit (and in the copyright) of delivered portraits. */
+  STUDIO_NAME: z.string().min(1).max(100).default('Northlight Portrait Co.'),
   PROOF_URL_TTL_MINUTES: z.coerce.number().int().min(1).max(1440).default(60),
 });
 
@@ -48,6 +50,7 @@ export interface AppConfig {
   env: RawConfig['NODE_ENV'];
   publicUrl: string;
   mailFrom: string;
+  studioName: string;
   trustProxy: boolean;
   logLevel: RawConfig['LOG_LEVEL'];
   sessionTtlMs: number;
@@ -88,6 +91,7 @@ export function toAppConfig(raw: RawConfig): AppConfig {
     env: raw.NODE_ENV,
     publicUrl: (raw.PUBLIC_URL ?? `http://localhost:${raw.PORT}`).replace(/\/$/, ''),
     mailFrom: raw.MAIL_FROM,
+    studioName: raw.STUDIO_NAME,
     trustProxy: raw.TRUST_PROXY,
     logLevel: raw.LOG_LEVEL,
     sessionTtlMs: raw.SESSION_TTL_HOURS * HOUR,

@@ -72,6 +72,14 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/portraits/:token/files/:fileId': 'public',
   'GET /api/my-portraits/:dayId': ['sitter'],
   'GET /api/my-portraits/:dayId/files/:fileId': ['sitter'],
+  'GET /api/clients/:clientId/look': ['studio_admin', 'coordinator'],
+  'PUT /api/clients/:clientId/look': ['studio_admin'],
+  'GET /api/clients/:clientId/look/names': ['studio_admin', 'coordinator'],
+  'GET /api/days/:dayId/set': ['studio_admin', 'photographer'],
+  'POST /api/days/:dayId/set/prepare': ['studio_admin', 'photographer'],
+  'PUT /api/picks/:pickId/eyes': ['studio_admin', 'photographer'],
+  'GET /api/picks/:pickId/source-preview': ['studio_admin', 'photographer'],
+  'GET /api/picks/:pickId/renditions/:name': ['studio_admin', 'photographer'],
   'PUT /api/clients/:clientId/proof-settings': ['studio_admin'],
   'POST /api/days/:dayId/frames/known': ['studio_admin', 'photographer'],
   'GET /api/frames/:frameId/thumbnail': ['studio_admin', 'photographer'],
@@ -177,6 +185,7 @@ beforeAll(async () => {
     invoiceId: '00000000-0000-4000-8000-000000000003',
     token: 'A'.repeat(43),
     fileId: '00000000-0000-4000-8000-000000000003',
+    name: 'portrait',
   };
 });
 afterAll(() => t.close());
