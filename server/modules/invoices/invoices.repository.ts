@@ -69,9 +69,9 @@ async function recordCounts(db: Executor, day: Day) {
       (select count(*) from invited
         where invited.id not in (select person_id from shot))::int as "missed",
       (select coalesce(sum(count), 0) from picked)::int as "picks",
-      (select coalesce(sum(greatest(picked.count - coalesce(
-          (select picks_included from client_proof_settings where client_id = ${day.clientId}),
-          1)), 0), 0) from picked)::int as "extraPicks",
+      (select coalesce(sum(greatest(picked.count - included.picks, 0)), 0) from picked,
+        (select coalesce((select picks_included from client_proof_settings
+          where client_id = ${day.clientId}), 1) as picks) as included)::int as "extraPicks",
       (select count(*) from picks where day_id = ${day.id} and final_key is not null)::int
         as "retouchesDone",
       (select count(*) from stations where day_id = ${day.id})::int as "stations"`.execute(db);
