@@ -24,6 +24,8 @@ const neededPackages = [
   { file: '/usr/bin/chromium', name: 'chromium' },
   { file: '/usr/bin/exiftool', name: 'libimage-exiftool-perl' },
   { file: '/usr/bin/unzip', name: 'unzip' },
+  // The invoice test reads its PDF back with poppler's pdftotext and pdffonts.
+  { file: '/usr/bin/pdftotext', name: 'poppler-utils' },
 ];
 
 function ensureDebianPackages() {
