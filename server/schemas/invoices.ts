@@ -7,7 +7,10 @@ export const currencySchema = z
   .string({ error: 'Give the currency as a three-letter code, like GBP or EUR.' })
   .trim()
   .toUpperCase()
-  .regex(/^[A-Z]{3}$/, { error: 'Give the currency as a three-letter code, like GBP or EUR.' })
+  .regex(/^[A-Z]{3}$/, {
+    error: 'Give the currency as a three-letter code, like GBP or EUR.',
+    abort: true,
+  })
   .refine((code) => knownCurrencies.has(code), { error: 'That is not an ISO 4217 currency.' });
 
 /** Digits after the decimal point in the currency's minor unit (GBP 2, JPY 0, BHD 3). */
