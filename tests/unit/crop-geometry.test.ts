@@ -68,10 +68,8 @@ const requestArbitrary = (rendition: fc.Arbitrary<Rendition>) =>
     .map(({ midX, midY, sizeFactor, rollDeg, ...rest }) => {
       const eyeDistance = wantedEyeDistance(rest.rendition) * sizeFactor;
       const half = eyeDistance / 2;
-      const along = {
-        x: Math.cos((rollDeg * Math.PI) / 180),
-        y: Math.sin((rollDeg * Math.PI) / 180),
-      };
+      const angle = (rollDeg * Math.PI) / 180;
+      const along = { x: Math.cos(angle), y: Math.sin(angle) };
       const mid = { x: midX * rest.imageWidth, y: midY * rest.imageHeight };
       const request: CropRequest = {
         ...rest,
@@ -80,6 +78,9 @@ const requestArbitrary = (rendition: fc.Arbitrary<Rendition>) =>
       };
       return { request, eyeDistance, rollDeg };
     });
+
+const expectWithinPixel = (actual: number, target: number) =>
+  expect(Math.abs(actual - target)).toBeLessThanOrEqual(1);
 
 /** The eyes taken through the plan step by step: levelled frame, crop, resize. */
 function eyesThroughPlan(request: CropRequest, plan: CropPlan) {
@@ -98,20 +99,11 @@ function eyesThroughPlan(request: CropRequest, plan: CropPlan) {
 function reachPastSource(request: CropRequest, plan: CropPlan) {
   const frame = levelledFrame(request.imageWidth, request.imageHeight, plan.rotationDeg);
   const { left, top, width, height } = plan.crop;
-  const corners = [
-    [left, top],
-    [left + width, top],
-    [left, top + height],
-    [left + width, top + height],
-  ].map(([x, y]) => frame.toSource({ x: x!, y: y! }));
-  return Math.max(
-    ...corners.flatMap((corner) => [
-      -corner.x,
-      -corner.y,
-      corner.x - request.imageWidth,
-      corner.y - request.imageHeight,
-    ]),
+  const corners = [left, left + width].flatMap((x) =>
+    [top, top + height].map((y) => frame.toSource({ x, y })),
   );
+  const { imageWidth, imageHeight } = request;
+  return Math.max(...corners.flatMap(({ x, y }) => [-x, -y, x - imageWidth, y - imageHeight]));
 }
 
 describe('planCrop puts the eyes where the rendition says, within 1 px', () => {
@@ -126,13 +118,8 @@ describe('planCrop puts the eyes where the rendition says, within 1 px', () => {
           (eye) =>
             eye.x >= 0 && eye.y >= 0 && eye.x <= request.imageWidth && eye.y <= request.imageHeight,
         );
-        count(
-          result.ok
-            ? Object.values(result.overflow).some(Boolean)
-              ? 'extended'
-              : 'inside'
-            : result.reason,
-        );
+        const overflows = result.ok && Object.values(result.overflow).some(Boolean);
+        count(result.ok ? (overflows ? 'extended' : 'inside') : result.reason);
         if (!eyesInside) {
           expect(result).toMatchObject({ ok: false, reason: 'eyes_outside_image' });
           return;
@@ -166,17 +153,14 @@ describe('planCrop puts the eyes where the rendition says, within 1 px', () => {
         expect(eyes.right.y).toBeCloseTo(plan.eyesAt.right.y, 6);
         // Levelled: both eyes on one line, at eyeLine of the height.
         expect(Math.abs(eyes.left.y - eyes.right.y)).toBeLessThan(1e-6);
-        expect(Math.abs(eyes.left.y - rendition.eyeLine * rendition.height)).toBeLessThanOrEqual(1);
-        const centre = (eyes.left.x + eyes.right.x) / 2;
-        expect(Math.abs(centre - rendition.centreX * rendition.width)).toBeLessThanOrEqual(1);
+        expectWithinPixel(eyes.left.y, rendition.eyeLine * rendition.height);
+        expectWithinPixel((eyes.left.x + eyes.right.x) / 2, rendition.centreX * rendition.width);
         const distance = eyes.right.x - eyes.left.x;
         const headMeasure =
           rendition.headSize.measure === 'eye_distance'
             ? distance
             : distance * EYE_TO_CHIN_PER_EYE_DISTANCE;
-        expect(
-          Math.abs(headMeasure - rendition.headSize.fraction * rendition.width),
-        ).toBeLessThanOrEqual(1);
+        expectWithinPixel(headMeasure, rendition.headSize.fraction * rendition.width);
         // Overflow is reported exactly when the crop reaches past the photo.
         const reach = reachPastSource(request, plan);
         const reported = Object.values(plan.overflow).some((amount) => amount > 0);
@@ -187,15 +171,8 @@ describe('planCrop puts the eyes where the rendition says, within 1 px', () => {
       { numRuns: 3000 },
     );
     // Every outcome was reached often enough for the run to mean something.
-    for (const outcome of [
-      'inside',
-      'extended',
-      'leaves_frame',
-      'rotation_too_large',
-      'eyes_too_close',
-    ]) {
-      expect(seen[outcome] ?? 0, outcome).toBeGreaterThan(100);
-    }
+    const outcomes = ['inside', 'extended', 'leaves_frame', 'rotation_too_large', 'eyes_too_close'];
+    for (const outcome of outcomes) expect(seen[outcome] ?? 0, outcome).toBeGreaterThan(100);
   });
 
   it('never shifts a crop to keep it inside: near an edge the eyes stay on target', () => {
@@ -215,9 +192,7 @@ describe('planCrop puts the eyes where the rendition says, within 1 px', () => {
         const plan = planCrop(request);
         if (!plan.ok) return;
         const eyes = eyesThroughPlan(request, plan);
-        expect(
-          Math.abs(eyes.left.y - request.rendition.eyeLine * request.rendition.height),
-        ).toBeLessThanOrEqual(1);
+        expectWithinPixel(eyes.left.y, request.rendition.eyeLine * request.rendition.height);
         // 2 px from the top, and the eye line at least 20 % of at least 100 px down: past the top.
         expect(plan.crop.top).toBeLessThan(0);
         expect(plan.overflow.top).toBeGreaterThan(0);
@@ -250,17 +225,13 @@ describe('the levelled frame is a rotation about the source centre on a just-lar
         const centre = frame.fromSource({ x: width / 2, y: height / 2 });
         expect(Math.abs(centre.x - frame.width / 2)).toBeLessThanOrEqual(1);
         expect(Math.abs(centre.y - frame.height / 2)).toBeLessThanOrEqual(1);
-        for (const [cx, cy] of [
-          [0, 0],
-          [width, 0],
-          [0, height],
-          [width, height],
-        ]) {
-          const corner = frame.fromSource({ x: cx!, y: cy! });
-          expect(corner.x).toBeGreaterThanOrEqual(-1);
-          expect(corner.y).toBeGreaterThanOrEqual(-1);
-          expect(corner.x).toBeLessThanOrEqual(frame.width + 1);
-          expect(corner.y).toBeLessThanOrEqual(frame.height + 1);
+        // libvips rounds the canvas's origin and size separately, so it may clip a corner of
+        // the picture by about a pixel, never more.
+        const corners = [0, width].flatMap((cx) => [0, height].map((cy) => ({ x: cx, y: cy })));
+        for (const corner of corners.map(frame.fromSource)) {
+          expect(Math.min(corner.x, corner.y)).toBeGreaterThanOrEqual(-1.5);
+          expect(corner.x - frame.width).toBeLessThanOrEqual(1.5);
+          expect(corner.y - frame.height).toBeLessThanOrEqual(1.5);
         }
       }),
     );
