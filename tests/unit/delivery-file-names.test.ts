@@ -22,7 +22,7 @@ const parts = (overrides: Partial<NameParts> = {}): NameParts => ({
 // Windows file names: no < > : " / \ | ? * or control characters, no trailing dot or space,
 // and not CON, PRN, AUX, NUL, COM1-9 or LPT1-9 (Microsoft, "Naming Files, Paths, and Namespaces").
 const windowsSafe = (name: string) =>
-  !/[<>:"/\\|?*\u0000-\u001f]/.test(name) &&
+  ![...name].some((char) => char.charCodeAt(0) < 32 || '<>:"/\\|?*'.includes(char)) &&
   !/[. ]$/.test(name) &&
   !/^(con|prn|aux|nul|com[1-9]|lpt[1-9])(\..*)?$/i.test(name);
 

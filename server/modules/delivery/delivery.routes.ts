@@ -1,4 +1,5 @@
 import { pipeline } from 'node:stream/promises';
+import type { Response } from 'express';
 import { z } from 'zod';
 import type { RouteTable } from '../../lib/route-table';
 import { viewerOf } from '../../lib/route-table';
@@ -72,7 +73,7 @@ export function registerDeliveryRoutes(routes: RouteTable, delivery: DeliverySer
 }
 
 async function sendDownload(
-  res: import('express').Response,
+  res: Response,
   file: { stream: NodeJS.ReadableStream; fileName: string; size: number },
 ) {
   res.setHeader('Content-Type', 'image/jpeg');

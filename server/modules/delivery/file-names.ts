@@ -1,4 +1,5 @@
 import anyAscii from 'any-ascii';
+import { controlCharacterPattern } from '../../schemas/common';
 
 /**
  * File names for a delivery set from a client's template, e.g. "{employee_id}_{family}_{rendition}".
@@ -32,7 +33,8 @@ export function unknownTokens(template: string): string[] {
 
 export function safeSegment(text: string): string {
   return anyAscii(text)
-    .replace(/[<>:"/\\|?*\u0000-\u001f\u007f]/g, '')
+    .replace(new RegExp(controlCharacterPattern.source, 'g'), '')
+    .replace(/[<>:"/\\|?*]/g, '')
     .replace(/\s+/g, '-')
     .replace(/[^A-Za-z0-9._-]/g, '')
     .replace(/-{2,}/g, '-');
