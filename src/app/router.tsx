@@ -140,6 +140,20 @@ export function createAppRouter(queryClient: QueryClient) {
               },
             },
             {
+              path: '/days/:dayId/summary',
+              lazy: async () => {
+                const page = await import('./routes/invoices/day-summary');
+                return { Component: page.DaySummaryPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/invoices/:invoiceId',
+              lazy: async () => {
+                const page = await import('./routes/invoices/invoice');
+                return { Component: page.InvoicePage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/days/:dayId/sheet',
               lazy: async () => {
                 const page = await import('./routes/days/day-sheet');
