@@ -88,6 +88,14 @@ export function DayPage() {
                 Retouch queue
               </Link>
             ) : null}
+            {manages ? (
+              <Link
+                to={`/days/${day.id}/summary`}
+                className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+              >
+                Summary and invoice
+              </Link>
+            ) : null}
             <a
               href={`/api/days/${day.id}/schedule.csv`}
               download
