@@ -6,6 +6,7 @@ import { PackageSettings } from '../../../features/proofs/components/package-set
 import { PageHeading } from '../../../components/ui/page-heading';
 import { clientsQueryOptions, useClients } from '../../../features/clients/api/list-clients';
 import { CreateClientForm } from '../../../features/clients/components/create-client-form';
+import { PriceListForm } from '../../../features/invoices/components/price-list-form';
 import { plural } from '../../../lib/format';
 import { requireRole } from '../../guards';
 
@@ -61,6 +62,12 @@ export function ClientsPage() {
                     Portrait package
                   </summary>
                   <PackageSettings clientId={client.id} />
+                </details>
+                <details className="mt-3">
+                  <summary className="cursor-pointer text-sm font-medium text-spruce-700">
+                    Price list
+                  </summary>
+                  <PriceListForm clientId={client.id} />
                 </details>
               </Card>
             ))
