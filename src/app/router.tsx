@@ -28,6 +28,12 @@ export function createAppRouter(queryClient: QueryClient) {
           lazy: async () => ({ Component: (await import('./routes/link')).LinkPage }),
         },
         {
+          path: '/portraits/:token',
+          lazy: async () => ({
+            Component: (await import('./routes/looks/portraits-link')).PortraitsLinkPage,
+          }),
+        },
+        {
           path: '/password/:token',
           lazy: async () => ({ Component: (await import('./routes/password')).PasswordPage }),
         },
@@ -130,6 +136,20 @@ export function createAppRouter(queryClient: QueryClient) {
               lazy: async () => {
                 const page = await import('./routes/frames/day-retouch');
                 return { Component: page.DayRetouchPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/days/:dayId/set',
+              lazy: async () => {
+                const page = await import('./routes/looks/day-set');
+                return { Component: page.DaySetPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
+              path: '/clients/:clientId/look',
+              lazy: async () => {
+                const page = await import('./routes/looks/client-look');
+                return { Component: page.ClientLookPage, loader: page.makeLoader(queryClient) };
               },
             },
             {

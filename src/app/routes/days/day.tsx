@@ -9,6 +9,7 @@ import { dayQueryOptions, useDay } from '../../../features/days/api/get-day';
 import { ConfirmDayForm } from '../../../features/days/components/confirm-day-form';
 import { MailingPanel } from '../../../features/progress/components/mailing-panel';
 import { ProgressDashboard } from '../../../features/progress/components/progress-dashboard';
+import { DeliveryPanel } from '../../../features/looks/components/delivery-panel';
 import { ProofsPanel } from '../../../features/proofs/components/proofs-panel';
 import { requireRole } from '../../guards';
 
@@ -88,6 +89,14 @@ export function DayPage() {
                 Retouch queue
               </Link>
             ) : null}
+            {session?.user.role !== 'coordinator' ? (
+              <Link
+                to={`/days/${day.id}/set`}
+                className="inline-flex min-h-touch items-center rounded-control border border-line-strong px-4 font-medium text-spruce-700"
+              >
+                The set (renditions and delivery)
+              </Link>
+            ) : null}
             {manages ? (
               <Link
                 to={`/days/${day.id}/summary`}
@@ -118,6 +127,11 @@ export function DayPage() {
             <Card title="Progress" className="lg:col-span-2">
               <ProgressDashboard dayId={day.id} />
             </Card>
+            {day.status === 'confirmed' ? (
+              <Card title="Finished portraits">
+                <DeliveryPanel dayId={day.id} canRelease={false} canDownload />
+              </Card>
+            ) : null}
             {day.status === 'confirmed' ? (
               <Card title="Portraits chosen">
                 <ProofsPanel

@@ -41,6 +41,13 @@ export function ClientsPage() {
                     to={`/clients/${client.id}/people`}
                   >
                     People and roster import
+                  </Link>{' '}
+                  ·{' '}
+                  <Link
+                    className="font-medium text-spruce-700 underline"
+                    to={`/clients/${client.id}/look`}
+                  >
+                    Look and file names
                   </Link>
                 </p>
                 {client.offices.length > 0 ? (

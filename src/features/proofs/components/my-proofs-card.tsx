@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
+import { PortraitFiles } from '../../looks/components/portrait-files';
 import { useMyProofDays } from '../api/sitter-proofs';
 
 /** On the sitter's home page: their proofs, once the studio has sent them. */
@@ -21,6 +22,9 @@ export function MyProofsCard() {
                   : `Choose your portrait (${day.clientName}, ${day.date})`
                 : `See your portraits (${day.clientName}, ${day.date})`}
             </Link>
+            <div className="mt-2">
+              <PortraitFiles source={{ dayId: day.dayId }} />
+            </div>
           </li>
         ))}
       </ul>
