@@ -9,9 +9,9 @@ import sharp from 'sharp';
 /**
  * A real portrait for the face tests, taken from Debian's archive instead of the repository:
  * `astronaut.png` in python3-skimage's sample data, NASA's portrait of astronaut Eileen Collins
- * ("No known copyright restrictions, released into the public domain", says skimage.data.astronaut's docstring). The package
- * is fetched with `apt-get download` once per machine, unpacked with `dpkg-deb -x`, and only the
- * 512 x 512 PNG is kept in the cache folder.
+ * ("No known copyright restrictions, released into the public domain", says the docstring of
+ * skimage.data.astronaut). The package is fetched with `apt-get download` once per machine,
+ * unpacked with `dpkg-deb -x`, and only the 512 x 512 PNG is kept in the cache folder.
  */
 const run = promisify(execFile);
 const cacheFolder = path.join(os.tmpdir(), 'likeness-debian-portrait');
@@ -88,6 +88,8 @@ export interface Placement {
   scale: number;
   /** Degrees, clockwise on screen, as sharp's rotate. */
   rollDeg: number;
+  /** Grain over the grey, for timings: a flat frame decodes unrealistically fast. */
+  noise?: boolean;
 }
 
 export interface PlacedPortrait {
@@ -127,6 +129,7 @@ export async function placePortrait(
       height: placement.frameHeight,
       channels: 3,
       background: GREY,
+      ...(placement.noise && { noise: { type: 'gaussian', mean: 128, sigma: 24 } }),
     },
   })
     .composite([{ input: rotated.data, left: placement.left, top: placement.top }])

@@ -6,14 +6,17 @@ import {
   eyesOf,
   faceSquare,
   isTrusted,
+  meanOfLooks,
   nearestFace,
   rollDegrees,
+  unmirror,
   type EyePair,
   type Point,
 } from './eye-geometry';
 import { loadFaceModel, type FaceModel, type RgbImage } from './eye-human';
 import {
   cropRgb,
+  mirrorRgb,
   fitInside,
   openUpright,
   overlappingTiles,
@@ -53,6 +56,12 @@ export interface EyeFinder {
 
 /** Long edge of the copy the faces are searched in (the issue's 1,024 px). */
 export const DETECTION_EDGE = 1024;
+/**
+ * Long edge of the one decoded copy kept for the close look. A 6000 px JPEG shrinks by 4 while
+ * decoding, so this costs what decoding to 1,024 px does (about 200 ms on two cores; 2,048 px
+ * would need a shrink by 2 and take 340).
+ */
+const WORKING_EDGE = 1536;
 /** Long edge of the second, close look at the one face. */
 const CLOSE_LOOK_EDGE = 512;
 /** The close look's crop side as a multiple of the face box side: hair to chin, ear to ear. */
@@ -86,31 +95,42 @@ async function sightFaces(model: FaceModel, copy: RgbImage): Promise<Sighting[]>
 }
 
 /**
- * A second detection on a crop around the face taken from the original, at up to full
- * resolution. Human reports whole pixels of the image it saw, and in the 1,024 px copy of a
- * 24 MP frame one of those is six original pixels; here one is at most a fraction of one. Null
- * when the crop shows no face.
+ * A second detection on a crop around the face, the face about a quarter of the crop. Human
+ * reports whole pixels of the image it saw, and in the 1,024 px copy of a 24 MP frame one of
+ * those is six original pixels; here one is a fraction of that. The crop comes from the working
+ * copy when it holds the face at least half as large as wanted (the face mesh sees 192 px
+ * anyway), else from the original, decoded again. Null when the crop shows no face.
  */
 async function closeLook(
   model: FaceModel,
   image: UprightImage,
+  working: RgbImage,
   square: { x: number; y: number; side: number },
 ): Promise<{ face: FaceResult; eyes: EyePair } | null> {
   const side = square.side * CLOSE_LOOK_MARGIN;
-  const factor = Math.min(1, CLOSE_LOOK_EDGE / side);
+  const wanted = Math.min(1, CLOSE_LOOK_EDGE / side);
+  const workingFactor = working.width / image.width;
+  const source = workingFactor >= wanted / 2 ? working : image;
+  const factor = source === working ? wanted / workingFactor : wanted;
   const scaled = {
-    width: Math.max(1, Math.round(image.width * factor)),
-    height: Math.max(1, Math.round(image.height * factor)),
+    width: Math.max(1, Math.round(source.width * factor)),
+    height: Math.max(1, Math.round(source.height * factor)),
   };
+  // From here on, scaled pixels against the original's.
   const fx = scaled.width / image.width;
   const fy = scaled.height / image.height;
   const region = squareAround({ x: square.x * fx, y: square.y * fy }, side * fx, scaled);
   if (!region) return null;
-  const crop = await readScaled(image, scaled, region);
+  const crop = await readScaled(source, scaled, region);
   const centre = { x: square.x * fx - region.left, y: square.y * fy - region.top };
   const face = nearestFace(await model.detect(crop), centre);
-  const eyes = face ? eyesOf(face) : null;
-  if (!face || !eyes) return null;
+  const direct = face ? eyesOf(face) : null;
+  if (!face || !direct) return null;
+  // The same crop mirrored: the models' left-right leanings cancel in the mean of the two looks.
+  const mirroredCentre = { x: crop.width - centre.x, y: centre.y };
+  const mirroredFace = nearestFace(await model.detect(mirrorRgb(crop)), mirroredCentre);
+  const mirrored = mirroredFace ? eyesOf(mirroredFace) : null;
+  const eyes = mirrored ? meanOfLooks(direct, unmirror(mirrored, crop.width)) : direct;
   const back = ({ x, y }: Point): Point => ({
     x: (x + region.left) / fx,
     y: (y + region.top) / fy,
@@ -120,7 +140,8 @@ async function closeLook(
 
 async function findEyes(model: FaceModel, input: Buffer | string): Promise<EyeFinding> {
   const image = await openUpright(input);
-  const copy = await readScaled(image, fitInside(image, DETECTION_EDGE));
+  const working = await readScaled(image, fitInside(image, WORKING_EDGE));
+  const copy = await readScaled(working, fitInside(image, DETECTION_EDGE));
   const fx = copy.width / image.width;
   const fy = copy.height / image.height;
   const sightings = await sightFaces(model, copy);
@@ -136,7 +157,7 @@ async function findEyes(model: FaceModel, input: Buffer | string): Promise<EyeFi
 
   const inOriginal = { x: sighting.square.x / fx, y: sighting.square.y / fy };
   const side = sighting.square.side / Math.min(fx, fy);
-  const close = await closeLook(model, image, { ...inOriginal, side });
+  const close = await closeLook(model, image, working, { ...inOriginal, side });
   const firstEyes = eyesOf(sighting.face);
   const eyes: EyePair | null =
     close?.eyes ??

@@ -64,6 +64,17 @@ export function eyesOf(face: FaceResult): EyePair | null {
   return { left, right, source: hasIris ? 'iris' : 'lids' };
 }
 
+/** Eyes seen in a mirrored image of `width` px, in the unmirrored image's pixels. */
+export function unmirror(eyes: EyePair, width: number): EyePair {
+  const flip = ({ x, y }: Point): Point => ({ x: width - x, y });
+  return { left: flip(eyes.right), right: flip(eyes.left), source: eyes.source };
+}
+
+export function meanOfLooks(a: EyePair, b: EyePair): EyePair {
+  const mean = (p: Point, q: Point): Point => ({ x: (p.x + q.x) / 2, y: (p.y + q.y) / 2 });
+  return { left: mean(a.left, b.left), right: mean(a.right, b.right), source: a.source };
+}
+
 export function distance(a: Point, b: Point): number {
   return Math.hypot(b.x - a.x, b.y - a.y);
 }

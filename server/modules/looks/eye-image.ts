@@ -34,17 +34,20 @@ export function fitInside(
 }
 
 /**
- * The upright image scaled to `width` x `height`, then cut to `region` (in scaled pixels), as
- * RGB. sharp shrinks while decoding a JPEG, so a 24 MP frame is not decoded at full size unless
- * the region needs every pixel.
+ * The upright image (or an RGB copy of it) scaled to `size`, then cut to `region` (in scaled
+ * pixels), as RGB. sharp shrinks while decoding a JPEG, so a 24 MP frame is not decoded at full
+ * size unless the region needs every pixel.
  */
 export async function readScaled(
-  image: UprightImage,
+  source: UprightImage | RgbImage,
   size: { width: number; height: number },
   region?: Region,
 ): Promise<RgbImage> {
-  let pipeline = sharp(image.input)
-    .rotate()
+  const decoded =
+    'data' in source
+      ? sharp(source.data, { raw: { width: source.width, height: source.height, channels: 3 } })
+      : sharp(source.input).rotate();
+  let pipeline = decoded
     .resize({ ...size, fit: 'fill' })
     .removeAlpha()
     .toColourspace('srgb');
@@ -62,6 +65,18 @@ export function cropRgb(image: RgbImage, region: Region): RgbImage {
     image.data.copy(data, row * region.width * 3, start, start + region.width * 3);
   }
   return { data, width: region.width, height: region.height };
+}
+
+/** The image flipped left to right. */
+export function mirrorRgb(image: RgbImage): RgbImage {
+  const data = Buffer.alloc(image.data.length);
+  for (let row = 0; row < image.height; row += 1) {
+    for (let column = 0; column < image.width; column += 1) {
+      const from = (row * image.width + column) * 3;
+      image.data.copy(data, (row * image.width + image.width - 1 - column) * 3, from, from + 3);
+    }
+  }
+  return { ...image, data };
 }
 
 /**
