@@ -26,12 +26,7 @@ export function ClientLookPage() {
         How every delivered portrait of this client is framed and named. Each preset value shows
         where it comes from.
       </PageHeading>
-      <LookEditor
-        key={data.version}
-        clientId={clientId}
-        data={data}
-        canEdit={session?.user.role === 'studio_admin'}
-      />
+      <LookEditor clientId={clientId} data={data} canEdit={session?.user.role === 'studio_admin'} />
     </>
   );
 }
