@@ -1,7 +1,5 @@
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import type { Writable } from 'node:stream';
-import { once } from 'node:events';
-import { ZipArchive } from 'archiver';
 import type { Clock } from '../../adapters/clock';
 import type { ObjectStorage } from '../../adapters/storage/storage';
 import type { Db } from '../../db/database';
@@ -17,6 +15,7 @@ import * as mailings from '../invitations/invitations.repository';
 import { findLook } from '../looks/looks.repository';
 import * as repo from './delivery.repository';
 import { uniqueFileNames } from './file-names';
+import { streamZip } from './set-zip';
 
 export const PORTRAITS_MAIL_TASK = 'portraits-mail';
 const LINK_TTL_MS = 30 * 24 * 3_600_000;
@@ -195,65 +194,58 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
           (!filter.office || person.officeName === filter.office) &&
           (!filter.department || person.department === filter.department),
       );
-      const archive = new ZipArchive({ zlib: { level: 0 } });
-      archive.pipe(out);
-      archive.append(
-        toCsv([
-          [
-            'Employee id',
-            'E-mail',
-            'Given name',
-            'Family name',
-            'Preferred name',
-            'Office',
-            'Department',
-            'Rendition',
-            'File name',
-            'Bytes',
-            'Changed in this release',
-          ],
-          ...set.map((row) => [
-            row.employeeId ?? '',
-            row.email ?? '',
-            row.givenName,
-            row.familyName,
-            row.preferredName ?? '',
-            row.officeName ?? '',
-            row.department ?? '',
-            row.renditionName,
-            row.fileName,
-            String(row.byteSize),
-            row.changed ? 'yes' : 'no',
-          ]),
+      const manifest = toCsv([
+        [
+          'Employee id',
+          'E-mail',
+          'Given name',
+          'Family name',
+          'Preferred name',
+          'Office',
+          'Department',
+          'Rendition',
+          'File name',
+          'Bytes',
+          'Changed in this release',
+        ],
+        ...set.map((row) => [
+          row.employeeId ?? '',
+          row.email ?? '',
+          row.givenName,
+          row.familyName,
+          row.preferredName ?? '',
+          row.officeName ?? '',
+          row.department ?? '',
+          row.renditionName,
+          row.fileName,
+          String(row.byteSize),
+          row.changed ? 'yes' : 'no',
         ]),
-        { name: 'manifest.csv' },
-      );
-      await once(archive, 'entry');
-      archive.append(
-        toCsv([
-          ['Employee id', 'E-mail', 'Given name', 'Family name', 'Office', 'Department', 'Why'],
-          ...missing.map((person) => [
-            person.employeeId ?? '',
-            person.email ?? '',
-            person.givenName,
-            person.familyName,
-            person.officeName ?? '',
-            person.department ?? '',
-            !expected.photographed.has(person.id)
-              ? 'Not photographed'
-              : expected.picked.has(person.id)
-                ? 'Photographed; portrait not finished yet'
-                : 'Photographed; no portrait chosen yet',
-          ]),
+      ]);
+      const missingCsv = toCsv([
+        ['Employee id', 'E-mail', 'Given name', 'Family name', 'Office', 'Department', 'Why'],
+        ...missing.map((person) => [
+          person.employeeId ?? '',
+          person.email ?? '',
+          person.givenName,
+          person.familyName,
+          person.officeName ?? '',
+          person.department ?? '',
+          !expected.photographed.has(person.id)
+            ? 'Not photographed'
+            : expected.picked.has(person.id)
+              ? 'Photographed; portrait not finished yet'
+              : 'Photographed; no portrait chosen yet',
         ]),
-        { name: 'missing.csv' },
+      ]);
+      await streamZip(
+        out,
+        [
+          { name: 'manifest.csv', content: manifest },
+          { name: 'missing.csv', content: missingCsv },
+        ],
+        set.map((row) => ({ name: row.fileName, open: () => storage.read(row.key) })),
       );
-      await once(archive, 'entry');
-      for (const row of set) {
-        archive.append(await storage.read(row.key), { name: row.fileName });
-        await once(archive, 'entry');
-      }
-      await archive.finalize();
     },
 
     issueLink: (dayId: string, personId: string) => issueDownloadLink(db, clock, dayId, personId),
