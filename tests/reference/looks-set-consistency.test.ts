@@ -64,7 +64,8 @@ afterAll(() => finder?.close());
 
 describe('a consistent set from one face placed three ways (Debian python3-skimage portrait)', () => {
   for (const preset of lookPresets) {
-    it(`${preset.key}: the eye line and eye distance agree within 2 px across the set`, () => {
+    const distanceBar = preset.key === 'id_badge' ? 2.5 : 2;
+    it(`${preset.key}: the eye line within 2 px and the eye distance within ${distanceBar} px across the set`, () => {
       const list = found.get(preset.key)!;
       expect(list).toHaveLength(placements.length);
       const spread = (values: number[]) => Math.max(...values) - Math.min(...values);
@@ -73,8 +74,7 @@ describe('a consistent set from one face placed three ways (Debian python3-skima
       // 2.5 px apart: the detector's scatter on the source (about 2 % of the eye distance) is
       // carried into the scale. Said plainly here rather than hidden; the larger renditions
       // meet 2 px.
-      const bar = preset.key === 'id_badge' ? 2.5 : 2;
-      expect(spread(list.map((each) => each.eyeDistance))).toBeLessThanOrEqual(bar);
+      expect(spread(list.map((each) => each.eyeDistance))).toBeLessThanOrEqual(distanceBar);
     });
   }
 
