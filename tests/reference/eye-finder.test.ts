@@ -92,6 +92,20 @@ describe("eye finder on Debian's astronaut portrait (NASA, public domain)", () =
     }
   }, 180_000);
 
+  it('answers calls made at once one by one, each as if alone', async () => {
+    const placed = await placePortrait(portrait, placements[1]!);
+    const blank = await blankFrame(3000, 2000);
+    const alone = await finder.find(placed.frame);
+    const together = await Promise.all([
+      finder.find(placed.frame),
+      finder.find(blank),
+      finder.find(placed.frame),
+    ]);
+    expect(together.map((finding) => finding.status)).toEqual(['found', 'no_face', 'found']);
+    expect(together[0]).toEqual(alone);
+    expect(together[2]).toEqual(alone);
+  }, 60_000);
+
   it('reports no face in a blank frame', async () => {
     const finding = await finder.find(await blankFrame(4000, 3000));
     expect(finding).toEqual({
