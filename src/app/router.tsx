@@ -167,6 +167,13 @@ export function createAppRouter(queryClient: QueryClient) {
               },
             },
             {
+              path: '/clients/:clientId/summary',
+              lazy: async () => {
+                const page = await import('./routes/invoices/client-summary');
+                return { Component: page.ClientSummaryPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/invoices/:invoiceId',
               lazy: async () => {
                 const page = await import('./routes/invoices/invoice');

@@ -48,6 +48,13 @@ export function ClientsPage() {
                     to={`/clients/${client.id}/look`}
                   >
                     Look and file names
+                  </Link>{' '}
+                  ·{' '}
+                  <Link
+                    className="font-medium text-spruce-700 underline"
+                    to={`/clients/${client.id}/summary`}
+                  >
+                    Summary of all days
                   </Link>
                 </p>
                 {client.offices.length > 0 ? (

@@ -58,6 +58,18 @@ export function CoordinatorHome({ name }: { name: string }) {
                   >
                     Import a newer staff list
                   </Link>
+                  <Link
+                    className="font-medium text-spruce-700 underline"
+                    to={`/clients/${client.id}/summary`}
+                  >
+                    Summary of all days
+                  </Link>
+                  <Link
+                    className="font-medium text-spruce-700 underline"
+                    to={`/clients/${client.id}/look`}
+                  >
+                    How the portraits are framed and named
+                  </Link>
                 </p>
               </>
             )}
