@@ -126,7 +126,13 @@ describe('review of the matching', () => {
     await expect.poll(() => moved.textContent()).toMatch(/by hand/);
 
     // Match again: the run does not undo a person's decision.
-    await page.getByRole('button', { name: 'Match again' }).click();
+    // The job is queued by the request: wait for its answer before running the queue.
+    await Promise.all([
+      page.waitForResponse(
+        (response) => response.url().endsWith('/review/run') && response.status() === 202,
+      ),
+      page.getByRole('button', { name: 'Match again' }).click(),
+    ]);
     await runQueuedJobs(env.testApp);
     await page.getByText(/Last matched .* when asked/).waitFor({ timeout: 15_000 });
     expect(await moved.count()).toBe(1);
