@@ -15,6 +15,7 @@ import { startDayJobsWorker } from '../server/jobs/day-jobs';
 import { frameTasks } from '../server/modules/frames/frame-tasks';
 import { matchingTasks } from '../server/modules/matching/matching-tasks';
 import { portraitTasks } from '../server/modules/looks/portrait-tasks';
+import { createDeliveryService } from '../server/modules/delivery/delivery.service';
 import { createLogger } from '../server/lib/logger';
 import {
   DEMO_PASSWORD,
@@ -157,6 +158,7 @@ async function main() {
       ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
       ...matchingTasks({ db, logger }),
       ...portraits.handlers,
+      ...createDeliveryService({ db, clock: systemClock, storage }).handlers(),
     },
   );
   cleanups.push(() => portraits.close());

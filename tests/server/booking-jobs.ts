@@ -4,6 +4,7 @@ import { createLogger } from '../../server/lib/logger';
 import { frameTasks } from '../../server/modules/frames/frame-tasks';
 import { matchingTasks } from '../../server/modules/matching/matching-tasks';
 import { portraitTasks } from '../../server/modules/looks/portrait-tasks';
+import { createDeliveryService } from '../../server/modules/delivery/delivery.service';
 import type { Logger } from '../../server/lib/logger';
 import type { TestApp } from '../setup/test-app';
 
@@ -42,6 +43,7 @@ export async function runQueuedJobs(t: TestApp): Promise<number> {
         ...frameTasks({ db: t.db, storage: t.storage, maxPixels: 100_000_000, logger }),
         ...matchingTasks({ db: t.db, logger }),
         ...portraitsOf(t, logger).handlers,
+        ...createDeliveryService({ db: t.db, clock: t.clock, storage: t.storage }).handlers(),
       },
     );
   } finally {

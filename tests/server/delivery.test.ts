@@ -175,6 +175,38 @@ describe('the delivery set', () => {
     await request(t.app).get(`/api/portraits/${token}`).expect(410);
   });
 
+  it('serves the stored archive of the release with byte ranges, so a broken download resumes (RFC 9110)', async () => {
+    // The release's job has written the whole set to storage (run with the mail above).
+    const url = `/api/days/${ready.day.dayId}/delivery.zip`;
+    const whole = await coordinator.get(url).buffer(true).parse(binaryBody).expect(200);
+    expect(whole.headers['accept-ranges']).toBe('bytes');
+    expect(whole.headers.etag).toBe('"release-1"');
+    const bytes = whole.body as Buffer;
+    // A download cut off after the first 1,000 bytes asks for the rest.
+    const rest = await coordinator
+      .get(url)
+      .set('Range', 'bytes=1000-')
+      .set('If-Range', '"release-1"')
+      .buffer(true)
+      .parse(binaryBody)
+      .expect(206);
+    expect(rest.headers['content-range']).toBe(`bytes 1000-${bytes.length - 1}/${bytes.length}`);
+    expect(Buffer.concat([bytes.subarray(0, 1000), rest.body as Buffer]).equals(bytes)).toBe(true);
+    const tail = await coordinator
+      .get(url)
+      .set('Range', 'bytes=-50')
+      .buffer(true)
+      .parse(binaryBody)
+      .expect(206);
+    expect((tail.body as Buffer).equals(bytes.subarray(bytes.length - 50))).toBe(true);
+    await coordinator
+      .get(url)
+      .set('Range', `bytes=${bytes.length + 10}-`)
+      .expect(416);
+    // A range asked against an older release gets the whole current file instead.
+    await coordinator.get(url).set('Range', 'bytes=0-9').set('If-Range', '"release-0"').expect(200);
+  });
+
   it('takes the photographer’s eye marks over detection, and a re-release says what changed', async () => {
     const eyesOf = async (pickId: string) =>
       (await set()).sitters.find((sitter: { pickId: string }) => sitter.pickId === pickId).eyes;

@@ -38,7 +38,34 @@ export function registerDeliveryRoutes(routes: RouteTable, delivery: DeliverySer
       res.setHeader('Content-Type', 'application/zip');
       res.setHeader('Cache-Control', 'private, no-store');
       res.setHeader('Content-Disposition', `attachment; filename="portraits-${dayId}.zip"`);
-      await delivery.writeZip(viewerOf(req), dayId, filter, res);
+      const stored =
+        filter.office || filter.department
+          ? null
+          : await delivery.storedArchive(viewerOf(req), dayId);
+      if (!stored) {
+        // Not written to storage yet (or a part of the set): streamed while it is made.
+        await delivery.writeZip(viewerOf(req), dayId, filter, res);
+        return;
+      }
+      // The whole set of this release is stored: a broken download resumes (RFC 9110 ranges).
+      const etag = `"release-${stored.release}"`;
+      res.setHeader('Accept-Ranges', 'bytes');
+      res.setHeader('ETag', etag);
+      const ifRange = req.headers['if-range'];
+      const range = ifRange && ifRange !== etag ? null : byteRange(req.headers.range, stored.size);
+      if (range === 'unsatisfiable') {
+        res.status(416).setHeader('Content-Range', `bytes */${stored.size}`).end();
+        return;
+      }
+      if (range) {
+        res.status(206);
+        res.setHeader('Content-Range', `bytes ${range.start}-${range.end}/${stored.size}`);
+        res.setHeader('Content-Length', String(range.end - range.start + 1));
+        await pipeline(await delivery.readArchive(stored.key, range), res);
+        return;
+      }
+      res.setHeader('Content-Length', String(stored.size));
+      await pipeline(await delivery.readArchive(stored.key), res);
     },
   );
   routes.add('delete', '/days/:dayId/delivery/links/:personId', studio, async (req, res) => {
@@ -70,6 +97,21 @@ export function registerDeliveryRoutes(routes: RouteTable, delivery: DeliverySer
     );
     await sendDownload(res, file);
   });
+}
+
+/** One "bytes=start-end" range (or "bytes=start-" / "bytes=-suffix"); others are ignored. */
+export function byteRange(
+  header: string | undefined,
+  size: number,
+): { start: number; end: number } | 'unsatisfiable' | null {
+  const match = header ? /^bytes=(\d*)-(\d*)$/.exec(header.trim()) : null;
+  if (!match || (match[1] === '' && match[2] === '')) return null;
+  const [start, end] =
+    match[1] === ''
+      ? [Math.max(0, size - Number(match[2])), size - 1]
+      : [Number(match[1]), match[2] === '' ? size - 1 : Math.min(Number(match[2]), size - 1)];
+  if (start >= size || start > end) return 'unsatisfiable';
+  return { start, end };
 }
 
 async function sendDownload(

@@ -1,9 +1,9 @@
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
-import type { Writable } from 'node:stream';
+import { PassThrough, type Writable } from 'node:stream';
 import type { Clock } from '../../adapters/clock';
 import type { ObjectStorage } from '../../adapters/storage/storage';
 import type { Db } from '../../db/database';
-import { addJobs } from '../../jobs/job-queue';
+import { addJob, addJobs, type JobHandlers } from '../../jobs/job-queue';
 import { recordAudit } from '../../lib/audit';
 import { toCsv } from '../../lib/csv';
 import { AppError, forbidden, notFound } from '../../lib/errors';
@@ -19,6 +19,8 @@ import { streamZip } from './set-zip';
 
 export const PORTRAITS_MAIL_TASK = 'portraits-mail';
 const LINK_TTL_MS = 30 * 24 * 3_600_000;
+const archiveKey = (dayId: string, release: number) => `archives/${dayId}/release-${release}.zip`;
+export const STORE_ARCHIVE_TASK = 'store-set-archive';
 export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
 export type DeliveryService = ReturnType<typeof createDeliveryService>;
@@ -110,6 +112,12 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
           { id: randomUUID(), dayId: day.id, release, userId: viewer.id, changed },
           rows,
         );
+        await addJob(
+          trx,
+          STORE_ARCHIVE_TASK,
+          { dayId: day.id, release },
+          { jobKey: `store-set-archive:${day.id}` },
+        );
         const ids = await mailings.insertMailings(trx, day.id, people, 'portraits_ready', release);
         await addJobs(
           trx,
@@ -172,80 +180,34 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
       const day = await readableDay(viewer, dayId);
       if (viewer.role === 'photographer')
         throw forbidden('HR and the studio admin download the set.');
-      const set = (await repo.currentSet(db, day.id)).filter(
-        (row) =>
-          (!filter.office || row.officeName === filter.office) &&
-          (!filter.department || row.department === filter.department),
-      );
-      if (set.length === 0)
-        throw new AppError(
-          'nothing_released',
-          409,
-          'No portraits have been released for that yet.',
-        );
-      const expected = await repo.expectedPeople(db, day);
-      const delivered = new Set(set.map((row) => row.personId));
-      const missingPeople = await repo.peopleByIds(
-        db,
-        expected.invitedIds.filter((id) => !delivered.has(id)),
-      );
-      const missing = missingPeople.filter(
-        (person) =>
-          (!filter.office || person.officeName === filter.office) &&
-          (!filter.department || person.department === filter.department),
-      );
-      const manifest = toCsv([
-        [
-          'Employee id',
-          'E-mail',
-          'Given name',
-          'Family name',
-          'Preferred name',
-          'Office',
-          'Department',
-          'Rendition',
-          'File name',
-          'Bytes',
-          'Changed in this release',
-        ],
-        ...set.map((row) => [
-          row.employeeId ?? '',
-          row.email ?? '',
-          row.givenName,
-          row.familyName,
-          row.preferredName ?? '',
-          row.officeName ?? '',
-          row.department ?? '',
-          row.renditionName,
-          row.fileName,
-          String(row.byteSize),
-          row.changed ? 'yes' : 'no',
-        ]),
-      ]);
-      const missingCsv = toCsv([
-        ['Employee id', 'E-mail', 'Given name', 'Family name', 'Office', 'Department', 'Why'],
-        ...missing.map((person) => [
-          person.employeeId ?? '',
-          person.email ?? '',
-          person.givenName,
-          person.familyName,
-          person.officeName ?? '',
-          person.department ?? '',
-          !expected.photographed.has(person.id)
-            ? 'Not photographed'
-            : expected.picked.has(person.id)
-              ? 'Photographed; portrait not finished yet'
-              : 'Photographed; no portrait chosen yet',
-        ]),
-      ]);
-      await streamZip(
-        out,
-        [
-          { name: 'manifest.csv', content: manifest },
-          { name: 'missing.csv', content: missingCsv },
-        ],
-        set.map((row) => ({ name: row.fileName, open: () => storage.read(row.key) })),
-      );
+      await buildZip(day, filter, out);
+    },
+
+    /** The whole set's stored archive for the current release, when it has been written. */
+    async storedArchive(viewer: Viewer, dayId: string) {
+      const day = await readableDay(viewer, dayId);
+      if (viewer.role === 'photographer')
+        throw forbidden('HR and the studio admin download the set.');
+      const latest = await repo.latestRelease(db, day.id);
+      if (!latest) return null;
+      const key = archiveKey(day.id, latest.release);
+      const stat = await storage.stat(key);
+      return stat ? { key, size: stat.size, release: latest.release } : null;
+    },
+
+    readArchive: (key: string, range?: { start: number; end: number }) => storage.read(key, range),
+
+    /** Job: writes the whole set of a release to storage, so a broken download can resume. */
+    async storeArchive(dayId: string, release: number) {
+      const latest = await repo.latestRelease(db, dayId);
+      const day = await findDay(db, dayId);
+      if (!day || latest?.release !== release) return; // a newer release has its own job
+      const stream = new PassThrough();
+      const stored = storage.put(archiveKey(dayId, release), stream, {
+        contentType: 'application/zip',
+      });
+      await buildZip(day, {}, stream);
+      await stored;
     },
 
     issueLink: (dayId: string, personId: string) => issueDownloadLink(db, clock, dayId, personId),
@@ -281,6 +243,17 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
 
     filesOf,
 
+    handlers(): JobHandlers {
+      return {
+        [STORE_ARCHIVE_TASK]: async (payload) => {
+          const job = payload as { dayId?: unknown; release?: unknown };
+          if (typeof job.dayId === 'string' && typeof job.release === 'number') {
+            await this.storeArchive(job.dayId, job.release);
+          }
+        },
+      };
+    },
+
     async openDelivered(id: string, personId: string) {
       const row = await db
         .selectFrom('deliveredRenditions')
@@ -296,6 +269,83 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
       };
     },
   };
+
+  async function buildZip(
+    day: DayRecord,
+    filter: { office?: string | undefined; department?: string | undefined },
+    out: Writable,
+  ) {
+    const set = (await repo.currentSet(db, day.id)).filter(
+      (row) =>
+        (!filter.office || row.officeName === filter.office) &&
+        (!filter.department || row.department === filter.department),
+    );
+    if (set.length === 0)
+      throw new AppError('nothing_released', 409, 'No portraits have been released for that yet.');
+    const expected = await repo.expectedPeople(db, day);
+    const delivered = new Set(set.map((row) => row.personId));
+    const missingPeople = await repo.peopleByIds(
+      db,
+      expected.invitedIds.filter((id) => !delivered.has(id)),
+    );
+    const missing = missingPeople.filter(
+      (person) =>
+        (!filter.office || person.officeName === filter.office) &&
+        (!filter.department || person.department === filter.department),
+    );
+    const manifest = toCsv([
+      [
+        'Employee id',
+        'E-mail',
+        'Given name',
+        'Family name',
+        'Preferred name',
+        'Office',
+        'Department',
+        'Rendition',
+        'File name',
+        'Bytes',
+        'Changed in this release',
+      ],
+      ...set.map((row) => [
+        row.employeeId ?? '',
+        row.email ?? '',
+        row.givenName,
+        row.familyName,
+        row.preferredName ?? '',
+        row.officeName ?? '',
+        row.department ?? '',
+        row.renditionName,
+        row.fileName,
+        String(row.byteSize),
+        row.changed ? 'yes' : 'no',
+      ]),
+    ]);
+    const missingCsv = toCsv([
+      ['Employee id', 'E-mail', 'Given name', 'Family name', 'Office', 'Department', 'Why'],
+      ...missing.map((person) => [
+        person.employeeId ?? '',
+        person.email ?? '',
+        person.givenName,
+        person.familyName,
+        person.officeName ?? '',
+        person.department ?? '',
+        !expected.photographed.has(person.id)
+          ? 'Not photographed'
+          : expected.picked.has(person.id)
+            ? 'Photographed; portrait not finished yet'
+            : 'Photographed; no portrait chosen yet',
+      ]),
+    ]);
+    await streamZip(
+      out,
+      [
+        { name: 'manifest.csv', content: manifest },
+        { name: 'missing.csv', content: missingCsv },
+      ],
+      set.map((row) => ({ name: row.fileName, open: () => storage.read(row.key) })),
+    );
+  }
 
   async function filesOf(dayId: string, personId: string) {
     const rows = await db
