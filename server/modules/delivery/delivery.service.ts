@@ -5,7 +5,6 @@ import type { ObjectStorage } from '../../adapters/storage/storage';
 import type { Db } from '../../db/database';
 import { addJob, addJobs, type JobHandlers } from '../../jobs/job-queue';
 import { recordAudit } from '../../lib/audit';
-import { toCsv } from '../../lib/csv';
 import { AppError, forbidden, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import { findDay, type DayRecord } from '../days/days.repository';
@@ -13,6 +12,7 @@ import { staffMaySee } from '../days/days.service';
 import { findStudioDay } from '../days/studio-day-access';
 import * as mailings from '../invitations/invitations.repository';
 import { findLook } from '../looks/looks.repository';
+import { manifestCsv, missingListCsv } from './delivery-csv';
 import * as repo from './delivery.repository';
 import { uniqueFileNames } from './file-names';
 import { streamZip } from './set-zip';
@@ -293,50 +293,8 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
         (!filter.office || person.officeName === filter.office) &&
         (!filter.department || person.department === filter.department),
     );
-    const manifest = toCsv([
-      [
-        'Employee id',
-        'E-mail',
-        'Given name',
-        'Family name',
-        'Preferred name',
-        'Office',
-        'Department',
-        'Rendition',
-        'File name',
-        'Bytes',
-        'Changed in this release',
-      ],
-      ...set.map((row) => [
-        row.employeeId ?? '',
-        row.email ?? '',
-        row.givenName,
-        row.familyName,
-        row.preferredName ?? '',
-        row.officeName ?? '',
-        row.department ?? '',
-        row.renditionName,
-        row.fileName,
-        String(row.byteSize),
-        row.changed ? 'yes' : 'no',
-      ]),
-    ]);
-    const missingCsv = toCsv([
-      ['Employee id', 'E-mail', 'Given name', 'Family name', 'Office', 'Department', 'Why'],
-      ...missing.map((person) => [
-        person.employeeId ?? '',
-        person.email ?? '',
-        person.givenName,
-        person.familyName,
-        person.officeName ?? '',
-        person.department ?? '',
-        !expected.photographed.has(person.id)
-          ? 'Not photographed'
-          : expected.picked.has(person.id)
-            ? 'Photographed; portrait not finished yet'
-            : 'Photographed; no portrait chosen yet',
-      ]),
-    ]);
+    const manifest = manifestCsv(set);
+    const missingCsv = missingListCsv(missing, expected);
     await streamZip(
       out,
       [
