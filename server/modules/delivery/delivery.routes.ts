@@ -11,7 +11,9 @@ const studio = ['studio_admin', 'photographer'] as const;
 const label = z
   .string()
   .max(200)
-  .refine((value) => !controlCharacterPattern.test(value), { error: 'Control characters.' });
+  .refine((value) => !controlCharacterPattern.test(value), {
+    error: 'The office or department contains control characters.',
+  });
 const zipQuerySchema = z
   .object({ office: label.optional(), department: label.optional() })
   .strict();

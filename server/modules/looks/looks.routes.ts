@@ -14,14 +14,22 @@ const templateSchema = z
   .trim()
   .min(1, { error: 'Give a file-name template.' })
   .max(200, { error: 'Keep the template to 200 characters.' })
-  .refine((value) => !controlCharacterPattern.test(value), { error: 'Control characters.' });
+  .refine((value) => !controlCharacterPattern.test(value), {
+    error: 'The template contains control characters.',
+  });
 const saveLookSchema = lookSchema.extend({ fileNameTemplate: templateSchema }).strict();
+const renditionNameSchema = z
+  .string()
+  .min(1)
+  .max(60, { error: 'No rendition has a name that long.' })
+  .refine((value) => !controlCharacterPattern.test(value), {
+    error: 'A rendition name has no control characters.',
+  });
 const previewSchema = z.object({
   template: templateSchema,
-  rendition: z.string().max(60).default('portrait'),
+  rendition: renditionNameSchema.default('portrait'),
 });
 const marksSchema = z.object({ leftEye: pointSchema, rightEye: pointSchema }).strict();
-const renditionNameSchema = z.string().min(1).max(60);
 
 export function registerLooksRoutes(
   routes: RouteTable,
