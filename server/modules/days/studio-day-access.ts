@@ -16,3 +16,14 @@ export async function findStudioDay(db: Db, viewer: Viewer, dayId: string) {
   }
   return day;
 }
+
+/**
+ * A day as the studio or the client follows it (proofs, delivery, frame counts): the studio's
+ * day rules above, or a coordinator's own client's day. Anything else is not found.
+ */
+export async function findFollowedDay(db: Db, viewer: Viewer, dayId: string) {
+  if (viewer.role !== 'coordinator') return findStudioDay(db, viewer, dayId);
+  const day = await findDay(db, dayId);
+  if (!day || viewer.clientId !== day.clientId) throw notFound('That shoot day');
+  return day;
+}

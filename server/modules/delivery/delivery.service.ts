@@ -8,8 +8,7 @@ import { recordAudit } from '../../lib/audit';
 import { AppError, forbidden, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import { findDay, type DayRecord } from '../days/days.repository';
-import { staffMaySee } from '../days/days.service';
-import { findStudioDay } from '../days/studio-day-access';
+import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import * as mailings from '../invitations/invitations.repository';
 import { findLook } from '../looks/looks.repository';
 import { manifestCsv, missingListCsv } from './delivery-csv';
@@ -45,13 +44,7 @@ export async function issueDownloadLink(db: Db, clock: Clock, dayId: string, per
 export function createDeliveryService(deps: { db: Db; clock: Clock; storage: ObjectStorage }) {
   const { db, clock, storage } = deps;
 
-  /** Studio staff of the day, or a coordinator of the day's client. */
-  async function readableDay(viewer: Viewer, dayId: string): Promise<DayRecord> {
-    if (viewer.role !== 'coordinator') return findStudioDay(db, viewer, dayId);
-    const day = await findDay(db, dayId);
-    if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
-    return day;
-  }
+  const readableDay = (viewer: Viewer, dayId: string) => findFollowedDay(db, viewer, dayId);
 
   return {
     readableDay,

@@ -18,9 +18,7 @@ import {
   type KnownFramesRequest,
 } from '../../schemas/frames';
 import type { DayFrameCounts } from '../../schemas/matching';
-import { findDay } from '../days/days.repository';
-import { staffMaySee } from '../days/days.service';
-import { findStudioDay } from '../days/studio-day-access';
+import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import { frameCounts } from '../matching/review-model';
 import { effectiveFrames } from '../matching/review.repository';
 import { frameCsvHeader, frameCsvRow } from './frame-csv';
@@ -218,8 +216,7 @@ export function createFramesService(deps: {
       query: FrameListQuery,
     ): Promise<FramePage | DayFrameCounts> {
       if (viewer.role === 'coordinator') {
-        const day = await findDay(db, dayId);
-        if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
+        const day = await findFollowedDay(db, viewer, dayId);
         return { dayId: day.id, counts: frameCounts(await effectiveFrames(db, day.id)) };
       }
       const day = await dayFor(viewer, dayId);

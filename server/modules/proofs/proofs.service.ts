@@ -8,8 +8,7 @@ import { AppError, forbidden, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import type { ProofProgress, ProofSettingsInput } from '../../schemas/proofs';
 import { findDay, type DayRecord } from '../days/days.repository';
-import { staffMaySee } from '../days/days.service';
-import { findStudioDay } from '../days/studio-day-access';
+import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import { zonedTimeToInstant } from '../days/zoned-time';
 import * as mailings from '../invitations/invitations.repository';
 import { proofsMail } from './proofs.mails';
@@ -30,13 +29,7 @@ export function createProofsService(deps: {
 }) {
   const { db, clock } = deps;
 
-  /** A day the viewer may follow: the studio's, or a coordinator's own client's. */
-  async function visibleDay(viewer: Viewer, dayId: string): Promise<DayRecord> {
-    if (viewer.role !== 'coordinator') return findStudioDay(db, viewer, dayId);
-    const day = await findDay(db, dayId);
-    if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
-    return day;
-  }
+  const visibleDay = (viewer: Viewer, dayId: string) => findFollowedDay(db, viewer, dayId);
 
   async function queueMail(
     viewer: Viewer,
