@@ -1,7 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { once } from 'node:events';
 import type { Writable } from 'node:stream';
-import { ZipArchive } from 'archiver';
 import type { ObjectStorage } from '../../adapters/storage/storage';
 import type { Db } from '../../db/database';
 import { recordAudit } from '../../lib/audit';
@@ -15,6 +13,7 @@ import { screenUploadedFile } from '../frames/frame-screening';
 import { refuseUpload, type FinalUploads } from '../frames/frames.service';
 import * as frames from '../frames/frames.repository';
 import * as proofs from '../proofs/proofs.repository';
+import { streamZip } from '../delivery/set-zip';
 import * as repo from './retouch.repository';
 
 export type RetouchService = ReturnType<typeof createRetouchService>;
@@ -141,25 +140,22 @@ export function createRetouchService(deps: { db: Db; storage: ObjectStorage; max
       return { pickId: pick.id, ...next };
     },
 
-    /** Streams every pick's original as one ZIP, one file at a time (memory stays flat). */
+    /** Streams every pick's original as one ZIP, one file at a time (the delivery's writer). */
     async writeOriginalsZip(viewer: Viewer, dayId: string, out: Writable) {
       const day = await findStudioDay(db, viewer, dayId);
       const picks = await repo.picksWithOriginals(db, day.id);
       if (picks.length === 0) throw new AppError('no_picks', 409, 'Nobody has picked yet.');
-      const archive = new ZipArchive({ zlib: { level: 0 } });
-      archive.pipe(out);
       const used = new Set<string>();
-      for (const pick of picks) {
+      const files = picks.map((pick) => {
         const folder = safeName(
           [pick.familyName, pick.givenName, pick.employeeId].filter(Boolean).join(' '),
         );
         let name = `${folder}/${safeName(pick.cardPath.split('/').pop() ?? 'frame')}`;
         if (used.has(name)) name = name.replace(/(\.[^.]*)?$/, `-${pick.id.slice(0, 8)}$1`);
         used.add(name);
-        archive.append(await storage.read(pick.originalKey), { name });
-        await once(archive, 'entry');
-      }
-      await archive.finalize();
+        return { name, open: () => storage.read(pick.originalKey) };
+      });
+      await streamZip(out, [], files);
       return `${day.clientName} ${day.date} picks.zip`;
     },
 
