@@ -2,7 +2,6 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { buffer } from 'node:stream/consumers';
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -10,7 +9,7 @@ import { insertStaff } from '../factories/accounts';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { debianPortrait, placePortrait } from '../support/debian-portrait';
 import { runQueuedJobs } from './booking-jobs';
-import { signedInAgent } from './helpers';
+import { binaryBody, signedInAgent } from './helpers';
 import { setUpProofsDay } from './proofs-day';
 import { createUpload, patchUpload } from './tus-client';
 
@@ -22,13 +21,6 @@ let ready: Awaited<ReturnType<typeof setUpProofsDay>>;
 let admin: request.Agent;
 let coordinator: request.Agent;
 const pickIds: string[] = [];
-
-function binaryBody(res: unknown, done: (error: Error | null, body: Buffer) => void) {
-  buffer(res as NodeJS.ReadableStream).then(
-    (body) => done(null, body),
-    (error: Error) => done(error, Buffer.alloc(0)),
-  );
-}
 
 async function sendFinal(pickId: string, fileName: string, bytes: Buffer) {
   const created = await createUpload(

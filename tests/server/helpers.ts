@@ -1,3 +1,4 @@
+import { buffer } from 'node:stream/consumers';
 import request from 'supertest';
 import type { TestApp } from '../setup/test-app';
 import { TEST_PASSWORD } from '../factories/accounts';
@@ -25,4 +26,12 @@ export async function signedInSitter(testApp: TestApp, email: string) {
     .send({ token: linkTokenFrom(mail.text, 'link') })
     .expect(201);
   return agent;
+}
+
+/** supertest hands a raw response to a parser: collect it as bytes (ZIPs, images). */
+export function binaryBody(res: unknown, done: (error: Error | null, body: Buffer) => void) {
+  buffer(res as NodeJS.ReadableStream).then(
+    (body) => done(null, body),
+    (error: Error) => done(error, Buffer.alloc(0)),
+  );
 }

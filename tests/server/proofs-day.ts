@@ -1,4 +1,8 @@
 import request from 'supertest';
+import { createSmtpMailer } from '../../server/adapters/mail/mailer';
+import { createLogger } from '../../server/lib/logger';
+import { createAuthService } from '../../server/modules/auth/auth.service';
+import { proofsServiceFor } from '../../server/modules/proofs/proofs-wiring';
 import { expect } from 'vitest';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
 import { insertDayWithStations } from '../factories/shoot-days';
@@ -64,4 +68,16 @@ export async function setUpProofsDay(
     sitters.push({ id: person.id, email: person.email, agent, mail });
   }
   return { client, day, plan, photographer, session, studio, sitters };
+}
+
+/** Runs the deadline's settling now, as the settle-picks job would at the deadline. */
+export async function settlePicksNow(t: TestApp, dayId: string) {
+  const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
+  try {
+    const logger = createLogger('silent');
+    const auth = createAuthService({ db: t.db, clock: t.clock, mailer, config: t.config, logger });
+    await proofsServiceFor({ db: t.db, clock: t.clock, mailer, auth }).settle(dayId);
+  } finally {
+    mailer.close();
+  }
 }

@@ -1,15 +1,11 @@
 import sharp from 'sharp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createSmtpMailer } from '../../server/adapters/mail/mailer';
-import { createAuthService } from '../../server/modules/auth/auth.service';
-import { proofsServiceFor } from '../../server/modules/proofs/proofs-wiring';
-import { createLogger } from '../../server/lib/logger';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { insertStaff } from '../factories/accounts';
 import { runQueuedJobs } from './booking-jobs';
 import { signedInAgent } from './helpers';
-import { setUpProofsDay } from './proofs-day';
+import { settlePicksNow, setUpProofsDay } from './proofs-day';
 import type { TusSession } from './tus-client';
 
 let t: TestApp;
@@ -177,16 +173,7 @@ describe('proofs and picks', () => {
       .send({ picks: [{ frameId: theirs[0]!.id }] })
       .expect(409);
     expect(late.body.error.code).toBe('picks_closed');
-    const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
-    const auth = createAuthService({
-      db: t.db,
-      clock: t.clock,
-      mailer,
-      config: t.config,
-      logger: createLogger('silent'),
-    });
-    await proofsServiceFor({ db: t.db, clock: t.clock, mailer, auth }).settle(day.dayId);
-    mailer.close();
+    await settlePicksNow(t, day.dayId);
     const picks = await t.db
       .selectFrom('picks')
       .where('personId', '=', sitters[1]!.id)

@@ -5,14 +5,10 @@ import path from 'node:path';
 import { buffer } from 'node:stream/consumers';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createSmtpMailer } from '../../server/adapters/mail/mailer';
-import { createLogger } from '../../server/lib/logger';
-import { createAuthService } from '../../server/modules/auth/auth.service';
-import { proofsServiceFor } from '../../server/modules/proofs/proofs-wiring';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { cameraJpeg, decompressionBomb, pngImage } from '../support/camera-cards';
-import { signedInAgent } from './helpers';
-import { setUpProofsDay } from './proofs-day';
+import { binaryBody, signedInAgent } from './helpers';
+import { settlePicksNow, setUpProofsDay } from './proofs-day';
 import { createUpload, patchUpload, type TusSession } from './tus-client';
 import { insertStaff } from '../factories/accounts';
 
@@ -29,14 +25,6 @@ interface Row {
   status: string;
   takenByMe: boolean;
   hasFinal: boolean;
-}
-
-/** supertest hands the raw response to a parser: collect it as bytes. */
-function binaryBody(res: unknown, done: (error: Error | null, body: Buffer) => void) {
-  buffer(res as NodeJS.ReadableStream).then(
-    (body) => done(null, body),
-    (error: Error) => done(error, Buffer.alloc(0)),
-  );
 }
 
 const queue = async (query = '') =>
@@ -79,16 +67,7 @@ beforeAll(async () => {
     .set({ picksCloseAt: new Date(t.clock.now().getTime() - 60_000) })
     .where('dayId', '=', ready.day.dayId)
     .execute();
-  const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
-  const auth = createAuthService({
-    db: t.db,
-    clock: t.clock,
-    mailer,
-    config: t.config,
-    logger: createLogger('silent'),
-  });
-  await proofsServiceFor({ db: t.db, clock: t.clock, mailer, auth }).settle(ready.day.dayId);
-  mailer.close();
+  await settlePicksNow(t, ready.day.dayId);
 }, 120_000);
 
 afterAll(async () => {
