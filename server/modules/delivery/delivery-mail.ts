@@ -4,7 +4,7 @@ import { renderMail } from '../../adapters/mail/render-mail';
 import type { Db } from '../../db/database';
 import type { JobHandlers } from '../../jobs/job-queue';
 import { findDay } from '../days/days.repository';
-import * as mailings from '../invitations/invitations.repository';
+import { sendLoggedMailing } from '../invitations/logged-mail';
 import { issueDownloadLink, PORTRAITS_MAIL_TASK } from './delivery.service';
 
 /** "Your portraits are ready": each sitter's personal link, sent once per release that changed theirs. */
@@ -15,15 +15,10 @@ export function portraitsMailTasks(deps: {
   publicUrl: string;
 }): JobHandlers {
   const { db, clock } = deps;
-  async function send(mailingId: string, lastAttempt: boolean) {
-    const mailing = await mailings.findMailing(db, mailingId);
-    if (!mailing || mailing.status !== 'queued' || mailing.kind !== 'portraits_ready') return;
-    const day = await findDay(db, mailing.dayId);
-    if (!day || !mailing.active) {
-      await mailings.markMailing(db, mailingId, 'failed', 'No longer on the roster', clock.now());
-      return;
-    }
-    try {
+  const send = (mailingId: string, lastAttempt: boolean) =>
+    sendLoggedMailing(deps, mailingId, lastAttempt, ['portraits_ready'], async (mailing) => {
+      const day = await findDay(db, mailing.dayId);
+      if (!day) return { notSent: 'The day was deleted' };
       const token = await issueDownloadLink(db, clock, day.id, mailing.personId);
       const content = renderMail({
         heading: `Hello ${mailing.name},`,
@@ -35,20 +30,12 @@ export function portraitsMailTasks(deps: {
         footnote:
           'This link is personal and works for 30 days. You can also sign in to download again.',
       });
-      await deps.mailer.send({
+      return {
         to: mailing.email,
         subject: `Your ${day.clientName} portraits are ready`,
         ...content,
-      });
-      await mailings.markMailing(db, mailingId, 'sent', null, clock.now());
-    } catch (error) {
-      if (lastAttempt) {
-        const reason = error instanceof Error ? error.message : String(error);
-        await mailings.markMailing(db, mailingId, 'failed', reason.slice(0, 300), clock.now());
-      }
-      throw error;
-    }
-  }
+      };
+    });
   return {
     [PORTRAITS_MAIL_TASK]: async (payload, attempt) => {
       const mailingId = (payload as { mailingId?: unknown }).mailingId;

@@ -11,6 +11,7 @@ import { findDay, type DayRecord } from '../days/days.repository';
 import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import { zonedTimeToInstant } from '../days/zoned-time';
 import * as mailings from '../invitations/invitations.repository';
+import { sendLoggedMailing } from '../invitations/logged-mail';
 import { proofsMail } from './proofs.mails';
 import * as repo from './proofs.repository';
 
@@ -65,54 +66,34 @@ export function createProofsService(deps: {
     });
   }
 
-  async function sendMail(mailingId: string, lastAttempt: boolean) {
-    const mailing = await mailings.findMailing(db, mailingId);
-    if (!mailing || mailing.status !== 'queued') return; // never send twice
-    if (mailing.kind !== 'proofs' && mailing.kind !== 'proofs_reminder') return;
-    const [day, proofs] = await Promise.all([
-      findDay(db, mailing.dayId),
-      repo.dayProofs(db, mailing.dayId),
-    ]);
-    if (!day || !proofs || !mailing.active) {
-      await mailings.markMailing(db, mailingId, 'failed', 'No longer on the roster', clock.now());
-      return;
-    }
-    if (mailing.kind === 'proofs_reminder') {
-      const picked = await repo.pickedPersonIds(db, day.id);
-      if (picked.has(mailing.personId)) {
-        await mailings.markMailing(
-          db,
-          mailingId,
-          'failed',
-          'Not sent: picked meanwhile',
-          clock.now(),
-        );
-        return;
-      }
-    }
-    try {
-      const settings = await repo.proofSettings(db, day.clientId);
-      const url = await deps.issueSitterLink(mailing.personId, `/proofs/${day.id}`);
-      await deps.mailer.send(
-        proofsMail({
-          kind: mailing.kind,
+  const sendMail = (mailingId: string, lastAttempt: boolean) =>
+    sendLoggedMailing(
+      deps,
+      mailingId,
+      lastAttempt,
+      ['proofs', 'proofs_reminder'],
+      async (mailing) => {
+        const [day, proofs] = await Promise.all([
+          findDay(db, mailing.dayId),
+          repo.dayProofs(db, mailing.dayId),
+        ]);
+        if (!day || !proofs) return { notSent: 'No longer on the roster' };
+        if (mailing.kind === 'proofs_reminder') {
+          const picked = await repo.pickedPersonIds(db, day.id);
+          if (picked.has(mailing.personId)) return { notSent: 'Not sent: picked meanwhile' };
+        }
+        const settings = await repo.proofSettings(db, day.clientId);
+        return proofsMail({
+          kind: mailing.kind === 'proofs' ? 'proofs' : 'proofs_reminder',
           to: mailing.email,
           name: mailing.name,
           day,
           picksCloseAt: proofs.picksCloseAt,
           picksIncluded: settings.picksIncluded,
-          url,
-        }),
-      );
-      await mailings.markMailing(db, mailingId, 'sent', null, clock.now());
-    } catch (error) {
-      if (lastAttempt) {
-        const reason = error instanceof Error ? error.message : String(error);
-        await mailings.markMailing(db, mailingId, 'failed', reason.slice(0, 300), clock.now());
-      }
-      throw error;
-    }
-  }
+          url: await deps.issueSitterLink(mailing.personId, `/proofs/${day.id}`),
+        });
+      },
+    );
 
   /** After the deadline: the studio's pick, else the first frame after the slate, stands. */
   async function settle(dayId: string) {
