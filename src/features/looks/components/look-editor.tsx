@@ -17,6 +17,19 @@ const tokens = [
   'rendition',
   'day',
 ];
+const sourceLabels: Record<string, string> = {
+  name: 'Name',
+  width: 'Width',
+  height: 'Height',
+  eyeLine: 'Eye line',
+  headSize: 'Head size',
+  centreX: 'Centre',
+  overflow: 'Past the edge',
+  fillColour: 'Colour',
+  jpegQuality: 'JPEG quality',
+  maxRotationDeg: 'Largest rotation',
+  keepMetadata: 'Metadata',
+};
 const percent = (value: number) => String(Math.round(value * 1000) / 10);
 
 function NumberField(props: {
@@ -77,7 +90,6 @@ function RenditionFields({
         <NumberField
           label="Eye line (% from top)"
           value={Number(percent(rendition.eyeLine))}
-          hint={sources?.eyeLine}
           onChange={(value) => set('eyeLine', value / 100)}
         />
         <NumberField
@@ -87,7 +99,6 @@ function RenditionFields({
               : 'Eye to chin (% of width)'
           }
           value={Number(percent(rendition.headSize.fraction))}
-          hint={sources?.headSize}
           onChange={(value) => set('headSize', { ...rendition.headSize, fraction: value / 100 })}
         />
         <NumberField
@@ -150,6 +161,19 @@ function RenditionFields({
           Remove
         </Button>
       </div>
+      {sources && Object.keys(sources).length > 0 ? (
+        <details className="text-sm" open>
+          <summary className="cursor-pointer text-spruce-700">Where these values come from</summary>
+          <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
+            {Object.entries(sources).map(([field, source]) => (
+              <div key={field} className="contents">
+                <dt className="font-medium">{sourceLabels[field] ?? field}</dt>
+                <dd className="text-ink-muted">{source}</dd>
+              </div>
+            ))}
+          </dl>
+        </details>
+      ) : null}
     </fieldset>
   );
 }
