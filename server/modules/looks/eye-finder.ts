@@ -6,7 +6,7 @@ import {
   eyesOf,
   faceSquare,
   isTrusted,
-  meanOfLooks,
+  meanOfAll,
   nearestFace,
   rollDegrees,
   unmirror,
@@ -17,6 +17,7 @@ import { loadFaceModel, type FaceModel, type RgbImage } from './eye-human';
 import {
   cropRgb,
   mirrorRgb,
+  mountRgb,
   fitInside,
   openUpright,
   overlappingTiles,
@@ -63,7 +64,13 @@ export const DETECTION_EDGE = 1024;
  */
 const WORKING_EDGE = 1536;
 /** Long edge of the second, close look at the one face. */
-const CLOSE_LOOK_EDGE = 512;
+const CLOSE_LOOK_EDGE = 1024;
+/**
+ * How far the close look may enlarge a small image. Human truncates its landmarks to whole pixels
+ * of the image it saw, so in a 420 px badge half a pixel is 0.5 % of the eye distance; seen at
+ * twice the size it is half that.
+ */
+const CLOSE_LOOK_MAX_ENLARGEMENT = 4;
 /** The close look's crop side as a multiple of the face box side: hair to chin, ear to ear. */
 const CLOSE_LOOK_MARGIN = 2;
 
@@ -95,11 +102,11 @@ async function sightFaces(model: FaceModel, copy: RgbImage): Promise<Sighting[]>
 }
 
 /**
- * A second detection on a crop around the face, the face about a quarter of the crop. Human
- * reports whole pixels of the image it saw, and in the 1,024 px copy of a 24 MP frame one of
- * those is six original pixels; here one is a fraction of that. The crop comes from the working
- * copy when it holds the face at least half as large as wanted (the face mesh sees 192 px
- * anyway), else from the original, decoded again. Null when the crop shows no face.
+ * A second look on a crop around the face, the face about a quarter of the crop. Human reports
+ * whole pixels of the image it saw, and in the 1,024 px copy of a 24 MP frame one of those is six
+ * original pixels; here one is a fraction of that. The crop is seen straight and mirrored (the
+ * models' left-right leanings cancel in the mean of the two). A crop reaching past the picture is
+ * mounted on grey rather than cut. Null when the crop shows no face.
  */
 async function closeLook(
   model: FaceModel,
@@ -108,7 +115,9 @@ async function closeLook(
   square: { x: number; y: number; side: number },
 ): Promise<{ face: FaceResult; eyes: EyePair } | null> {
   const side = square.side * CLOSE_LOOK_MARGIN;
-  const wanted = Math.min(1, CLOSE_LOOK_EDGE / side);
+  const wanted = Math.min(CLOSE_LOOK_MAX_ENLARGEMENT, CLOSE_LOOK_EDGE / side);
+  // The working copy serves when it holds the face at least half as large as wanted (the face
+  // mesh sees 192 px anyway), else the original is decoded again.
   const workingFactor = working.width / image.width;
   const source = workingFactor >= wanted / 2 ? working : image;
   const factor = source === working ? wanted / workingFactor : wanted;
@@ -119,23 +128,31 @@ async function closeLook(
   // From here on, scaled pixels against the original's.
   const fx = scaled.width / image.width;
   const fy = scaled.height / image.height;
-  const region = squareAround({ x: square.x * fx, y: square.y * fy }, side * fx, scaled);
-  if (!region) return null;
-  const crop = await readScaled(source, scaled, region);
-  const centre = { x: square.x * fx - region.left, y: square.y * fy - region.top };
+  const around = squareAround({ x: square.x * fx, y: square.y * fy }, side * fx, scaled);
+  if (!around) return null;
+  const { region, pad } = around;
+  const crop = mountRgb(await readScaled(source, scaled, region), pad);
+  // The crop's own pixels start `pad` before the region's.
+  const origin = { x: region.left - pad.left, y: region.top - pad.top };
+  const centre = { x: square.x * fx - origin.x, y: square.y * fy - origin.y };
   const face = nearestFace(await model.detect(crop), centre);
   const direct = face ? eyesOf(face) : null;
   if (!face || !direct) return null;
-  // The same crop mirrored: the models' left-right leanings cancel in the mean of the two looks.
   const mirroredCentre = { x: crop.width - centre.x, y: centre.y };
   const mirroredFace = nearestFace(await model.detect(mirrorRgb(crop)), mirroredCentre);
   const mirrored = mirroredFace ? eyesOf(mirroredFace) : null;
-  const eyes = mirrored ? meanOfLooks(direct, unmirror(mirrored, crop.width)) : direct;
   const back = ({ x, y }: Point): Point => ({
-    x: (x + region.left) / fx,
-    y: (y + region.top) / fy,
+    x: (x + origin.x) / fx,
+    y: (y + origin.y) / fy,
   });
-  return { face, eyes: { left: back(eyes.left), right: back(eyes.right), source: eyes.source } };
+  const inOriginal = (eyes: EyePair): EyePair => ({
+    left: back(eyes.left),
+    right: back(eyes.right),
+    source: eyes.source,
+  });
+  const looks = [inOriginal(direct)];
+  if (mirrored) looks.push(inOriginal(unmirror(mirrored, crop.width)));
+  return { face, eyes: meanOfAll(looks) };
 }
 
 async function findEyes(model: FaceModel, input: Buffer | string): Promise<EyeFinding> {

@@ -70,9 +70,17 @@ export function unmirror(eyes: EyePair, width: number): EyePair {
   return { left: flip(eyes.right), right: flip(eyes.left), source: eyes.source };
 }
 
-export function meanOfLooks(a: EyePair, b: EyePair): EyePair {
-  const mean = (p: Point, q: Point): Point => ({ x: (p.x + q.x) / 2, y: (p.y + q.y) / 2 });
-  return { left: mean(a.left, b.left), right: mean(a.right, b.right), source: a.source };
+/** The mean of several looks at the same face (at least one). */
+export function meanOfAll(looks: EyePair[]): EyePair {
+  const mean = (pick: (eyes: EyePair) => Point): Point => ({
+    x: looks.reduce((sum, eyes) => sum + pick(eyes).x, 0) / looks.length,
+    y: looks.reduce((sum, eyes) => sum + pick(eyes).y, 0) / looks.length,
+  });
+  return {
+    left: mean((eyes) => eyes.left),
+    right: mean((eyes) => eyes.right),
+    source: looks[0]!.source,
+  };
 }
 
 export function distance(a: Point, b: Point): number {

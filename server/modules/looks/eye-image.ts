@@ -97,16 +97,52 @@ export function overlappingTiles(width: number, height: number): Region[] {
   return tiles;
 }
 
-/** A square of side `side` around a centre, clamped to the image; null when too small to use. */
+/**
+ * A square of side `side` around a centre: the part inside the image (`region`) and how far the
+ * square reaches past each edge (`pad`). Null when the part inside is too small to use.
+ */
 export function squareAround(
   centre: { x: number; y: number },
   side: number,
   size: { width: number; height: number },
-): Region | null {
-  const left = Math.max(0, Math.floor(centre.x - side / 2));
-  const top = Math.max(0, Math.floor(centre.y - side / 2));
-  const right = Math.min(size.width, Math.ceil(centre.x + side / 2));
-  const bottom = Math.min(size.height, Math.ceil(centre.y + side / 2));
+): { region: Region; pad: { left: number; top: number; right: number; bottom: number } } | null {
+  const wantedLeft = Math.floor(centre.x - side / 2);
+  const wantedTop = Math.floor(centre.y - side / 2);
+  const wantedRight = Math.ceil(centre.x + side / 2);
+  const wantedBottom = Math.ceil(centre.y + side / 2);
+  const left = Math.max(0, wantedLeft);
+  const top = Math.max(0, wantedTop);
+  const right = Math.min(size.width, wantedRight);
+  const bottom = Math.min(size.height, wantedBottom);
   if (right - left < 16 || bottom - top < 16) return null;
-  return { left, top, width: right - left, height: bottom - top };
+  return {
+    region: { left, top, width: right - left, height: bottom - top },
+    pad: {
+      left: left - wantedLeft,
+      top: top - wantedTop,
+      right: Math.max(0, wantedRight - right),
+      bottom: Math.max(0, wantedBottom - bottom),
+    },
+  };
+}
+
+/**
+ * The image set on a mid-grey mount, `pad` pixels wider on each side. A tightly cropped portrait
+ * (a retoucher's final, a rendition) fills the detector's view edge to edge, and the face models
+ * place the eyes less steadily than when the face has room around it, as in a camera frame.
+ */
+export function mountRgb(
+  image: RgbImage,
+  pad: { left: number; top: number; right: number; bottom: number },
+): RgbImage {
+  if (pad.left + pad.top + pad.right + pad.bottom === 0) return image;
+  const width = image.width + pad.left + pad.right;
+  const height = image.height + pad.top + pad.bottom;
+  const data = Buffer.alloc(width * height * 3, 128);
+  for (let row = 0; row < image.height; row += 1) {
+    const from = row * image.width * 3;
+    const to = ((row + pad.top) * width + pad.left) * 3;
+    image.data.copy(data, to, from, from + image.width * 3);
+  }
+  return { data, width, height };
 }
