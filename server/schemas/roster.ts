@@ -104,12 +104,17 @@ export const erasePersonRequestSchema = z.object({
     .min(1, { error: "Type the person's e-mail address to confirm." }),
 });
 
-export const previewKinds = ['add', 'update', 'unchanged', 'error', 'missing'] as const;
+/**
+ * What commit does with a row. A conflict is a row whose e-mail belongs to a person with a
+ * different employee id: left out unless the coordinator says they are the same people.
+ */
+export const previewKinds = ['add', 'update', 'conflict', 'unchanged', 'error', 'missing'] as const;
 export type PreviewKind = (typeof previewKinds)[number];
 
 export const previewCountsSchema = z.object({
   add: z.number(),
   update: z.number(),
+  conflict: z.number(),
   unchanged: z.number(),
   error: z.number(),
   missing: z.number(),
@@ -150,6 +155,8 @@ export interface PreviewRow {
   before: PreviewValues | null;
   changedFields: string[];
   errors: Record<string, string>;
+  /** What the row keeps or changes that the coordinator should know (per field or column). */
+  warnings: Record<string, string>;
 }
 
 export const previewQuerySchema = z.object({
@@ -180,7 +187,10 @@ export const commitImportRequestSchema = z.object({
     z.string(),
     z.string().refine(isTimeZone, { error: 'Choose a time zone from the list.' }),
   ),
-  deactivateMissing: z.boolean().default(true),
+  // Off unless asked: an export of one office would otherwise deactivate everyone else.
+  deactivateMissing: z.boolean().default(false),
+  // Conflicts are left out unless the coordinator confirms they are the same people.
+  rekeyConflicts: z.boolean().default(false),
 });
 export type CommitImportRequest = z.input<typeof commitImportRequestSchema>;
 

@@ -11,8 +11,14 @@ export function normaliseHeader(header: string): string {
     .trim();
 }
 
-/** Header words HR exports use for each field (common practice), already normalised. */
-const synonyms: Record<RosterField, string[]> = {
+/**
+ * Header words HR exports use for each field, already normalised (see lookupKey: "no", "nr",
+ * "num" are read as "number"). Sources: common practice in HR and payroll exports; the
+ * Dutch, German, French, Spanish and Portuguese words are from memory of everyday usage,
+ * not from a published list. Words that name different things across languages are left out
+ * ("apelido" is a surname in Portugal but a nickname in Brazil; "naam" is the whole name).
+ */
+export const headerSynonyms: Readonly<Record<RosterField, readonly string[]>> = {
   givenName: [
     'first name',
     'firstname',
@@ -22,6 +28,15 @@ const synonyms: Record<RosterField, string[]> = {
     'first',
     'name first',
     'legal first name',
+    // Dutch, German, French, Spanish, Portuguese
+    'voornaam',
+    'vorname',
+    'prenom',
+    'nombre',
+    'nombre de pila',
+    'nome',
+    'primeiro nome',
+    'nome proprio',
   ],
   familyName: [
     'last name',
@@ -32,14 +47,32 @@ const synonyms: Record<RosterField, string[]> = {
     'last',
     'name last',
     'legal last name',
+    'achternaam',
+    'familienaam',
+    'nachname',
+    'familienname',
+    'nom',
+    'nom de famille',
+    'apellido',
+    'apellidos',
+    'primer apellido',
+    'sobrenome',
+    'ultimo nome',
   ],
   preferredName: [
     'preferred name',
     'preferredname',
+    'preferred',
     'known as',
     'nickname',
     'preferred first name',
     'display first name',
+    'roepnaam',
+    'rufname',
+    'prenom usuel',
+    'nombre preferido',
+    'nome social',
+    'nome preferido',
   ],
   email: [
     'email',
@@ -52,6 +85,26 @@ const synonyms: Record<RosterField, string[]> = {
     'work email address',
     'mail',
     'company email',
+    'e mailadres',
+    'emailadres',
+    'e mail adres',
+    'zakelijk e mailadres',
+    'e mail adresse',
+    'email adresse',
+    'geschaftliche e mail',
+    'courriel',
+    'adresse e mail',
+    'adresse email',
+    'adresse electronique',
+    'e mail professionnel',
+    'email professionnel',
+    'correo',
+    'correo electronico',
+    'correo corporativo',
+    'email corporativo',
+    'e mail corporativo',
+    'correio eletronico',
+    'correio electronico',
   ],
   employeeId: [
     'employee id',
@@ -62,11 +115,29 @@ const synonyms: Record<RosterField, string[]> = {
     'staff id',
     'staff number',
     'personnel number',
+    'personnel id',
     'payroll number',
+    'payroll id',
     'id',
-    'employee no',
-    'emp no',
     'badge number',
+    'employee code',
+    'personeelsnummer',
+    'medewerkernummer',
+    'werknemersnummer',
+    'personalnummer',
+    'personal number',
+    'mitarbeiternummer',
+    'matricule',
+    'numero employe',
+    'numero d employe',
+    'numero de matricule',
+    'numero de empleado',
+    'numero empleado',
+    'legajo',
+    'id empleado',
+    'matricula',
+    'numero de funcionario',
+    'numero do funcionario',
   ],
   department: [
     'department',
@@ -76,40 +147,130 @@ const synonyms: Record<RosterField, string[]> = {
     'business unit',
     'cost centre',
     'cost center',
+    'afdeling',
+    'abteilung',
+    'service',
+    'departement',
+    'departamento',
+    'area',
+    'setor',
   ],
-  jobTitle: ['job title', 'title', 'position', 'role', 'job', 'function', 'jobtitle'],
-  office: ['office', 'location', 'site', 'work location', 'office location', 'city', 'branch'],
+  jobTitle: [
+    'job title',
+    'title',
+    'position',
+    'role',
+    'job',
+    'function',
+    'jobtitle',
+    'functie',
+    'functietitel',
+    'stellenbezeichnung',
+    'berufsbezeichnung',
+    'funktion',
+    'poste',
+    'fonction',
+    'intitule du poste',
+    'puesto',
+    'cargo',
+    'funcao',
+  ],
+  office: [
+    'office',
+    'location',
+    'site',
+    'work location',
+    'office location',
+    'city',
+    'branch',
+    'vestiging',
+    'locatie',
+    'kantoor',
+    'standplaats',
+    'standort',
+    'buro',
+    'niederlassung',
+    'arbeitsort',
+    'bureau',
+    'etablissement',
+    'lieu de travail',
+    'oficina',
+    'sede',
+    'ubicacion',
+    'centro de trabajo',
+    'escritorio',
+    'local',
+    'unidade',
+    'filial',
+  ],
 };
 
 /** Columns our own export writes that are not data to keep. */
 const ignored = ['status', 'active'];
 
 const lookup = new Map<string, RosterField>();
-for (const [field, words] of Object.entries(synonyms) as [RosterField, string[]][]) {
+for (const [field, words] of Object.entries(headerSynonyms) as [RosterField, string[]][]) {
   for (const word of words) lookup.set(word, field);
+}
+
+/** "Personnel No", "Personal-Nr.", "Nº empleado": number words read as "number". */
+function lookupKey(key: string): string {
+  return key.replace(/\b(no|nr|num|nbr|nro)\b/g, 'number');
+}
+
+function fieldOfHeader(key: string): RosterField | undefined {
+  const canonical = lookupKey(key);
+  return (
+    lookup.get(key) ?? lookup.get(canonical) ?? lookup.get(canonical.replace(/ number$/, ' id'))
+  );
+}
+
+const emailLike = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;
+
+/**
+ * A column whose header says nothing but whose values are e-mail addresses holds the e-mail:
+ * at least four in five of its first 100 filled cells look like an address.
+ */
+function holdsEmails(rows: readonly (readonly string[])[], column: number): boolean {
+  const values: string[] = [];
+  for (const row of rows) {
+    const value = row[column]?.trim() ?? '';
+    if (value !== '') values.push(value);
+    if (values.length === 100) break;
+  }
+  if (values.length === 0) return false;
+  return values.filter((value) => emailLike.test(value)).length >= values.length * 0.8;
 }
 
 /**
  * A target for every column: a saved choice for the same header wins (the client's last
- * import), then the synonym list; unknown columns are kept as extras. A field is given to the
- * first column that claims it only.
+ * import), then the synonym list, then the column's contents (a column of addresses is the
+ * e-mail); unknown columns are kept as extras. A field is given to the first column that
+ * claims it only.
  */
 export function suggestMapping(
   headers: readonly string[],
   saved: Readonly<Record<string, ColumnTarget>> = {},
+  rows: readonly (readonly string[])[] = [],
 ): ColumnMapping {
   const taken = new Set<ColumnTarget>();
   const mapping: ColumnTarget[] = [];
-  for (const header of headers) {
+  const unknown: number[] = [];
+  headers.forEach((header, index) => {
     const key = normaliseHeader(header);
     let target: ColumnTarget;
     if (key === '') target = 'ignore';
     else if (saved[key]) target = saved[key];
     else if (ignored.includes(key)) target = 'ignore';
-    else target = lookup.get(key) ?? lookup.get(key.replace(/ (number|no|nr)$/, ' id')) ?? 'extra';
+    else target = fieldOfHeader(key) ?? 'extra';
     if (target !== 'extra' && target !== 'ignore' && taken.has(target)) target = 'extra';
+    if (target === 'extra' && !saved[key]) unknown.push(index);
     taken.add(target);
     mapping.push(target);
+  });
+  if (!taken.has('email')) {
+    const column = unknown.find((index) => holdsEmails(rows, index));
+    if (column !== undefined) mapping[column] = 'email';
   }
   return mapping;
 }

@@ -21,12 +21,13 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: readonly
         : null,
     );
     const detail = batch.map((row) =>
-      row.kind === 'add' || row.kind === 'unchanged'
+      (row.kind === 'add' || row.kind === 'unchanged') && Object.keys(row.warnings).length === 0
         ? null
         : JSON.stringify({
             before: row.before,
             changedFields: row.changedFields,
             errors: row.errors,
+            warnings: row.warnings,
           }),
     );
     await sql`
@@ -76,6 +77,7 @@ function toPreviewRow(row: StoredPreviewRow): PreviewRow {
     before: (detail?.before as PreviewRow['before']) ?? null,
     changedFields: detail?.changedFields ?? [],
     errors: detail?.errors ?? {},
+    warnings: detail?.warnings ?? {},
   };
 }
 
