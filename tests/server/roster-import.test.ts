@@ -216,8 +216,9 @@ describe('roster import', () => {
     const csv = await agent
       .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/errors.csv`)
       .expect(200)
-      .expect('Content-Type', /text\/csv/);
-    expect(csv.text.split('\r\n')[0]).toBe('\uFEFFFirst name,Last name,E-mail,What to fix');
+      .expect('Content-Type', 'text/csv; charset=utf-8');
+    // The upload was ";"-separated UTF-8 without a byte order mark: so is the file to fix.
+    expect(csv.text.split('\r\n')[0]).toBe('First name;Last name;E-mail;What to fix');
     expect(csv.text.split('\r\n')).toHaveLength(5);
   });
 
