@@ -192,7 +192,8 @@ describe('bad shapes and characters over HTTP (issue 14, items 1 and 11)', () =>
     if (!agent) throw new Error('no agent');
     const withNul =
       'First name,Last name,E-mail,Shirt\r\nA\u0000da,Pike,ada@hp.example,L\u0000\r\n';
-    const draft = await uploadRoster(agent, client.id, withNul).expect(201);
+    const draft = await uploadRoster(agent, client.id, withNul, 'staff\u0000.csv').expect(201);
+    expect(draft.body.fileName).toBe('staff.csv');
     const rows = await agent
       .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows`)
       .expect(200);

@@ -19,7 +19,7 @@ import {
 import { assertClientAccess } from './client-access';
 import { mappingToRemember, normaliseHeader, suggestMapping } from './column-mapping';
 import type { DecodeWarning } from '../../db/roster-types';
-import { parseRosterFile } from './csv-decode';
+import { cleanCell, parseRosterFile } from './csv-decode';
 import { rowsToFixFile } from './rows-to-fix-csv';
 import { diffRoster } from './roster-diff';
 import { checkRows } from './roster-rows';
@@ -117,6 +117,8 @@ export function createRosterService(deps: { db: Db }) {
     async upload(viewer: Viewer, clientId: string, fileName: string, bytes: Uint8Array) {
       await assertClientAccess(db, viewer, clientId);
       const parsed = parseRosterFile(bytes);
+      // The name comes from the browser; PostgreSQL refuses a NUL in it like in any cell.
+      const storedName = cleanCell(fileName).value.trim() || 'roster.csv';
       const saved = (await repo.savedMapping(db, clientId)) as Record<string, ColumnTarget>;
       const mapping = suggestMapping(parsed.headers, saved, parsed.rows);
       const preview = await computePreview(db, clientId, parsed, parsed.rows, mapping);
@@ -126,7 +128,7 @@ export function createRosterService(deps: { db: Db }) {
           clientId,
           rowCount: parsed.rows.length,
           sampleRows: parsed.rows.slice(0, 3),
-          fileName,
+          fileName: storedName,
           encoding: parsed.encoding,
           hadByteOrderMark: parsed.hadByteOrderMark,
           delimiter: parsed.delimiter,
