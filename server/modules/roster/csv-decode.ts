@@ -151,8 +151,12 @@ const emailLike = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;
 // eslint-disable-next-line no-control-regex -- matching control characters is the point
 const controlCharacters = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]/g;
 
+// eslint-disable-next-line no-control-regex -- the same set, to test without allocating
+const anyControlCharacter = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]/;
+
 /** The cell without control characters, and how many were removed. */
 export function cleanCell(cell: string): { value: string; removed: number } {
+  if (!anyControlCharacter.test(cell)) return { value: cell, removed: 0 };
   let removed = 0;
   const value = cell.replace(controlCharacters, () => {
     removed += 1;
@@ -236,9 +240,10 @@ export function parseRosterText(
           parser.abort();
           return;
         }
-        const { value, removed } = cleanCell(readBackNeutralised(cell));
-        if (removed > 0) warnings.push({ row: rows.length, column, removed });
-        cells.push(value);
+        const cleaned = cleanCell(readBackNeutralised(cell));
+        if (cleaned.removed > 0)
+          warnings.push({ row: rows.length, column, removed: cleaned.removed });
+        cells.push(cleaned.value);
       }
       rows.push(cells);
     },
@@ -258,7 +263,7 @@ export function parseRosterText(
 
 /** A cell our own export neutralised (OWASP CSV Injection: a leading ') reads back as it was. */
 export function readBackNeutralised(cell: string): string {
-  return /^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell;
+  return cell.charCodeAt(0) === 39 && /^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell;
 }
 
 export function parseRosterFile(bytes: Uint8Array): ParsedRosterFile {
