@@ -104,7 +104,9 @@ describe('roster import in the browser', () => {
     await preview
       .getByText(/belongs to Tomás Ferreira, whose employee id is HP-102; this row says HP-902/)
       .waitFor();
-    await page.getByText('1 rows have the e-mail of someone on the roster').waitFor();
+    await page.getByText(/^1 row has the e-mail of someone on the roster/).waitFor();
+    const sameIds = page.getByLabel(/^The row with the same e-mail and another id is the same/);
+    expect(await sameIds.isChecked()).toBe(false);
 
     // "All rows" counts what its table pages: 5 rows of the file and 1 person not in it.
     await page.getByRole('button', { name: 'All rows: 6' }).click();

@@ -24,7 +24,10 @@ export function PreviewStep({
   onBack: () => void;
   onCommitted: (summary: ImportSummary) => void;
 }) {
-  const [kind, setKind] = useState<PreviewKind | 'all'>(draft.counts.error > 0 ? 'error' : 'all');
+  // Open on what needs a decision first: rows in error, then conflicts.
+  const [kind, setKind] = useState<PreviewKind | 'all'>(
+    draft.counts.error > 0 ? 'error' : draft.counts.conflict > 0 ? 'conflict' : 'all',
+  );
   const [zones, setZones] = useState<Record<string, string>>(() =>
     Object.fromEntries(draft.newOffices.map((office) => [office, guessTimeZone(office)])),
   );
@@ -114,9 +117,9 @@ export function PreviewStep({
       ) : null}
       {counts.conflict > 0 ? (
         <Notice tone="caution">
-          {counts.conflict.toLocaleString()} rows have the e-mail of someone on the roster but a
-          different employee id. They are left out unless you confirm below that they are the same
-          people.
+          {counts.conflict === 1
+            ? '1 row has the e-mail of someone on the roster but a different employee id. It is left out unless you confirm below that they are the same person.'
+            : `${counts.conflict.toLocaleString()} rows have the e-mail of someone on the roster but a different employee id. They are left out unless you confirm below that they are the same people.`}
         </Notice>
       ) : null}
       <PreviewTable key={kind} clientId={clientId} draftId={draft.id} kind={kind} />
@@ -134,8 +137,9 @@ export function PreviewStep({
             checked={rekeyConflicts}
             onChange={(event) => setRekeyConflicts(event.target.checked)}
           />
-          The {counts.conflict.toLocaleString()} rows with the same e-mail and another id are the
-          same people: change their employee ids to the file&apos;s
+          {counts.conflict === 1
+            ? 'The row with the same e-mail and another id is the same person: change their employee id to the file’s'
+            : `The ${counts.conflict.toLocaleString()} rows with the same e-mail and another id are the same people: change their employee ids to the file’s`}
         </label>
       ) : null}
       {counts.missing > 0 ? (
