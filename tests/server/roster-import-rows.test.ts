@@ -58,6 +58,13 @@ describe('an e-mail match with another employee id (issue 13, item 9)', () => {
     expect(rows.body.rows[0].errors.employeeId).toMatch(
       /belongs to Ada Pike, whose employee id is A-1; this row says B-1/,
     );
+    // Conflicts are rows to fix too: they come with the file's rows in error.
+    const toFix = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/errors.csv`)
+      .expect(200);
+    expect(toFix.text.split('\r\n')[1]).toMatch(
+      /^Ada,Pike,ada@hp.example,B-1,"This e-mail belongs to Ada Pike/,
+    );
     await agent
       .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
       .send({ officeTimeZones: {} })
