@@ -17,6 +17,9 @@ export async function up(db: Kysely<any>): Promise<void> {
     .alterTable('roster_import_drafts')
     .addColumn('had_byte_order_mark', 'boolean', (col) => col.notNull().defaultTo(false))
     .addColumn('decode_warnings', 'jsonb', (col) => col.notNull().defaultTo(sql`'[]'::jsonb`))
+    // Columns whose field was guessed from their values, not their header: the mapping step
+    // says so, so the coordinator checks them.
+    .addColumn('guessed_columns', 'jsonb', (col) => col.notNull().defaultTo(sql`'[]'::jsonb`))
     .execute();
   await sql`create index roster_import_drafts_uploader on roster_import_drafts (client_id, created_by)`.execute(
     db,
@@ -38,6 +41,7 @@ export async function down(db: Kysely<any>): Promise<void> {
     .alterTable('roster_import_drafts')
     .dropColumn('had_byte_order_mark')
     .dropColumn('decode_warnings')
+    .dropColumn('guessed_columns')
     .execute();
   await sql`delete from roster_import_rows where kind = 'conflict'`.execute(db);
   await sql`alter table roster_import_rows drop constraint roster_import_rows_kind_check`.execute(

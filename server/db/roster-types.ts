@@ -22,6 +22,7 @@ export interface RosterImportDraftsTable {
   rosterVersion: string;
   hadByteOrderMark: ColumnType<boolean, boolean | undefined, boolean>;
   decodeWarnings: ColumnType<DecodeWarning[], string | undefined, string>;
+  guessedColumns: ColumnType<number[], string | undefined, string>;
   createdAt: DefaultedTimestamp;
   expiresAt: ColumnType<Date, Date | string, Date | string>;
 }

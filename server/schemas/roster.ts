@@ -128,6 +128,8 @@ export interface RosterDraft {
   delimiter: string;
   rowCount: number;
   headers: string[];
+  /** Columns whose field was guessed from their values (a column of addresses is the e-mail). */
+  guessedColumns: number[];
   sampleRows: string[][];
   mapping: ColumnMapping;
   /** Why the mapping cannot be previewed yet (a required field without a column...). */

@@ -16,6 +16,7 @@ const draft: RosterDraft = {
   delimiter: ',',
   rowCount: 2,
   headers: ['First name', 'Last name', 'E-mail'],
+  guessedColumns: [],
   sampleRows: [],
   mapping: ['givenName', 'familyName', 'email'],
   mappingProblems: [],

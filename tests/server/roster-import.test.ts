@@ -227,6 +227,9 @@ describe('roster import', () => {
     const file = 'Col A,Col B,Col C\r\nAda,Pike,ada@hp.example\r\n';
     const draft = await uploadRoster(agent, client.id, file).expect(201);
     expect(draft.body.mappingProblems.length).toBeGreaterThan(0);
+    // Col C holds addresses, so it was taken for the e-mail and is marked as a guess.
+    expect(draft.body.mapping).toEqual(['extra', 'extra', 'email']);
+    expect(draft.body.guessedColumns).toEqual([2]);
     await agent
       .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
       .send({ officeTimeZones: {} })

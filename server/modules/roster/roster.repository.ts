@@ -12,6 +12,8 @@ export interface DraftRecord {
   hadByteOrderMark: boolean;
   delimiter: string;
   headers: string[];
+  /** Columns whose field was guessed from their values. */
+  guessedColumns: number[];
   rowCount: number;
   sampleRows: string[][];
   mapping: ColumnMapping;
@@ -165,6 +167,7 @@ export async function insertDraft(
       encoding: draft.encoding,
       hadByteOrderMark: draft.hadByteOrderMark,
       decodeWarnings: JSON.stringify(draft.decodeWarnings),
+      guessedColumns: JSON.stringify(draft.guessedColumns),
       delimiter: draft.delimiter,
       headers: JSON.stringify(draft.headers),
       rawRows: JSON.stringify(draft.rawRows),
@@ -212,6 +215,7 @@ export async function findDraft(
       'hadByteOrderMark',
       'delimiter',
       'headers',
+      'guessedColumns',
       sql<number>`jsonb_array_length(raw_rows)`.as('rowCount'),
       sql<string[][]>`jsonb_path_query_array(raw_rows, '$[0 to 2]')`.as('sampleRows'),
       'mapping',

@@ -96,6 +96,7 @@ export function createRosterService(deps: { db: Db }) {
       delimiter: draft.delimiter,
       rowCount: draft.rowCount,
       headers: draft.headers,
+      guessedColumns: draft.guessedColumns,
       sampleRows: draft.sampleRows,
       mapping: draft.mapping,
       mappingProblems: mappingProblems(draft.mapping),
@@ -121,6 +122,10 @@ export function createRosterService(deps: { db: Db }) {
       const storedName = cleanCell(fileName).value.trim() || 'roster.csv';
       const saved = (await repo.savedMapping(db, clientId)) as Record<string, ColumnTarget>;
       const mapping = suggestMapping(parsed.headers, saved, parsed.rows);
+      const byHeaderOnly = suggestMapping(parsed.headers, saved);
+      const guessedColumns = mapping.flatMap((target, index) =>
+        target === byHeaderOnly[index] ? [] : [index],
+      );
       const preview = await computePreview(db, clientId, parsed, parsed.rows, mapping);
       const draft = await db.transaction().execute(async (trx) => {
         await repo.deleteStaleDrafts(trx, clientId, viewer.id);
@@ -133,6 +138,7 @@ export function createRosterService(deps: { db: Db }) {
           hadByteOrderMark: parsed.hadByteOrderMark,
           delimiter: parsed.delimiter,
           headers: parsed.headers,
+          guessedColumns,
           mapping,
           counts: preview.counts,
           newOffices: preview.newOffices,
