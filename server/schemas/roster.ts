@@ -137,6 +137,8 @@ export interface RosterDraft {
   /** Every column is mapped as in this client's last import: no need to show the mapping. */
   mappingRemembered: boolean;
   counts: PreviewCounts;
+  /** Rows of any kind that come with a warning (a stored name kept, characters removed). */
+  rowsWithWarnings: number;
   newOffices: string[];
   knownOffices: Array<{ id: string; name: string; timeZone: string }>;
   expiresAt: string;
@@ -162,7 +164,8 @@ export interface PreviewRow {
 }
 
 export const previewQuerySchema = z.object({
-  kind: z.enum([...previewKinds, 'all']).default('all'),
+  // "warned": rows of any kind that come with a warning.
+  kind: z.enum([...previewKinds, 'all', 'warned']).default('all'),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(5).max(200).default(25),
   sort: z.enum(['position', 'name', 'email', 'kind']).default('position'),

@@ -22,6 +22,7 @@ const draft: RosterDraft = {
   mappingProblems: [],
   mappingRemembered: true,
   counts: { add: 2, update: 0, conflict: 0, unchanged: 0, error: 0, missing: 1 },
+  rowsWithWarnings: 0,
   newOffices: [],
   knownOffices: [],
   expiresAt: '2026-12-03T10:00:00.000Z',

@@ -160,6 +160,11 @@ describe('a Windows-1252 file and a stored name it cannot hold (issue 13, item 1
       .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=unchanged`)
       .expect(200);
     expect(rows.body.rows[0].warnings.givenName).toMatch(/Kept “Łukasz”/);
+    expect(draft.body.rowsWithWarnings).toBe(1);
+    const warned = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=warned`)
+      .expect(200);
+    expect(warned.body.total).toBe(1);
     await agent
       .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
       .send({ officeTimeZones: {} })

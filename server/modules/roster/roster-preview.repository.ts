@@ -81,6 +81,18 @@ function toPreviewRow(row: StoredPreviewRow): PreviewRow {
   };
 }
 
+const hasWarnings = sql<boolean>`coalesce(detail -> 'warnings', '{}'::jsonb) <> '{}'::jsonb`;
+
+export async function countRowsWithWarnings(db: Db, draftId: string): Promise<number> {
+  const row = await db
+    .selectFrom('rosterImportRows')
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .where('draftId', '=', draftId)
+    .where(hasWarnings)
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}
+
 export async function previewPage(
   db: Db,
   draftId: string,
@@ -94,7 +106,8 @@ export async function previewPage(
   },
 ): Promise<PreviewPage> {
   let base = db.selectFrom('rosterImportRows').where('draftId', '=', draftId);
-  if (query.kind !== 'all') base = base.where('kind', '=', query.kind as PreviewRow['kind']);
+  if (query.kind === 'warned') base = base.where(hasWarnings);
+  else if (query.kind !== 'all') base = base.where('kind', '=', query.kind as PreviewRow['kind']);
   if (query.q) {
     const pattern = `%${query.q.replace(/[\\%_]/g, (match) => `\\${match}`)}%`;
     base = base.where((eb) =>

@@ -101,6 +101,7 @@ export function createRosterService(deps: { db: Db }) {
       mapping: draft.mapping,
       mappingProblems: mappingProblems(draft.mapping),
       counts: draft.counts,
+      rowsWithWarnings: await previewRepo.countRowsWithWarnings(db, draft.id),
       newOffices: draft.newOffices,
       knownOffices: await repo.listOffices(db, clientId),
       expiresAt: draft.expiresAt.toISOString(),

@@ -25,7 +25,7 @@ export function PreviewStep({
   onCommitted: (summary: ImportSummary) => void;
 }) {
   // Open on what needs a decision first: rows in error, then conflicts.
-  const [kind, setKind] = useState<PreviewKind | 'all'>(
+  const [kind, setKind] = useState<PreviewKind | 'all' | 'warned'>(
     draft.counts.error > 0 ? 'error' : draft.counts.conflict > 0 ? 'conflict' : 'all',
   );
   const [zones, setZones] = useState<Record<string, string>>(() =>
@@ -113,6 +113,21 @@ export function PreviewStep({
             Download the rows to fix (CSV)
           </a>
           , correct them and upload again, or go on without them.
+        </Notice>
+      ) : null}
+      {draft.rowsWithWarnings > 0 ? (
+        <Notice tone="caution">
+          {draft.rowsWithWarnings === 1
+            ? '1 row comes with a warning'
+            : `${draft.rowsWithWarnings.toLocaleString()} rows come with a warning`}{' '}
+          (a stored name kept, or characters removed).{' '}
+          <button
+            type="button"
+            className="min-h-touch font-medium underline"
+            onClick={() => setKind('warned')}
+          >
+            Show them
+          </button>
         </Notice>
       ) : null}
       {counts.conflict > 0 ? (

@@ -120,6 +120,9 @@ const columns: ColumnDef<PreviewRow, unknown>[] = [
   },
 ];
 
+const captionOf = (kind: PreviewKind | 'all' | 'warned') =>
+  kind === 'all' ? 'all rows' : kind === 'warned' ? 'rows with a warning' : kindLabels[kind];
+
 /** The previewed rows of one kind, paged, sorted and searched on the server. */
 export function PreviewTable({
   clientId,
@@ -129,7 +132,7 @@ export function PreviewTable({
 }: {
   clientId: string;
   draftId: string;
-  kind: PreviewKind | 'all';
+  kind: PreviewKind | 'all' | 'warned';
   caption?: string;
 }) {
   const [page, setPage] = useState({ page: 1, pageSize: 25 });
@@ -162,7 +165,7 @@ export function PreviewTable({
         <EmptyState title="Nothing here">No rows of this kind in the file.</EmptyState>
       ) : (
         <PagedTable
-          caption={caption ?? `Preview: ${kind === 'all' ? 'all rows' : kindLabels[kind]}`}
+          caption={caption ?? `Preview: ${captionOf(kind)}`}
           columns={columns}
           rows={rows.data?.rows ?? []}
           total={rows.data?.total ?? 0}
