@@ -1,6 +1,9 @@
 import type { ColumnType, Generated } from 'kysely';
 
-/** Table types of the roster import (migration 2026-12-02T0900_roster_import). */
+/**
+ * Table types of the roster import (migrations 2026-12-02T0900_roster_import and
+ * 2026-12-11T1100_roster_conflicts_and_replays).
+ */
 type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type Json<T> = ColumnType<T, string, string>;
 
@@ -17,15 +20,25 @@ export interface RosterImportDraftsTable {
   counts: Json<Record<string, number>>;
   newOffices: Json<string[]>;
   rosterVersion: string;
+  hadByteOrderMark: ColumnType<boolean, boolean | undefined, boolean>;
+  decodeWarnings: ColumnType<DecodeWarning[], string | undefined, string>;
+  guessedColumns: ColumnType<number[], string | undefined, string>;
   createdAt: DefaultedTimestamp;
   expiresAt: ColumnType<Date, Date | string, Date | string>;
+}
+
+/** A cell decoding changed: control characters removed (row and column index from 0). */
+export interface DecodeWarning {
+  row: number;
+  column: number;
+  removed: number;
 }
 
 export interface RosterImportRowsTable {
   draftId: string;
   position: number;
   rowNumber: number | null;
-  kind: 'add' | 'update' | 'unchanged' | 'error' | 'missing';
+  kind: 'add' | 'update' | 'unchanged' | 'error' | 'missing' | 'conflict';
   personId: string | null;
   givenName: string | null;
   familyName: string | null;
@@ -44,6 +57,7 @@ export interface PreviewDetail {
   before?: Record<string, unknown> | null;
   changedFields?: string[];
   errors?: Record<string, string>;
+  warnings?: Record<string, string>;
 }
 
 export interface RosterImportsTable {
@@ -58,6 +72,7 @@ export interface RosterImportsTable {
   deactivated: number;
   skipped: number;
   officesCreated: number;
+  draftId: string | null;
 }
 
 export interface RosterMappingsTable {

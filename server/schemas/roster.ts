@@ -104,12 +104,17 @@ export const erasePersonRequestSchema = z.object({
     .min(1, { error: "Type the person's e-mail address to confirm." }),
 });
 
-export const previewKinds = ['add', 'update', 'unchanged', 'error', 'missing'] as const;
+/**
+ * What commit does with a row. A conflict is a row whose e-mail belongs to a person with a
+ * different employee id: left out unless the coordinator says they are the same people.
+ */
+export const previewKinds = ['add', 'update', 'conflict', 'unchanged', 'error', 'missing'] as const;
 export type PreviewKind = (typeof previewKinds)[number];
 
 export const previewCountsSchema = z.object({
   add: z.number(),
   update: z.number(),
+  conflict: z.number(),
   unchanged: z.number(),
   error: z.number(),
   missing: z.number(),
@@ -123,6 +128,8 @@ export interface RosterDraft {
   delimiter: string;
   rowCount: number;
   headers: string[];
+  /** Columns whose field was guessed from their values (a column of addresses is the e-mail). */
+  guessedColumns: number[];
   sampleRows: string[][];
   mapping: ColumnMapping;
   /** Why the mapping cannot be previewed yet (a required field without a column...). */
@@ -130,6 +137,8 @@ export interface RosterDraft {
   /** Every column is mapped as in this client's last import: no need to show the mapping. */
   mappingRemembered: boolean;
   counts: PreviewCounts;
+  /** Rows of any kind that come with a warning (a stored name kept, characters removed). */
+  rowsWithWarnings: number;
   newOffices: string[];
   knownOffices: Array<{ id: string; name: string; timeZone: string }>;
   expiresAt: string;
@@ -150,10 +159,13 @@ export interface PreviewRow {
   before: PreviewValues | null;
   changedFields: string[];
   errors: Record<string, string>;
+  /** What the row keeps or changes that the coordinator should know (per field or column). */
+  warnings: Record<string, string>;
 }
 
 export const previewQuerySchema = z.object({
-  kind: z.enum([...previewKinds, 'all']).default('all'),
+  // "warned": rows of any kind that come with a warning.
+  kind: z.enum([...previewKinds, 'all', 'warned']).default('all'),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(5).max(200).default(25),
   sort: z.enum(['position', 'name', 'email', 'kind']).default('position'),
@@ -180,7 +192,10 @@ export const commitImportRequestSchema = z.object({
     z.string(),
     z.string().refine(isTimeZone, { error: 'Choose a time zone from the list.' }),
   ),
-  deactivateMissing: z.boolean().default(true),
+  // Off unless asked: an export of one office would otherwise deactivate everyone else.
+  deactivateMissing: z.boolean().default(false),
+  // Conflicts are left out unless the coordinator confirms they are the same people.
+  rekeyConflicts: z.boolean().default(false),
 });
 export type CommitImportRequest = z.input<typeof commitImportRequestSchema>;
 

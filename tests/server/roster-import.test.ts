@@ -53,7 +53,14 @@ describe('roster import', () => {
       'employeeId',
       'office',
     ]);
-    expect(draft.body.counts).toEqual({ add: 3, update: 0, unchanged: 0, error: 0, missing: 0 });
+    expect(draft.body.counts).toEqual({
+      add: 3,
+      update: 0,
+      conflict: 0,
+      unchanged: 0,
+      error: 0,
+      missing: 0,
+    });
     expect(draft.body.newOffices).toEqual(['Leeds', 'Porto', 'Rotterdam']);
     const rows = await agent
       .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=add&sort=email`)
@@ -92,7 +99,14 @@ describe('roster import', () => {
     ]);
     const draft = await uploadRoster(agent, client.id, second, 'staff-2.csv').expect(201);
     expect(draft.body.mappingRemembered).toBe(true);
-    expect(draft.body.counts).toEqual({ add: 1, update: 2, unchanged: 0, error: 0, missing: 1 });
+    expect(draft.body.counts).toEqual({
+      add: 1,
+      update: 2,
+      conflict: 0,
+      unchanged: 0,
+      error: 0,
+      missing: 1,
+    });
     const updates = await agent
       .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=update`)
       .expect(200);
@@ -102,7 +116,7 @@ describe('roster import', () => {
     ]);
     await agent
       .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
-      .send({ officeTimeZones: {} })
+      .send({ officeTimeZones: {}, deactivateMissing: true })
       .expect(201);
     const roster = await rosterOf(client.id);
     expect(roster).toHaveLength(4);
@@ -202,8 +216,9 @@ describe('roster import', () => {
     const csv = await agent
       .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/errors.csv`)
       .expect(200)
-      .expect('Content-Type', /text\/csv/);
-    expect(csv.text.split('\r\n')[0]).toBe('\uFEFFFirst name,Last name,E-mail,What to fix');
+      .expect('Content-Type', 'text/csv; charset=utf-8');
+    // The upload was ";"-separated UTF-8 without a byte order mark: so is the file to fix.
+    expect(csv.text.split('\r\n')[0]).toBe('First name;Last name;E-mail;What to fix');
     expect(csv.text.split('\r\n')).toHaveLength(5);
   });
 
@@ -212,6 +227,9 @@ describe('roster import', () => {
     const file = 'Col A,Col B,Col C\r\nAda,Pike,ada@hp.example\r\n';
     const draft = await uploadRoster(agent, client.id, file).expect(201);
     expect(draft.body.mappingProblems.length).toBeGreaterThan(0);
+    // Col C holds addresses, so it was taken for the e-mail and is marked as a guess.
+    expect(draft.body.mapping).toEqual(['extra', 'extra', 'email']);
+    expect(draft.body.guessedColumns).toEqual([2]);
     await agent
       .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
       .send({ officeTimeZones: {} })

@@ -154,7 +154,14 @@ describe('people directory', () => {
     const exported = await agent.get(`/api/clients/${clientId}/people/export.csv`).expect(200);
     const draft = await uploadRoster(agent, clientId, exported.text, 'people.csv').expect(201);
     expect(draft.body.mappingProblems).toEqual([]);
-    expect(draft.body.counts).toEqual({ add: 0, update: 0, unchanged: 4, error: 0, missing: 0 });
+    expect(draft.body.counts).toEqual({
+      add: 0,
+      update: 0,
+      conflict: 0,
+      unchanged: 4,
+      error: 0,
+      missing: 0,
+    });
   });
 
   it("answers 404 for another client's people, as for a missing client", async () => {

@@ -105,8 +105,58 @@ describe('diffing against the roster', () => {
       personId: 'p1',
       changedFields: ['email'],
     });
-    const byEmail = diff([['Ada', 'Pike', 'ADA@hp.example', 'E7', 'Leeds', '']], [person({})]);
+    // A person without an id gains the file's id through their e-mail.
+    const byEmail = diff(
+      [['Ada', 'Pike', 'ADA@hp.example', 'E7', 'Leeds', '']],
+      [person({ employeeId: null })],
+    );
     expect(byEmail.rows[0]).toMatchObject({ kind: 'update', changedFields: ['employeeId'] });
+  });
+
+  it('an e-mail match whose person has another id is a conflict, not an update (issue 13, item 9)', () => {
+    const result = diff(
+      [
+        ['Ada', 'Pike', 'ADA@hp.example', 'E7', 'Leeds', ''],
+        ['Bo', 'Lund', 'bo@hp.example', 'E2', 'Leeds', ''],
+      ],
+      [
+        person({ active: false }),
+        person({
+          id: 'p2',
+          givenName: 'Bo',
+          familyName: 'Lund',
+          email: 'bo@hp.example',
+          employeeId: 'E2',
+        }),
+      ],
+    );
+    expect(result.rows.map((row) => row.kind)).toEqual(['conflict', 'unchanged']);
+    const conflict = result.rows[0];
+    expect(conflict).toMatchObject({ personId: 'p1', changedFields: ['employeeId', 'active'] });
+    expect(conflict?.errors.employeeId).toBe(
+      'This e-mail belongs to Ada Pike, whose employee id is E1; this row says E7. Correct the file, or confirm below that they are the same person.',
+    );
+    // The person is named by a row, so not "missing" either.
+    expect(result.rows.some((row) => row.kind === 'missing')).toBe(false);
+  });
+
+  it('without a mapped id column an e-mail match is a plain update', () => {
+    const withoutIds: ColumnMapping = [
+      'givenName',
+      'familyName',
+      'email',
+      'ignore',
+      'office',
+      'extra',
+    ];
+    const noIds = diffRoster(
+      checkRows(headers, [['Ada', 'Pike-Moss', 'ada@hp.example', 'E7', 'Leeds', '']], withoutIds),
+      [person({})],
+      ['Leeds'],
+      new Set<RosterField>(['givenName', 'familyName', 'email', 'office']),
+      false,
+    );
+    expect(noIds.rows[0]).toMatchObject({ kind: 'update', changedFields: ['familyName'] });
   });
 
   it('reactivates an inactive person who is back, and never clears an unmapped field', () => {
@@ -128,5 +178,61 @@ describe('diffing against the roster', () => {
     expect(result.rows.filter((row) => row.kind === 'missing').map((row) => row.personId)).toEqual([
       'p2',
     ]);
+  });
+});
+
+describe('a legacy-encoding file and names it cannot hold (issue 13, item 14)', () => {
+  // Windows-1252 has no Ł (WHATWG Encoding, index-windows-1252): spreadsheet programs write it
+  // as "?" or as a plain L (from memory).
+  const lukasz = person({ givenName: 'Łukasz', familyName: 'Wróbel', email: 'lw@hp.example' });
+  const legacy = (rows: string[][], existing: ExistingPerson[]) =>
+    diffRoster(checkRows(headers, rows, mapping), existing, ['Leeds'], mapped, true, {
+      legacyEncoding: true,
+    });
+
+  it('keeps the stored spelling and warns, whether the file says ?ukasz or Lukasz', () => {
+    for (const spelling of ['?ukasz', 'Lukasz']) {
+      const result = legacy([[spelling, 'Wróbel', 'lw@hp.example', 'E1', 'Leeds', '']], [lukasz]);
+      expect(result.rows[0]).toMatchObject({ kind: 'unchanged', changedFields: [] });
+      expect(result.rows[0]?.values.givenName).toBe('Łukasz');
+      expect(result.rows[0]?.warnings.givenName).toMatch(
+        /^Kept “Łukasz”: this file is Windows-1252/,
+      );
+    }
+  });
+
+  it('still applies a real change, and a UTF-8 file may change the spelling', () => {
+    const renamed = legacy([['Luke', 'Wróbel', 'lw@hp.example', 'E1', 'Leeds', '']], [lukasz]);
+    expect(renamed.rows[0]).toMatchObject({ kind: 'update', changedFields: ['givenName'] });
+    const utf8 = diff([['Lukasz', 'Wróbel', 'lw@hp.example', 'E1', 'Leeds', '']], [lukasz]);
+    expect(utf8.rows[0]).toMatchObject({ kind: 'update', changedFields: ['givenName'] });
+    // Wróbel fits Windows-1252 (ó = 0xF3), so "Wrobel" is a real change there too.
+    const plain = legacy([['Łukasz', 'Wrobel', 'lw@hp.example', 'E1', 'Leeds', '']], [lukasz]);
+    expect(plain.rows[0]).toMatchObject({ kind: 'update', changedFields: ['familyName'] });
+  });
+});
+
+describe('control characters removed at decode (issue 14, item 1)', () => {
+  it('warn on the row, per field or extra column', () => {
+    const checked = checkRows(
+      headers,
+      [['Ada', 'Pike', 'ada@hp.example', 'E1', 'Leeds', 'L']],
+      mapping,
+      [
+        { row: 0, column: 0, removed: 1 },
+        { row: 0, column: 5, removed: 2 },
+      ],
+    );
+    expect(checked[0]?.warnings).toEqual({
+      givenName: 'A control character (not allowed in text) was removed from this value.',
+      Shirt: '2 control characters (not allowed in text) were removed from this value.',
+    });
+    const result = diffRoster(checked, [], ['Leeds'], mapped, true);
+    expect(result.rows[0]?.warnings.givenName).toMatch(/removed/);
+  });
+
+  it('an empty e-mail cell says the e-mail is missing (issue 13, item 12)', () => {
+    const checked = checkRows(headers, [['Ada', 'Pike', '  ', '', '', '']], mapping);
+    expect(checked[0]?.errors.email).toBe('The e-mail is missing.');
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  headerSynonyms,
   mappingToRemember,
   normaliseHeader,
   suggestMapping,
@@ -53,5 +54,120 @@ describe('suggesting a column mapping', () => {
   it('normalises accents, punctuation and case', () => {
     expect(normaliseHeader('  Émail-Adresse ')).toBe('email adresse');
     expect(normaliseHeader('Emp #')).toBe('emp number');
+  });
+
+  it('reads "Personnel No", "Preferred" and other number spellings (common practice)', () => {
+    expect(suggestMapping(['Personnel No', 'Preferred', 'Forename', 'Surname', 'E-mail'])).toEqual([
+      'employeeId',
+      'preferredName',
+      'givenName',
+      'familyName',
+      'email',
+    ]);
+    expect(suggestMapping(['Staff Nr.'])).toEqual(['employeeId']);
+    expect(suggestMapping(['Payroll #'])).toEqual(['employeeId']);
+  });
+
+  // The words below are from memory of everyday HR usage in each language, not a published list.
+  it.each([
+    [
+      'Dutch',
+      [
+        'Voornaam',
+        'Achternaam',
+        'Roepnaam',
+        'E-mailadres',
+        'Personeelsnummer',
+        'Afdeling',
+        'Functie',
+        'Vestiging',
+      ],
+    ],
+    [
+      'German',
+      [
+        'Vorname',
+        'Nachname',
+        'Rufname',
+        'E-Mail-Adresse',
+        'Personalnummer',
+        'Abteilung',
+        'Stellenbezeichnung',
+        'Standort',
+      ],
+    ],
+    [
+      'French',
+      ['Prénom', 'Nom', 'Prénom usuel', 'Courriel', 'Matricule', 'Service', 'Poste', 'Site'],
+    ],
+    [
+      'Spanish',
+      [
+        'Nombre',
+        'Apellidos',
+        'Nombre preferido',
+        'Correo electrónico',
+        'Número de empleado',
+        'Departamento',
+        'Puesto',
+        'Oficina',
+      ],
+    ],
+    [
+      'Portuguese',
+      [
+        'Primeiro nome',
+        'Sobrenome',
+        'Nome social',
+        'Correio eletrónico',
+        'Matrícula',
+        'Setor',
+        'Cargo',
+        'Escritório',
+      ],
+    ],
+  ])('recognises %s headers', (_language, headers) => {
+    const expected = [
+      'givenName',
+      'familyName',
+      'preferredName',
+      'email',
+      'employeeId',
+      'department',
+      'jobTitle',
+      'office',
+    ];
+    expect(suggestMapping(headers)).toEqual(expected);
+  });
+
+  it('no header word names two fields', () => {
+    const words = Object.values(headerSynonyms).flat();
+    expect(words.filter((word, index) => words.indexOf(word) !== index)).toEqual([]);
+  });
+
+  it('guesses the e-mail from a column of addresses when no header names it', () => {
+    const rows = [
+      ['Ada', 'Pike', 'ada@hp.example', 'L'],
+      ['Bo', 'Lund', 'bo@hp.example', 'M'],
+      ['Cy', 'Moss', 'cy(at)hp.example', 'S'],
+      ['Di', 'Ng', 'di@hp.example', 'S'],
+      ['Ed', 'Oak', 'ed@hp.example', 'M'],
+    ];
+    expect(suggestMapping(['First name', 'Last name', 'Contact', 'Size'], {}, rows)).toEqual([
+      'givenName',
+      'familyName',
+      'email',
+      'extra',
+    ]);
+    // A named e-mail column wins; a remembered "extra" choice is respected.
+    expect(suggestMapping(['Contact', 'Email'], {}, [['a@x.example', 'b@x.example']])).toEqual([
+      'extra',
+      'email',
+    ]);
+    expect(suggestMapping(['Contact'], { contact: 'extra' }, [['a@x.example']])).toEqual(['extra']);
+    // Mostly not addresses: no guess.
+    expect(suggestMapping(['Notes'], {}, [['a@x.example'], ['call back'], ['n/a']])).toEqual([
+      'extra',
+    ]);
   });
 });

@@ -7,6 +7,7 @@ import type { DraftRecord } from './roster.repository';
 interface ApplyInput {
   officeTimeZones: Record<string, string>;
   deactivateMissing: boolean;
+  rekeyConflicts: boolean;
 }
 
 /**
@@ -42,7 +43,12 @@ export async function applyImport(
   let updated: number;
   try {
     added = await writes.insertPreviewedPeople(trx, clientId, draft.id);
-    updated = await writes.updatePreviewedPeople(trx, clientId, draft.id);
+    updated = await writes.updatePreviewedPeople(
+      trx,
+      clientId,
+      draft.id,
+      input.rekeyConflicts ? ['update', 'conflict'] : ['update'],
+    );
   } catch (error) {
     if (isUniqueViolation(error)) {
       throw new AppError(
@@ -61,7 +67,8 @@ export async function applyImport(
     updated,
     unchanged: draft.counts.unchanged,
     deactivated,
-    skipped: draft.counts.error,
+    // Conflicts not confirmed are left out like rows in error.
+    skipped: draft.counts.error + (input.rekeyConflicts ? 0 : (draft.counts.conflict ?? 0)),
     officesCreated: created.length,
   };
 }

@@ -1,4 +1,7 @@
 import type { ColumnMapping, ColumnTarget, RosterField } from '../../schemas/roster';
+import { headerSynonyms } from './header-words';
+
+export { headerSynonyms } from './header-words';
 
 /** "E-mail address", "e_mail", "Émail " all become "e mail address" / "email". */
 export function normaliseHeader(header: string): string {
@@ -11,105 +14,72 @@ export function normaliseHeader(header: string): string {
     .trim();
 }
 
-/** Header words HR exports use for each field (common practice), already normalised. */
-const synonyms: Record<RosterField, string[]> = {
-  givenName: [
-    'first name',
-    'firstname',
-    'given name',
-    'givenname',
-    'forename',
-    'first',
-    'name first',
-    'legal first name',
-  ],
-  familyName: [
-    'last name',
-    'lastname',
-    'family name',
-    'familyname',
-    'surname',
-    'last',
-    'name last',
-    'legal last name',
-  ],
-  preferredName: [
-    'preferred name',
-    'preferredname',
-    'known as',
-    'nickname',
-    'preferred first name',
-    'display first name',
-  ],
-  email: [
-    'email',
-    'e mail',
-    'email address',
-    'e mail address',
-    'work email',
-    'work e mail',
-    'business email',
-    'work email address',
-    'mail',
-    'company email',
-  ],
-  employeeId: [
-    'employee id',
-    'employeeid',
-    'emp id',
-    'emp number',
-    'employee number',
-    'staff id',
-    'staff number',
-    'personnel number',
-    'payroll number',
-    'id',
-    'employee no',
-    'emp no',
-    'badge number',
-  ],
-  department: [
-    'department',
-    'dept',
-    'team',
-    'division',
-    'business unit',
-    'cost centre',
-    'cost center',
-  ],
-  jobTitle: ['job title', 'title', 'position', 'role', 'job', 'function', 'jobtitle'],
-  office: ['office', 'location', 'site', 'work location', 'office location', 'city', 'branch'],
-};
-
 /** Columns our own export writes that are not data to keep. */
 const ignored = ['status', 'active'];
 
 const lookup = new Map<string, RosterField>();
-for (const [field, words] of Object.entries(synonyms) as [RosterField, string[]][]) {
+for (const [field, words] of Object.entries(headerSynonyms) as [RosterField, string[]][]) {
   for (const word of words) lookup.set(word, field);
+}
+
+/** "Personnel No", "Personal-Nr.", "Nº empleado": number words read as "number". */
+function lookupKey(key: string): string {
+  return key.replace(/\b(no|nr|num|nbr|nro)\b/g, 'number');
+}
+
+function fieldOfHeader(key: string): RosterField | undefined {
+  const canonical = lookupKey(key);
+  return (
+    lookup.get(key) ?? lookup.get(canonical) ?? lookup.get(canonical.replace(/ number$/, ' id'))
+  );
+}
+
+const emailLike = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;
+
+/**
+ * A column whose header says nothing but whose values are e-mail addresses holds the e-mail:
+ * at least four in five of its first 100 filled cells look like an address.
+ */
+function holdsEmails(rows: readonly (readonly string[])[], column: number): boolean {
+  const values: string[] = [];
+  for (const row of rows) {
+    const value = row[column]?.trim() ?? '';
+    if (value !== '') values.push(value);
+    if (values.length === 100) break;
+  }
+  if (values.length === 0) return false;
+  return values.filter((value) => emailLike.test(value)).length >= values.length * 0.8;
 }
 
 /**
  * A target for every column: a saved choice for the same header wins (the client's last
- * import), then the synonym list; unknown columns are kept as extras. A field is given to the
- * first column that claims it only.
+ * import), then the synonym list, then the column's contents (a column of addresses is the
+ * e-mail); unknown columns are kept as extras. A field is given to the first column that
+ * claims it only.
  */
 export function suggestMapping(
   headers: readonly string[],
   saved: Readonly<Record<string, ColumnTarget>> = {},
+  rows: readonly (readonly string[])[] = [],
 ): ColumnMapping {
   const taken = new Set<ColumnTarget>();
   const mapping: ColumnTarget[] = [];
-  for (const header of headers) {
+  const unknown: number[] = [];
+  headers.forEach((header, index) => {
     const key = normaliseHeader(header);
     let target: ColumnTarget;
     if (key === '') target = 'ignore';
     else if (saved[key]) target = saved[key];
     else if (ignored.includes(key)) target = 'ignore';
-    else target = lookup.get(key) ?? lookup.get(key.replace(/ (number|no|nr)$/, ' id')) ?? 'extra';
+    else target = fieldOfHeader(key) ?? 'extra';
     if (target !== 'extra' && target !== 'ignore' && taken.has(target)) target = 'extra';
+    if (target === 'extra' && !saved[key]) unknown.push(index);
     taken.add(target);
     mapping.push(target);
+  });
+  if (!taken.has('email')) {
+    const column = unknown.find((index) => holdsEmails(rows, index));
+    if (column !== undefined) mapping[column] = 'email';
   }
   return mapping;
 }

@@ -1,9 +1,16 @@
 import Papa from 'papaparse';
+import type { DecodeWarning } from '../../db/roster-types';
 import { AppError } from '../../lib/errors';
+import { decodeWindows1252 } from './windows-1252';
+
+export { decodeWindows1252 } from './windows-1252';
 
 /** Limits the issue sets for one roster file. */
 export const maxRosterBytes = 10 * 1024 * 1024;
 export const maxRosterRows = 50_000;
+/** Wider or longer than any staff list: refused before it costs memory (the hardening issue). */
+export const maxRosterColumns = 200;
+export const maxCellCharacters = 2000;
 
 export type RosterEncoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252';
 export type RosterDelimiter = ',' | ';' | '\t';
@@ -15,6 +22,8 @@ export interface ParsedRosterFile {
   headers: string[];
   /** Data rows, each padded or cut to the header's width. */
   rows: string[][];
+  /** Cells from which control characters were removed. */
+  warnings: DecodeWarning[];
 }
 
 const refuse = (code: string, message: string) => new AppError(code, 422, message);
@@ -87,27 +96,6 @@ export function decodeRosterBytes(bytes: Uint8Array): {
   return decoded;
 }
 
-/**
- * WHATWG index-windows-1252 for 0x80-0x9F; the other bytes equal their code points. Written
- * out because Node's TextDecoder treats the "windows-1252" label as Latin-1 for these bytes.
- */
-const windows1252High = [
-  0x20ac, 0x81, 0x201a, 0x192, 0x201e, 0x2026, 0x2020, 0x2021, 0x2c6, 0x2030, 0x160, 0x2039, 0x152,
-  0x8d, 0x17d, 0x8f, 0x90, 0x2018, 0x2019, 0x201c, 0x201d, 0x2022, 0x2013, 0x2014, 0x2dc, 0x2122,
-  0x161, 0x203a, 0x153, 0x9d, 0x17e, 0x178,
-];
-
-export function decodeWindows1252(bytes: Uint8Array): string {
-  const chunks: string[] = [];
-  for (let start = 0; start < bytes.length; start += 8192) {
-    const codes = Array.from(bytes.subarray(start, start + 8192), (byte) =>
-      byte >= 0x80 && byte <= 0x9f ? (windows1252High[byte - 0x80] ?? byte) : byte,
-    );
-    chunks.push(String.fromCharCode(...codes));
-  }
-  return chunks.join('');
-}
-
 function decodeStrict(encoding: 'utf-8' | 'utf-16le' | 'utf-16be', bytes: Uint8Array): string {
   try {
     return new TextDecoder(encoding, { fatal: true }).decode(bytes);
@@ -119,16 +107,19 @@ function decodeStrict(encoding: 'utf-8' | 'utf-16le' | 'utf-16be', bytes: Uint8A
   }
 }
 
-/** Text files hold no NUL and few control characters; binary files hold many. */
+/**
+ * Binary files hold many control characters (NUL included); text files few. A stray one in a
+ * text file is removed from its cell with a warning instead (see cleanCell).
+ */
 function looksBinary(text: string): boolean {
   const sample = text.slice(0, 64 * 1024);
-  if (sample.includes('\u0000')) return true;
   let controls = 0;
   for (let index = 0; index < sample.length; index += 1) {
     const code = sample.charCodeAt(index);
     if (code < 32 && code !== 9 && code !== 10 && code !== 13) controls += 1;
   }
-  return controls > sample.length / 100;
+  // Real binaries run far above one in twenty (a PNG header, UTF-16 without its mark).
+  return controls > sample.length / 20;
 }
 
 const candidates: RosterDelimiter[] = [',', ';', '\t'];
@@ -153,7 +144,53 @@ export function detectDelimiter(text: string): RosterDelimiter {
 
 const emailLike = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;
 
-/** RFC 4180 records (quoted separators, doubled quotes, line breaks inside quotes) via papaparse. */
+/**
+ * Control characters a text cell must not hold: C0 except tab, line feed and carriage return
+ * (quoted cells may hold line breaks), DEL and C1. PostgreSQL refuses NUL in text outright.
+ */
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
+const controlCharacters = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]/g;
+
+// eslint-disable-next-line no-control-regex -- the same set, to test without allocating
+const anyControlCharacter = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]/;
+
+/** The cell without control characters, and how many were removed. */
+export function cleanCell(cell: string): { value: string; removed: number } {
+  if (!anyControlCharacter.test(cell)) return { value: cell, removed: 0 };
+  let removed = 0;
+  const value = cell.replace(controlCharacters, () => {
+    removed += 1;
+    return '';
+  });
+  return { value, removed };
+}
+
+function refuseLongCell(rowNumber: number, column: string, length: number): AppError {
+  return refuse(
+    'cell_too_long',
+    `Row ${rowNumber}, column "${column.slice(0, 60)}" holds ${length.toLocaleString('en')} characters; a value may hold at most ${maxCellCharacters.toLocaleString('en')}. Shorten it and upload again.`,
+  );
+}
+
+function readHeader(text: string, delimiter: RosterDelimiter): string[] {
+  const first = Papa.parse<string[]>(text, { delimiter, preview: 1, skipEmptyLines: 'greedy' });
+  const cells = first.data[0] ?? [];
+  if (cells.length > maxRosterColumns) {
+    throw refuse(
+      'too_many_columns',
+      `The header row has ${cells.length.toLocaleString('en')} columns; a staff list may have at most ${maxRosterColumns}. Remove the columns you do not need and upload again.`,
+    );
+  }
+  const tooLong = cells.findIndex((cell) => cell.length > maxCellCharacters);
+  if (tooLong >= 0) throw refuseLongCell(1, `Column ${tooLong + 1}`, cells[tooLong]?.length ?? 0);
+  return cells.map((cell) => cleanCell(cell).value.trim());
+}
+
+/**
+ * RFC 4180 records (quoted separators, doubled quotes, line breaks inside quotes) via
+ * papaparse, one record at a time so a very wide or long file is cut or refused as it is read
+ * rather than held whole.
+ */
 export function parseRosterText(
   text: string,
 ): Omit<ParsedRosterFile, 'encoding' | 'hadByteOrderMark'> {
@@ -162,16 +199,7 @@ export function parseRosterText(
   if (clean.trim() === '')
     throw refuse('empty_file', 'The file has no rows. Choose the CSV export of your staff list.');
   const delimiter = detectDelimiter(clean);
-  const result = Papa.parse<string[]>(clean, { delimiter, skipEmptyLines: 'greedy' });
-  const unterminated = result.errors.find((error) => error.code === 'MissingQuotes');
-  if (unterminated) {
-    throw refuse(
-      'bad_quotes',
-      `A quoted value starting on row ${(unterminated.row ?? 0) + 1} never ends. Check the quotation marks there.`,
-    );
-  }
-  const [headerRow, ...dataRows] = result.data;
-  const headers = (headerRow ?? []).map((cell) => cell.trim());
+  const headers = readHeader(clean, delimiter);
   const named = headers.filter((header) => header !== '');
   if (
     named.length === 0 ||
@@ -183,26 +211,59 @@ export function parseRosterText(
       'The first row must name the columns (for example "First name", "E-mail"). Add a header row and upload again.',
     );
   }
-  if (dataRows.length === 0)
+  const width = headers.length;
+  const rows: string[][] = [];
+  const warnings: DecodeWarning[] = [];
+  let records = 0;
+  // Set inside the step callback, which TypeScript cannot follow.
+  let failure = null as AppError | null;
+  Papa.parse<string[]>(clean, {
+    delimiter,
+    skipEmptyLines: 'greedy',
+    step: (result, parser) => {
+      records += 1;
+      const unterminated = result.errors.find((error) => error.code === 'MissingQuotes');
+      if (unterminated) {
+        failure = refuse(
+          'bad_quotes',
+          `A quoted value starting on row ${records} never ends. Check the quotation marks there.`,
+        );
+        parser.abort();
+        return;
+      }
+      if (records === 1 || rows.length >= maxRosterRows) return;
+      const cells: string[] = [];
+      for (let column = 0; column < width; column += 1) {
+        const cell = result.data[column] ?? '';
+        if (cell.length > maxCellCharacters) {
+          failure = refuseLongCell(records, headers[column] || `Column ${column + 1}`, cell.length);
+          parser.abort();
+          return;
+        }
+        const cleaned = cleanCell(readBackNeutralised(cell));
+        if (cleaned.removed > 0)
+          warnings.push({ row: rows.length, column, removed: cleaned.removed });
+        cells.push(cleaned.value);
+      }
+      rows.push(cells);
+    },
+  });
+  if (failure) throw failure;
+  const dataRows = records - 1;
+  if (dataRows <= 0)
     throw refuse('empty_file', 'The file has a header row but no people under it.');
-  if (dataRows.length > maxRosterRows) {
+  if (dataRows > maxRosterRows) {
     throw refuse(
       'too_many_rows',
-      `The file has ${dataRows.length.toLocaleString('en')} rows; one import takes at most 50,000.`,
+      `The file has ${dataRows.toLocaleString('en')} rows; one import takes at most 50,000.`,
     );
   }
-  const width = headers.length;
-  const rows = dataRows.map((row) => {
-    const cells = row.slice(0, width).map(readBackNeutralised);
-    while (cells.length < width) cells.push('');
-    return cells;
-  });
-  return { delimiter, headers, rows };
+  return { delimiter, headers, rows, warnings };
 }
 
 /** A cell our own export neutralised (OWASP CSV Injection: a leading ') reads back as it was. */
 export function readBackNeutralised(cell: string): string {
-  return /^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell;
+  return cell.charCodeAt(0) === 39 && /^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell;
 }
 
 export function parseRosterFile(bytes: Uint8Array): ParsedRosterFile {

@@ -1,5 +1,6 @@
 import type { PreviewKind, PreviewRow, PreviewValues, RosterField } from '../../schemas/roster';
 import type { CheckedRow } from './roster-rows';
+import { isWindows1252Copy } from './windows-1252';
 
 /** A person already on the client's roster, as the diff needs them. */
 export interface ExistingPerson {
@@ -42,11 +43,20 @@ function sameExtras(a: Record<string, string>, b: Record<string, string>): boole
   return keys.length === Object.keys(b).length && keys.every((key) => a[key] === b[key]);
 }
 
+export interface DiffOptions {
+  /** The file was read as Windows-1252, so a stored name it cannot hold may come back lossy. */
+  legacyEncoding?: boolean;
+}
+
+const nameOf = (person: ExistingPerson) => `${person.givenName} ${person.familyName}`;
+
 /**
  * Classifies checked rows against the roster. A row matches a person by employee id first,
- * then by e-mail (case-insensitive). Only the columns the mapping uses are compared and later
- * written; a column left out keeps what the person has. Active people no row matches are
- * "missing". The result is what commit applies, row for row.
+ * then by e-mail (case-insensitive). An e-mail match whose person has another, non-empty
+ * employee id is a conflict: never applied unless the coordinator says they are the same
+ * people. Only the columns the mapping uses are compared and later written; a column left out
+ * keeps what the person has. Active people no row matches are "missing". The result is what
+ * commit applies, row for row.
  */
 export function diffRoster(
   checked: readonly CheckedRow[],
@@ -54,6 +64,7 @@ export function diffRoster(
   knownOffices: readonly string[],
   mappedFields: ReadonlySet<RosterField>,
   extrasMapped: boolean,
+  options: DiffOptions = {},
 ): RosterDiff {
   const byEmployeeId = new Map<string, ExistingPerson>();
   const byEmail = new Map<string, ExistingPerson>();
@@ -90,6 +101,7 @@ export function diffRoster(
         values: { ...item.values, extras: item.extras },
         before: null,
         errors: item.errors,
+        warnings: item.warnings,
       });
       continue;
     }
@@ -110,6 +122,7 @@ export function diffRoster(
           values: { ...row, extras: item.extras },
           before: null,
           errors: { email: 'This e-mail belongs to another person on the roster.' },
+          warnings: item.warnings,
         });
         continue;
       }
@@ -122,12 +135,14 @@ export function diffRoster(
         values: { ...row, extras: item.extras, active: true },
         before: null,
         errors: {},
+        warnings: item.warnings,
       });
       continue;
     }
     const before = currentValues(match);
     const after: PreviewValues = { ...before };
     const changed: string[] = [];
+    const warnings = { ...item.warnings };
     for (const field of comparedFields) {
       if (!mappedFields.has(field)) continue;
       const next = row[field] ?? null;
@@ -136,10 +151,20 @@ export function diffRoster(
         field === 'office' || field === 'email'
           ? (next ?? '').toLowerCase() === (previous ?? '').toLowerCase()
           : next === previous;
-      if (!same) {
-        after[field] = next;
-        changed.push(field);
+      if (same) continue;
+      if (
+        options.legacyEncoding &&
+        field !== 'email' &&
+        previous !== null &&
+        next !== null &&
+        isWindows1252Copy(previous, next)
+      ) {
+        warnings[field] =
+          `Kept “${previous}”: this file is Windows-1252, which cannot hold it, and reads “${next}”. Save the file as UTF-8 to change it.`;
+        continue;
       }
+      after[field] = next;
+      changed.push(field);
     }
     if (extrasMapped && !sameExtras(item.extras, match.extras)) {
       after.extras = item.extras;
@@ -149,15 +174,21 @@ export function diffRoster(
       after.active = true;
       changed.push('active');
     }
-    const kind: PreviewKind = changed.length > 0 ? 'update' : 'unchanged';
+    const conflict = !!row.employeeId && !!match.employeeId && row.employeeId !== match.employeeId;
+    const kind: PreviewKind = conflict ? 'conflict' : changed.length > 0 ? 'update' : 'unchanged';
     rows.push({
       ...base,
       kind,
       personId: match.id,
       values: after,
-      before: kind === 'update' ? before : null,
+      before: kind === 'unchanged' ? null : before,
       changedFields: changed,
-      errors: {},
+      errors: conflict
+        ? {
+            employeeId: `This e-mail belongs to ${nameOf(match)}, whose employee id is ${match.employeeId}; this row says ${row.employeeId}. Correct the file, or confirm below that they are the same person.`,
+          }
+        : {},
+      warnings,
     });
   }
 
@@ -172,6 +203,7 @@ export function diffRoster(
       before: currentValues(person),
       changedFields: ['active'],
       errors: {},
+      warnings: {},
     });
   }
   return { rows, newOffices: [...newOffices.values()].sort() };

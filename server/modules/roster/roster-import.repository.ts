@@ -21,14 +21,16 @@ export async function insertOffices(
     .execute();
 }
 
-/** The previewed values of one kind of row, with the office resolved to the client's office. */
-const previewValues = (clientId: string, draftId: string, kind: 'add' | 'update') => sql`
+type WrittenKind = 'add' | 'update' | 'conflict';
+
+/** The previewed values of some kinds of row, with the office resolved to the client's office. */
+const previewValues = (clientId: string, draftId: string, kinds: readonly WrittenKind[]) => sql`
   select r.person_id, r.position, r.given_name, r.family_name, r.preferred_name, r.email,
          r.employee_id, r.department, r.job_title, o.id as office_id,
          coalesce(r.extras, '{}') as extras
   from roster_import_rows r
   left join offices o on o.client_id = ${clientId}::uuid and lower(o.name) = lower(r.office)
-  where r.draft_id = ${draftId}::uuid and r.kind = ${kind}`;
+  where r.draft_id = ${draftId}::uuid and r.kind = any(${kinds}::text[])`;
 
 export async function insertPreviewedPeople(db: Db, clientId: string, draftId: string) {
   const result = await sql`
@@ -36,18 +38,24 @@ export async function insertPreviewedPeople(db: Db, clientId: string, draftId: s
                         department, job_title, office_id, extras)
     select ${clientId}::uuid, given_name, family_name, preferred_name, email, employee_id,
            department, job_title, office_id, extras
-    from (${previewValues(clientId, draftId, 'add')}) as added`.execute(db);
+    from (${previewValues(clientId, draftId, ['add'])}) as added`.execute(db);
   return Number(result.numAffectedRows ?? 0);
 }
 
-export async function updatePreviewedPeople(db: Db, clientId: string, draftId: string) {
+/** Updates, and conflicts when the coordinator confirmed they are the same people. */
+export async function updatePreviewedPeople(
+  db: Db,
+  clientId: string,
+  draftId: string,
+  kinds: readonly WrittenKind[],
+) {
   const result = await sql`
     update people as p set
       given_name = u.given_name, family_name = u.family_name, preferred_name = u.preferred_name,
       email = u.email, employee_id = u.employee_id, department = u.department,
       job_title = u.job_title, office_id = u.office_id, extras = u.extras,
       active = true, updated_at = now()
-    from (${previewValues(clientId, draftId, 'update')}) as u
+    from (${previewValues(clientId, draftId, kinds)}) as u
     where p.id = u.person_id and p.client_id = ${clientId}::uuid`.execute(db);
   return Number(result.numAffectedRows ?? 0);
 }
@@ -67,6 +75,7 @@ export async function insertImport(
   entry: Omit<ImportSummary, 'id' | 'importedAt' | 'importedBy'> & {
     clientId: string;
     importedBy: string | null;
+    draftId: string;
   },
 ): Promise<string> {
   const row = await db
@@ -77,8 +86,12 @@ export async function insertImport(
   return row.id;
 }
 
-export async function listImports(db: Db, clientId: string): Promise<ImportSummary[]> {
-  const rows = await db
+export async function listImports(
+  db: Db,
+  clientId: string,
+  only: { draftId?: string } = {},
+): Promise<ImportSummary[]> {
+  let query = db
     .selectFrom('rosterImports')
     .leftJoin('users', 'users.id', 'rosterImports.importedBy')
     .select([
@@ -93,9 +106,8 @@ export async function listImports(db: Db, clientId: string): Promise<ImportSumma
       'rosterImports.skipped',
       'rosterImports.officesCreated',
     ])
-    .where('rosterImports.clientId', '=', clientId)
-    .orderBy('rosterImports.importedAt', 'desc')
-    .limit(20)
-    .execute();
+    .where('rosterImports.clientId', '=', clientId);
+  if (only.draftId) query = query.where('rosterImports.draftId', '=', only.draftId);
+  const rows = await query.orderBy('rosterImports.importedAt', 'desc').limit(20).execute();
   return rows.map((row) => ({ ...row, importedAt: new Date(row.importedAt).toISOString() }));
 }

@@ -21,12 +21,13 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: readonly
         : null,
     );
     const detail = batch.map((row) =>
-      row.kind === 'add' || row.kind === 'unchanged'
+      (row.kind === 'add' || row.kind === 'unchanged') && Object.keys(row.warnings).length === 0
         ? null
         : JSON.stringify({
             before: row.before,
             changedFields: row.changedFields,
             errors: row.errors,
+            warnings: row.warnings,
           }),
     );
     await sql`
@@ -76,7 +77,20 @@ function toPreviewRow(row: StoredPreviewRow): PreviewRow {
     before: (detail?.before as PreviewRow['before']) ?? null,
     changedFields: detail?.changedFields ?? [],
     errors: detail?.errors ?? {},
+    warnings: detail?.warnings ?? {},
   };
+}
+
+const hasWarnings = sql<boolean>`coalesce(detail -> 'warnings', '{}'::jsonb) <> '{}'::jsonb`;
+
+export async function countRowsWithWarnings(db: Db, draftId: string): Promise<number> {
+  const row = await db
+    .selectFrom('rosterImportRows')
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .where('draftId', '=', draftId)
+    .where(hasWarnings)
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
 }
 
 export async function previewPage(
@@ -92,7 +106,8 @@ export async function previewPage(
   },
 ): Promise<PreviewPage> {
   let base = db.selectFrom('rosterImportRows').where('draftId', '=', draftId);
-  if (query.kind !== 'all') base = base.where('kind', '=', query.kind as PreviewRow['kind']);
+  if (query.kind === 'warned') base = base.where(hasWarnings);
+  else if (query.kind !== 'all') base = base.where('kind', '=', query.kind as PreviewRow['kind']);
   if (query.q) {
     const pattern = `%${query.q.replace(/[\\%_]/g, (match) => `\\${match}`)}%`;
     base = base.where((eb) =>

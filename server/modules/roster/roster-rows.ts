@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { DecodeWarning } from '../../db/roster-types';
 import {
   rosterRowSchema,
   type ColumnMapping,
@@ -14,6 +15,8 @@ export interface CheckedRow {
   row: RosterRow | null;
   extras: Record<string, string>;
   errors: Record<string, string>;
+  /** Per field (or extra column's header): what decoding or matching changed or kept. */
+  warnings: Record<string, string>;
 }
 
 /** Puts each cell where the mapping says; extras keep their header as the key. */
@@ -34,6 +37,28 @@ function pick(headers: readonly string[], cells: readonly string[], mapping: Col
   return { fields, extras };
 }
 
+/** Decoding's warnings by row index, worded per field or extra column. */
+function warningsByRow(
+  headers: readonly string[],
+  mapping: ColumnMapping,
+  decodeWarnings: readonly DecodeWarning[],
+) {
+  const byRow = new Map<number, Record<string, string>>();
+  for (const warning of decodeWarnings) {
+    const target = mapping[warning.column];
+    if (!target || target === 'ignore') continue;
+    const key =
+      target === 'extra' ? (headers[warning.column] ?? `Column ${warning.column + 1}`) : target;
+    const entry = byRow.get(warning.row) ?? {};
+    entry[key] =
+      warning.removed === 1
+        ? 'A control character (not allowed in text) was removed from this value.'
+        : `${warning.removed} control characters (not allowed in text) were removed from this value.`;
+    byRow.set(warning.row, entry);
+  }
+  return byRow;
+}
+
 /**
  * Validates every row with the same zod schema the hand-edit form uses, then flags repeats of
  * an e-mail (case-insensitive) or employee id inside the file: the first occurrence wins.
@@ -42,11 +67,14 @@ export function checkRows(
   headers: readonly string[],
   rows: readonly (readonly string[])[],
   mapping: ColumnMapping,
+  decodeWarnings: readonly DecodeWarning[] = [],
 ): CheckedRow[] {
   const seenEmails = new Map<string, number>();
   const seenIds = new Map<string, number>();
+  const rowWarnings = warningsByRow(headers, mapping, decodeWarnings);
   return rows.map((cells, index) => {
     const rowNumber = index + 2;
+    const warnings = { ...rowWarnings.get(index) };
     const { fields, extras } = pick(headers, cells, mapping);
     const result = rosterRowSchema.safeParse(fields);
     if (!result.success) {
@@ -55,7 +83,10 @@ export function checkRows(
         const first = (messages as string[] | undefined)?.[0];
         if (first) errors[field] = first;
       }
-      return { rowNumber, values: fields, row: null, extras, errors };
+      // "Enter a valid e-mail address" reads wrong for a blank cell in a file.
+      if (errors.email && (fields.email ?? '').trim() === '')
+        errors.email = 'The e-mail is missing.';
+      return { rowNumber, values: fields, row: null, extras, errors, warnings };
     }
     const row = result.data;
     const errors: Record<string, string> = {};
@@ -68,6 +99,6 @@ export function checkRows(
       else seenIds.set(row.employeeId, rowNumber);
     }
     const valid = Object.keys(errors).length === 0;
-    return { rowNumber, values: { ...row }, row: valid ? row : null, extras, errors };
+    return { rowNumber, values: { ...row }, row: valid ? row : null, extras, errors, warnings };
   });
 }

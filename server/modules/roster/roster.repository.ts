@@ -1,5 +1,6 @@
 import { sql } from 'kysely';
 import type { Db } from '../../db/database';
+import type { DecodeWarning } from '../../db/roster-types';
 import type { ColumnMapping, PreviewCounts } from '../../schemas/roster';
 import type { ExistingPerson } from './roster-diff';
 
@@ -8,8 +9,11 @@ export interface DraftRecord {
   clientId: string;
   fileName: string;
   encoding: string;
+  hadByteOrderMark: boolean;
   delimiter: string;
   headers: string[];
+  /** Columns whose field was guessed from their values. */
+  guessedColumns: number[];
   rowCount: number;
   sampleRows: string[][];
   mapping: ColumnMapping;
@@ -32,6 +36,18 @@ export async function clientExists(db: Db, clientId: string): Promise<boolean> {
     .where('id', '=', clientId)
     .executeTakeFirst();
   return row !== undefined;
+}
+
+/**
+ * Claims the commit of one draft for this transaction, without waiting: false while another
+ * request is saving it. Released when the transaction ends, even if the server dies.
+ */
+export async function tryClaimDraftCommit(trx: Db, draftId: string): Promise<boolean> {
+  const result = await sql<{ claimed: boolean }>`
+    select pg_try_advisory_xact_lock(hashtextextended(${`roster-commit:${draftId}`}, 0)) as claimed`.execute(
+    trx,
+  );
+  return result.rows[0]?.claimed === true;
 }
 
 /** Serialises imports of one client: the second waits for the first to commit. */
@@ -104,11 +120,23 @@ export async function saveMapping(db: Db, clientId: string, mapping: Record<stri
     .execute();
 }
 
-/** One open draft per client: a new upload replaces the last; expired ones go too. */
-export async function deleteStaleDrafts(db: Db, clientId: string): Promise<void> {
+/**
+ * One open draft per uploader and client: their new upload replaces their last, while another
+ * person's preview stays; expired drafts of anyone go too.
+ */
+export async function deleteStaleDrafts(
+  db: Db,
+  clientId: string,
+  uploaderId: string,
+): Promise<void> {
   const stale = await db
     .deleteFrom('rosterImportDrafts')
-    .where((eb) => eb.or([eb('clientId', '=', clientId), eb('expiresAt', '<', sql<Date>`now()`)]))
+    .where((eb) =>
+      eb.or([
+        eb.and([eb('clientId', '=', clientId), eb('createdBy', '=', uploaderId)]),
+        eb('expiresAt', '<', sql<Date>`now()`),
+      ]),
+    )
     .returning('id')
     .execute();
   if (stale.length === 0) return;
@@ -127,6 +155,7 @@ export async function insertDraft(
   draft: Omit<DraftRecord, 'id' | 'rowCount' | 'sampleRows'> & {
     createdBy: string | null;
     rawRows: string[][];
+    decodeWarnings: DecodeWarning[];
   },
 ): Promise<string> {
   const row = await db
@@ -136,6 +165,9 @@ export async function insertDraft(
       createdBy: draft.createdBy,
       fileName: draft.fileName,
       encoding: draft.encoding,
+      hadByteOrderMark: draft.hadByteOrderMark,
+      decodeWarnings: JSON.stringify(draft.decodeWarnings),
+      guessedColumns: JSON.stringify(draft.guessedColumns),
       delimiter: draft.delimiter,
       headers: JSON.stringify(draft.headers),
       rawRows: JSON.stringify(draft.rawRows),
@@ -167,7 +199,6 @@ export async function updateDraftPreview(
     .execute();
 }
 
-/** Replaces the draft's preview rows in one statement (one JSON parameter, any row count). */
 export async function findDraft(
   db: Db,
   clientId: string,
@@ -181,8 +212,10 @@ export async function findDraft(
       'clientId',
       'fileName',
       'encoding',
+      'hadByteOrderMark',
       'delimiter',
       'headers',
+      'guessedColumns',
       sql<number>`jsonb_array_length(raw_rows)`.as('rowCount'),
       sql<string[][]>`jsonb_path_query_array(raw_rows, '$[0 to 2]')`.as('sampleRows'),
       'mapping',
@@ -212,6 +245,16 @@ export async function loadRawRows(db: Db, draftId: string): Promise<string[][]> 
     .where('id', '=', draftId)
     .executeTakeFirstOrThrow();
   return row.rawRows;
+}
+
+/** What decoding removed from cells, for the preview's warnings after a remap. */
+export async function loadDecodeWarnings(db: Db, draftId: string): Promise<DecodeWarning[]> {
+  const row = await db
+    .selectFrom('rosterImportDrafts')
+    .select('decodeWarnings')
+    .where('id', '=', draftId)
+    .executeTakeFirstOrThrow();
+  return row.decodeWarnings;
 }
 
 export async function deleteDraft(db: Db, draftId: string) {

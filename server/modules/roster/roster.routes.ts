@@ -1,5 +1,5 @@
 import express, { type RequestHandler } from 'express';
-import { AppError } from '../../lib/errors';
+import { AppError, notFound } from '../../lib/errors';
 import type { RouteTable } from '../../lib/route-table';
 import { viewerOf } from '../../lib/route-table';
 import { parseId, parseInput } from '../../lib/validate';
@@ -18,10 +18,21 @@ const rawParser = express.raw({ type: 'application/octet-stream', limit: '12mb' 
 /**
  * The upload is the file's bytes as they are (application/octet-stream), so the server can
  * tell the encoding. Over 10 MB is refused by the service; a body far over that is cut here.
+ * Who may upload is checked before a byte of the body is read: a sitter's or another client's
+ * coordinator's large body is refused at once, not after it has been received.
  */
 const readUpload: RequestHandler = (req, res, next) => {
-  if (!req.viewer) {
+  const viewer = req.viewer;
+  if (!viewer) {
     next(new AppError('unauthenticated', 401, 'Please sign in to continue.'));
+    return;
+  }
+  if (!(rosterRoles as readonly string[]).includes(viewer.role)) {
+    next(new AppError('forbidden', 403, 'Your role does not allow this.'));
+    return;
+  }
+  if (viewer.role === 'coordinator' && viewer.clientId !== req.params.clientId) {
+    next(notFound('That client'));
     return;
   }
   rawParser(req, res, (error?: unknown) => {
@@ -79,17 +90,19 @@ export function registerRosterRoutes(routes: RouteTable, roster: RosterService) 
   routes.add('get', `${base}/:importId/errors.csv`, rosterRoles, async (req, res) => {
     const clientId = parseId(req.params.clientId, 'That client');
     const draftId = parseId(req.params.importId, 'That import');
-    const csv = await roster.errorCsv(viewerOf(req), clientId, draftId);
-    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    const file = await roster.errorCsv(viewerOf(req), clientId, draftId);
+    res.setHeader('Content-Type', file.contentType);
     res.setHeader('Content-Disposition', 'attachment; filename="roster-rows-to-fix.csv"');
-    res.send(csv);
+    res.send(file.body);
   });
 
   routes.add('post', `${base}/:importId/commit`, rosterRoles, async (req, res) => {
     const clientId = parseId(req.params.clientId, 'That client');
     const draftId = parseId(req.params.importId, 'That import');
     const input = parseInput(commitImportRequestSchema, req.body);
-    res.status(201).json(await roster.commit(viewerOf(req), clientId, draftId, input));
+    const { summary, replayed } = await roster.commit(viewerOf(req), clientId, draftId, input);
+    // Asking again after the save answers with the same import, as it was.
+    res.status(replayed ? 200 : 201).json(summary);
   });
 
   routes.add('get', '/clients/:clientId/roster/history', rosterRoles, async (req, res) => {

@@ -18,8 +18,9 @@ import {
 } from '../../schemas/roster';
 import { assertClientAccess } from './client-access';
 import { mappingToRemember, normaliseHeader, suggestMapping } from './column-mapping';
-import { toCsv } from '../../lib/csv';
-import { parseRosterFile } from './csv-decode';
+import type { DecodeWarning } from '../../db/roster-types';
+import { cleanCell, parseRosterFile } from './csv-decode';
+import { rowsToFixFile } from './rows-to-fix-csv';
 import { diffRoster } from './roster-diff';
 import { checkRows } from './roster-rows';
 import * as previewRepo from './roster-preview.repository';
@@ -37,7 +38,14 @@ export function mappingProblems(mapping: ColumnMapping): string[] {
 }
 
 function countKinds(rows: readonly PreviewRow[]): PreviewCounts {
-  const counts: PreviewCounts = { add: 0, update: 0, unchanged: 0, error: 0, missing: 0 };
+  const counts: PreviewCounts = {
+    add: 0,
+    update: 0,
+    conflict: 0,
+    unchanged: 0,
+    error: 0,
+    missing: 0,
+  };
   for (const row of rows) counts[row.kind] += 1;
   return counts;
 }
@@ -46,7 +54,7 @@ function countKinds(rows: readonly PreviewRow[]): PreviewCounts {
 async function computePreview(
   db: Db,
   clientId: string,
-  headers: string[],
+  file: { headers: string[]; encoding: string; warnings: readonly DecodeWarning[] },
   rawRows: string[][],
   mapping: ColumnMapping,
 ) {
@@ -58,7 +66,7 @@ async function computePreview(
     repo.loadRoster(db, clientId),
     repo.listOffices(db, clientId),
   ]);
-  const checked = checkRows(headers, rawRows, mapping);
+  const checked = checkRows(file.headers, rawRows, mapping, file.warnings);
   const mapped = new Set(mapping.filter((target) => target !== 'extra' && target !== 'ignore'));
   const diff = diffRoster(
     checked,
@@ -66,6 +74,7 @@ async function computePreview(
     offices.map((office) => office.name),
     mapped as Set<RosterField>,
     mapping.includes('extra'),
+    { legacyEncoding: file.encoding === 'windows-1252' },
   );
   return { rows: diff.rows, counts: countKinds(diff.rows), newOffices: diff.newOffices, version };
 }
@@ -87,10 +96,12 @@ export function createRosterService(deps: { db: Db }) {
       delimiter: draft.delimiter,
       rowCount: draft.rowCount,
       headers: draft.headers,
+      guessedColumns: draft.guessedColumns,
       sampleRows: draft.sampleRows,
       mapping: draft.mapping,
       mappingProblems: mappingProblems(draft.mapping),
       counts: draft.counts,
+      rowsWithWarnings: await previewRepo.countRowsWithWarnings(db, draft.id),
       newOffices: draft.newOffices,
       knownOffices: await repo.listOffices(db, clientId),
       expiresAt: draft.expiresAt.toISOString(),
@@ -108,19 +119,27 @@ export function createRosterService(deps: { db: Db }) {
     async upload(viewer: Viewer, clientId: string, fileName: string, bytes: Uint8Array) {
       await assertClientAccess(db, viewer, clientId);
       const parsed = parseRosterFile(bytes);
+      // The name comes from the browser; PostgreSQL refuses a NUL in it like in any cell.
+      const storedName = cleanCell(fileName).value.trim() || 'roster.csv';
       const saved = (await repo.savedMapping(db, clientId)) as Record<string, ColumnTarget>;
-      const mapping = suggestMapping(parsed.headers, saved);
-      const preview = await computePreview(db, clientId, parsed.headers, parsed.rows, mapping);
+      const mapping = suggestMapping(parsed.headers, saved, parsed.rows);
+      const byHeaderOnly = suggestMapping(parsed.headers, saved);
+      const guessedColumns = mapping.flatMap((target, index) =>
+        target === byHeaderOnly[index] ? [] : [index],
+      );
+      const preview = await computePreview(db, clientId, parsed, parsed.rows, mapping);
       const draft = await db.transaction().execute(async (trx) => {
-        await repo.deleteStaleDrafts(trx, clientId);
+        await repo.deleteStaleDrafts(trx, clientId, viewer.id);
         const record = {
           clientId,
           rowCount: parsed.rows.length,
           sampleRows: parsed.rows.slice(0, 3),
-          fileName,
+          fileName: storedName,
           encoding: parsed.encoding,
+          hadByteOrderMark: parsed.hadByteOrderMark,
           delimiter: parsed.delimiter,
           headers: parsed.headers,
+          guessedColumns,
           mapping,
           counts: preview.counts,
           newOffices: preview.newOffices,
@@ -130,6 +149,7 @@ export function createRosterService(deps: { db: Db }) {
         const id = await repo.insertDraft(trx, {
           ...record,
           rawRows: parsed.rows,
+          decodeWarnings: parsed.warnings,
           createdBy: viewer.id,
         });
         await previewRepo.replacePreviewRows(trx, id, preview.rows);
@@ -149,8 +169,17 @@ export function createRosterService(deps: { db: Db }) {
       if (mapping.length !== draft.headers.length) {
         throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
       }
-      const rawRows = await repo.loadRawRows(db, draftId);
-      const preview = await computePreview(db, clientId, draft.headers, rawRows, mapping);
+      const [rawRows, warnings] = await Promise.all([
+        repo.loadRawRows(db, draftId),
+        repo.loadDecodeWarnings(db, draftId),
+      ]);
+      const preview = await computePreview(
+        db,
+        clientId,
+        { headers: draft.headers, encoding: draft.encoding, warnings },
+        rawRows,
+        mapping,
+      );
       await db.transaction().execute(async (trx) => {
         await repo.updateDraftPreview(trx, draftId, {
           mapping,
@@ -174,29 +203,45 @@ export function createRosterService(deps: { db: Db }) {
       return previewRepo.previewPage(db, draftId, previewQuerySchema.parse(query));
     },
 
-    /** The rows in error as CSV: the file's own columns plus what to fix, ready to correct. */
-    async errorCsv(viewer: Viewer, clientId: string, draftId: string): Promise<string> {
+    /**
+     * The rows in error or in conflict as CSV: the file's own columns plus what to fix, in the
+     * file's own separator and encoding, ready to correct and upload again.
+     */
+    async errorCsv(viewer: Viewer, clientId: string, draftId: string) {
       await assertClientAccess(db, viewer, clientId);
       const draft = await draftOf(clientId, draftId);
-      const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error']);
+      const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error', 'conflict']);
       const rawRows = await repo.loadRawRows(db, draftId);
       const records = errors.map((row) => [
         ...(rawRows[(row.rowNumber ?? 2) - 2] ?? []),
         Object.values(row.errors).join(' '),
       ]);
-      return toCsv([[...draft.headers, 'What to fix'], ...records]);
+      return rowsToFixFile([[...draft.headers, 'What to fix'], ...records], draft);
     },
 
-    /** Applies exactly the previewed rows in one transaction; nothing is written if any fails. */
+    /**
+     * Applies exactly the previewed rows in one transaction; nothing is written if any fails.
+     * While one request saves a draft, another for it answers at once "being saved"; once
+     * saved, asking again answers with that import (`replayed`), not "not found".
+     */
     async commit(
       viewer: Viewer,
       clientId: string,
       draftId: string,
       request: CommitImportRequest,
-    ): Promise<ImportSummary> {
+    ): Promise<{ summary: ImportSummary; replayed: boolean }> {
       await assertClientAccess(db, viewer, clientId);
       const input = commitImportRequestSchema.parse(request);
-      const summary = await db.transaction().execute(async (trx) => {
+      const outcome = await db.transaction().execute(async (trx) => {
+        if (!(await repo.tryClaimDraftCommit(trx, draftId))) {
+          throw new AppError(
+            'import_being_saved',
+            409,
+            'This import is being saved. Its result appears here when it is done.',
+          );
+        }
+        const [saved] = await listImports(trx, clientId, { draftId });
+        if (saved) return { id: saved.id, replayed: true };
         await repo.lockClient(trx, clientId);
         const draft = await repo.findDraft(trx, clientId, draftId, { forUpdate: true });
         if (!draft) throw notFound('That import (it may have expired: upload the file again)');
@@ -216,6 +261,7 @@ export function createRosterService(deps: { db: Db }) {
           clientId,
           importedBy: viewer.kind === 'staff' ? viewer.id : null,
           fileName: draft.fileName,
+          draftId,
           ...result,
         });
         await repo.deleteDraft(trx, draftId);
@@ -226,11 +272,11 @@ export function createRosterService(deps: { db: Db }) {
           subjectId: clientId,
           details: { importId: id, ...result },
         });
-        return { id, ...result };
+        return { id, replayed: false };
       });
-      const [entry] = (await listImports(db, clientId)).filter((item) => item.id === summary.id);
-      if (!entry) throw notFound('That import');
-      return entry;
+      const [entry] = await listImports(db, clientId, { draftId });
+      if (!entry || entry.id !== outcome.id) throw notFound('That import');
+      return { summary: entry, replayed: outcome.replayed };
     },
 
     async history(viewer: Viewer, clientId: string) {

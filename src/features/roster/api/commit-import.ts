@@ -1,12 +1,39 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CommitImportRequest, ImportSummary } from '../../../../server/schemas/roster';
-import { api } from '../../../lib/api-client';
+import { api, ApiError } from '../../../lib/api-client';
 
-export const commitImport = (input: { clientId: string; draftId: string } & CommitImportRequest) =>
-  api<ImportSummary>(`/clients/${input.clientId}/roster/imports/${input.draftId}/commit`, {
-    method: 'POST',
-    body: { officeTimeZones: input.officeTimeZones, deactivateMissing: input.deactivateMissing },
-  });
+export type CommitImportInput = { clientId: string; draftId: string } & CommitImportRequest & {
+    /** Called when the server says another request is saving this import right now. */
+    onWaiting?: () => void;
+  };
+
+const waitBeforeAskingAgainMs = 1000;
+
+/**
+ * Commits the draft. While another request (a second click, another tab) is saving it, the
+ * server answers "being saved" at once; asking again after that answers with its result.
+ */
+export async function commitImport(input: CommitImportInput): Promise<ImportSummary> {
+  for (;;) {
+    try {
+      return await api<ImportSummary>(
+        `/clients/${input.clientId}/roster/imports/${input.draftId}/commit`,
+        {
+          method: 'POST',
+          body: {
+            officeTimeZones: input.officeTimeZones,
+            deactivateMissing: input.deactivateMissing,
+            rekeyConflicts: input.rekeyConflicts,
+          },
+        },
+      );
+    } catch (error) {
+      if (!(error instanceof ApiError) || error.code !== 'import_being_saved') throw error;
+      input.onWaiting?.();
+      await new Promise((resolve) => setTimeout(resolve, waitBeforeAskingAgainMs));
+    }
+  }
+}
 
 export function useCommitImport() {
   const queryClient = useQueryClient();

@@ -84,6 +84,10 @@ export function MappingStep({
                 .filter(Boolean)
                 .slice(0, 2)
                 .join(' · ') || '(empty)'
+            }${
+              draft.guessedColumns.includes(index) && mapping[index] === draft.mapping[index]
+                ? ' — chosen from the values, as the header names no field: check it'
+                : ''
             }`}
           />
         ))}

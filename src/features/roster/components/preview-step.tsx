@@ -24,19 +24,30 @@ export function PreviewStep({
   onBack: () => void;
   onCommitted: (summary: ImportSummary) => void;
 }) {
-  const [kind, setKind] = useState<PreviewKind | 'all'>(draft.counts.error > 0 ? 'error' : 'all');
+  // Open on what needs a decision first: rows in error, then conflicts.
+  const [kind, setKind] = useState<PreviewKind | 'all' | 'warned'>(
+    draft.counts.error > 0 ? 'error' : draft.counts.conflict > 0 ? 'conflict' : 'all',
+  );
   const [zones, setZones] = useState<Record<string, string>>(() =>
     Object.fromEntries(draft.newOffices.map((office) => [office, guessTimeZone(office)])),
   );
   const [zoneErrors, setZoneErrors] = useState<Record<string, string | undefined>>({});
   const { counts } = draft;
-  // A file that leaves out most of the roster is more likely a partial export than a list of
-  // leavers: then nobody is deactivated unless the coordinator asks for it.
-  const rosterSize = counts.update + counts.unchanged + counts.missing;
+  // Nobody is deactivated unless the coordinator asks: an export of one office would otherwise
+  // mark everyone else inactive.
+  const rosterSize = counts.update + counts.conflict + counts.unchanged + counts.missing;
   const mostlyMissing = counts.missing > rosterSize / 2;
-  const [deactivateMissing, setDeactivateMissing] = useState(!mostlyMissing);
+  const [deactivateMissing, setDeactivateMissing] = useState(false);
+  const [rekeyConflicts, setRekeyConflicts] = useState(false);
+  const [waiting, setWaiting] = useState(false);
   const commit = useCommitImport();
-  const changes = counts.add + counts.update + (deactivateMissing ? counts.missing : 0);
+  const changes =
+    counts.add +
+    counts.update +
+    (rekeyConflicts ? counts.conflict : 0) +
+    (deactivateMissing ? counts.missing : 0);
+  // The "All rows" button counts what its table pages: every row of every kind.
+  const allRows = previewKinds.reduce((sum, item) => sum + counts[item], 0);
 
   const confirm = () => {
     const missing = draft.newOffices.filter((office) => !zones[office]);
@@ -49,8 +60,16 @@ export function PreviewStep({
       return;
     }
     setZoneErrors({});
+    setWaiting(false);
     commit.mutate(
-      { clientId, draftId: draft.id, officeTimeZones: zones, deactivateMissing },
+      {
+        clientId,
+        draftId: draft.id,
+        officeTimeZones: zones,
+        deactivateMissing,
+        rekeyConflicts,
+        onWaiting: () => setWaiting(true),
+      },
       {
         onSuccess: onCommitted,
         onError: (error) => {
@@ -70,7 +89,7 @@ export function PreviewStep({
     <div className="flex flex-col gap-5">
       <div role="group" aria-label="Show rows" className="flex flex-wrap gap-2">
         {(['all', ...previewKinds] as const).map((item) => {
-          const count = item === 'all' ? draft.rowCount : counts[item];
+          const count = item === 'all' ? allRows : counts[item];
           return (
             <Button
               key={item}
@@ -96,6 +115,28 @@ export function PreviewStep({
           , correct them and upload again, or go on without them.
         </Notice>
       ) : null}
+      {draft.rowsWithWarnings > 0 ? (
+        <Notice tone="caution">
+          {draft.rowsWithWarnings === 1
+            ? '1 row comes with a warning'
+            : `${draft.rowsWithWarnings.toLocaleString()} rows come with a warning`}{' '}
+          (a stored name kept, or characters removed).{' '}
+          <button
+            type="button"
+            className="min-h-touch font-medium underline"
+            onClick={() => setKind('warned')}
+          >
+            Show them
+          </button>
+        </Notice>
+      ) : null}
+      {counts.conflict > 0 ? (
+        <Notice tone="caution">
+          {counts.conflict === 1
+            ? '1 row has the e-mail of someone on the roster but a different employee id. It is left out unless you confirm below that they are the same person.'
+            : `${counts.conflict.toLocaleString()} rows have the e-mail of someone on the roster but a different employee id. They are left out unless you confirm below that they are the same people.`}
+        </Notice>
+      ) : null}
       <PreviewTable key={kind} clientId={clientId} draftId={draft.id} kind={kind} />
       <OfficeTimeZones
         offices={draft.newOffices}
@@ -103,6 +144,19 @@ export function PreviewStep({
         onChange={setZones}
         errors={zoneErrors}
       />
+      {counts.conflict > 0 ? (
+        <label className="flex min-h-touch items-center gap-3">
+          <input
+            type="checkbox"
+            className="size-5"
+            checked={rekeyConflicts}
+            onChange={(event) => setRekeyConflicts(event.target.checked)}
+          />
+          {counts.conflict === 1
+            ? 'The row with the same e-mail and another id is the same person: change their employee id to the file’s'
+            : `The ${counts.conflict.toLocaleString()} rows with the same e-mail and another id are the same people: change their employee ids to the file’s`}
+        </label>
+      ) : null}
       {counts.missing > 0 ? (
         <label className="flex min-h-touch items-center gap-3">
           <input
@@ -115,11 +169,26 @@ export function PreviewStep({
           (they stay on record with their bookings)
         </label>
       ) : null}
-      {mostlyMissing && counts.missing > 0 ? (
-        <Notice tone="caution">
-          This file leaves out {counts.missing.toLocaleString()} of the{' '}
-          {rosterSize.toLocaleString()} people on the roster. If it is only part of the staff list,
-          leave the box above unticked.
+      {deactivateMissing && counts.missing > 0 ? (
+        <div className="flex flex-col gap-3">
+          {mostlyMissing ? (
+            <Notice tone="caution">
+              This file leaves out {counts.missing.toLocaleString()} of the{' '}
+              {rosterSize.toLocaleString()} people on the roster. If it is only part of the staff
+              list, untick the box above.
+            </Notice>
+          ) : null}
+          <PreviewTable
+            clientId={clientId}
+            draftId={draft.id}
+            kind="missing"
+            caption="People to mark inactive"
+          />
+        </div>
+      ) : null}
+      {commit.isPending && waiting ? (
+        <Notice tone="info">
+          This import is being saved. Its result appears here when it is done.
         </Notice>
       ) : null}
       {commit.isError ? <Notice tone="danger">{commit.error.message}</Notice> : null}

@@ -14,6 +14,7 @@ import { usePreviewRows } from '../api/list-preview-rows';
 export const kindLabels: Record<PreviewKind, string> = {
   add: 'To add',
   update: 'To update',
+  conflict: 'Same e-mail, other id',
   unchanged: 'Unchanged',
   error: 'In error',
   missing: 'Not in the file',
@@ -39,35 +40,65 @@ const show = (value: unknown) =>
           : 'inactive'
         : String(value);
 
+function Messages({
+  messages,
+  className,
+}: {
+  messages: Record<string, string>;
+  className: string;
+}) {
+  const entries = Object.entries(messages);
+  if (entries.length === 0) return null;
+  return (
+    <ul className={className}>
+      {entries.map(([field, message]) => (
+        <li key={field}>
+          <span className="font-medium">{labelOf(field)}</span>: {message}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function Changes({ row }: { row: PreviewRow }) {
+  if (!row.before || row.changedFields.length === 0) return null;
+  const before = row.before as Record<string, unknown>;
+  const after = row.values as Record<string, unknown>;
+  return (
+    <ul>
+      {row.changedFields.map((field) => (
+        <li key={field}>
+          <span className="font-medium">{labelOf(field)}</span>:{' '}
+          <del className="text-ink-muted">{show(before[field])}</del> →{' '}
+          <ins className="no-underline">{show(after[field])}</ins>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
 function Details({ row }: { row: PreviewRow }) {
-  if (row.kind === 'error') {
+  const warnings = <Messages messages={row.warnings} className="text-caution-600" />;
+  if (row.kind === 'error' || row.kind === 'conflict') {
     return (
-      <ul className="text-danger-700">
-        {Object.entries(row.errors).map(([field, message]) => (
-          <li key={field}>
-            <span className="font-medium">{labelOf(field)}</span>: {message}
-          </li>
-        ))}
-      </ul>
+      <>
+        <Messages messages={row.errors} className="text-danger-700" />
+        {row.kind === 'conflict' ? <Changes row={row} /> : null}
+        {warnings}
+      </>
     );
   }
-  if (row.kind === 'missing') return <span>Will be marked inactive (kept, not deleted)</span>;
-  if (row.kind === 'update' && row.before) {
-    const before = row.before as Record<string, unknown>;
-    const after = row.values as Record<string, unknown>;
-    return (
-      <ul>
-        {row.changedFields.map((field) => (
-          <li key={field}>
-            <span className="font-medium">{labelOf(field)}</span>:{' '}
-            <del className="text-ink-muted">{show(before[field])}</del> →{' '}
-            <ins className="no-underline">{show(after[field])}</ins>
-          </li>
-        ))}
-      </ul>
-    );
-  }
-  return <span className="text-ink-muted">{row.values.office ?? ''}</span>;
+  if (row.kind === 'missing') return <span>Will be marked inactive if you choose so below</span>;
+  return (
+    <>
+      {row.kind === 'update' ? (
+        <Changes row={row} />
+      ) : (
+        <span className="text-ink-muted">{row.values.office ?? ''}</span>
+      )}
+      {warnings}
+    </>
+  );
 }
 
 const columns: ColumnDef<PreviewRow, unknown>[] = [
@@ -89,15 +120,20 @@ const columns: ColumnDef<PreviewRow, unknown>[] = [
   },
 ];
 
+const captionOf = (kind: PreviewKind | 'all' | 'warned') =>
+  kind === 'all' ? 'all rows' : kind === 'warned' ? 'rows with a warning' : kindLabels[kind];
+
 /** The previewed rows of one kind, paged, sorted and searched on the server. */
 export function PreviewTable({
   clientId,
   draftId,
   kind,
+  caption,
 }: {
   clientId: string;
   draftId: string;
-  kind: PreviewKind | 'all';
+  kind: PreviewKind | 'all' | 'warned';
+  caption?: string;
 }) {
   const [page, setPage] = useState({ page: 1, pageSize: 25 });
   const [sorting, setSorting] = useState<SortingState>([]);
@@ -116,7 +152,7 @@ export function PreviewTable({
     <div className="flex flex-col gap-3">
       <div className="max-w-sm">
         <TextField
-          label="Search the preview"
+          label={caption ? `Search: ${caption}` : 'Search the preview'}
           type="search"
           value={search}
           onChange={(value) => {
@@ -129,7 +165,7 @@ export function PreviewTable({
         <EmptyState title="Nothing here">No rows of this kind in the file.</EmptyState>
       ) : (
         <PagedTable
-          caption={`Preview: ${kind === 'all' ? 'all rows' : kindLabels[kind]}`}
+          caption={caption ?? `Preview: ${captionOf(kind)}`}
           columns={columns}
           rows={rows.data?.rows ?? []}
           total={rows.data?.total ?? 0}

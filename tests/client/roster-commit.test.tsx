@@ -1,0 +1,91 @@
+import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { ImportSummary, RosterDraft } from '../../server/schemas/roster';
+import { PreviewStep } from '../../src/features/roster/components/preview-step';
+import { renderWithProviders } from './render';
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+const draft: RosterDraft = {
+  id: '00000000-0000-4000-8000-000000000001',
+  fileName: 'staff.csv',
+  encoding: 'utf-8',
+  delimiter: ',',
+  rowCount: 2,
+  headers: ['First name', 'Last name', 'E-mail'],
+  guessedColumns: [],
+  sampleRows: [],
+  mapping: ['givenName', 'familyName', 'email'],
+  mappingProblems: [],
+  mappingRemembered: true,
+  counts: { add: 2, update: 0, conflict: 0, unchanged: 0, error: 0, missing: 1 },
+  rowsWithWarnings: 0,
+  newOffices: [],
+  knownOffices: [],
+  expiresAt: '2026-12-03T10:00:00.000Z',
+};
+
+const summary: ImportSummary = {
+  id: '00000000-0000-4000-8000-000000000002',
+  fileName: 'staff.csv',
+  importedAt: '2026-12-02T10:00:00.000Z',
+  importedBy: 'Casey Ward',
+  added: 2,
+  updated: 0,
+  unchanged: 0,
+  deactivated: 0,
+  skipped: 0,
+  officesCreated: 0,
+};
+
+const json = (status: number, body: unknown) =>
+  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+
+describe('saving a roster import (issue 14, item 2)', () => {
+  it('says the import is being saved while another request saves it, then shows its result', async () => {
+    const commits: unknown[] = [];
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async (url: string, init?: RequestInit) => {
+        if (!url.endsWith('/commit'))
+          return json(200, { rows: [], total: 0, page: 1, pageSize: 25 });
+        commits.push(JSON.parse(String(init?.body)));
+        return commits.length === 1
+          ? json(409, {
+              error: {
+                code: 'import_being_saved',
+                message: 'This import is being saved. Its result appears here when it is done.',
+              },
+            })
+          : json(200, summary);
+      }),
+    );
+    const onCommitted = vi.fn();
+    renderWithProviders(
+      <PreviewStep
+        clientId="c1"
+        draft={draft}
+        onBack={() => undefined}
+        onCommitted={onCommitted}
+      />,
+    );
+    fireEvent.click(screen.getByRole('button', { name: 'Save 2 changes to the roster' }));
+    expect(
+      await screen.findByText(
+        'This import is being saved. Its result appears here when it is done.',
+      ),
+    ).toBeTruthy();
+    await waitFor(() => expect(onCommitted).toHaveBeenCalled(), { timeout: 4000 });
+    expect(onCommitted.mock.calls[0]?.[0]).toEqual(summary);
+    // Nobody not in the file is deactivated unless asked (issue 13, item 10).
+    expect(commits[0]).toEqual({
+      officeTimeZones: {},
+      deactivateMissing: false,
+      rekeyConflicts: false,
+    });
+    expect(commits).toHaveLength(2);
+  });
+});

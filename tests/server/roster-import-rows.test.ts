@@ -1,0 +1,174 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { insertClient, insertStaff } from '../factories/accounts';
+import { uploadRoster } from '../factories/roster';
+import { startTestApp, type TestApp } from '../setup/test-app';
+import { binaryBody, signedInAgent } from './helpers';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(() => t.close());
+
+async function coordinatorOfNewClient() {
+  const client = await insertClient(t.db);
+  const coordinator = await insertStaff(t.db, { role: 'coordinator', clientId: client.id });
+  return { client, agent: await signedInAgent(t, coordinator.email) };
+}
+
+type Agent = Awaited<ReturnType<typeof coordinatorOfNewClient>>['agent'];
+
+async function importFile(agent: Agent, clientId: string, file: string | Uint8Array, body = {}) {
+  const draft = await uploadRoster(agent, clientId, file).expect(201);
+  await agent
+    .post(`/api/clients/${clientId}/roster/imports/${draft.body.id}/commit`)
+    .send({ officeTimeZones: {}, ...body })
+    .expect(201);
+}
+
+const people = (clientId: string) =>
+  t.db
+    .selectFrom('people')
+    .select(['givenName', 'email', 'employeeId', 'active'])
+    .where('clientId', '=', clientId)
+    .orderBy('email')
+    .execute();
+
+const header = 'First name,Last name,E-mail,Employee id';
+
+describe('an e-mail match with another employee id (issue 13, item 9)', () => {
+  it('is a conflict counted on its own, left out unless confirmed, and never re-activates', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    await importFile(
+      agent,
+      client.id,
+      `${header}\r\nAda,Pike,ada@hp.example,A-1\r\nBo,Lund,bo@hp.example,A-2\r\n`,
+    );
+    await t.db
+      .updateTable('people')
+      .set({ active: false })
+      .where('email', '=', 'bo@hp.example')
+      .execute();
+    const file = `${header}\r\nAda,Pike,ada@hp.example,B-1\r\nBo,Lund,bo@hp.example,B-2\r\n`;
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    expect(draft.body.counts).toMatchObject({ conflict: 2, update: 0, missing: 0 });
+    const rows = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=conflict`)
+      .expect(200);
+    expect(rows.body.rows[0].errors.employeeId).toMatch(
+      /belongs to Ada Pike, whose employee id is A-1; this row says B-1/,
+    );
+    // Conflicts are rows to fix too: they come with the file's rows in error.
+    const toFix = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/errors.csv`)
+      .expect(200);
+    expect(toFix.text.split('\r\n')[1]).toMatch(
+      /^Ada,Pike,ada@hp.example,B-1,"This e-mail belongs to Ada Pike/,
+    );
+    await agent
+      .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
+      .send({ officeTimeZones: {} })
+      .expect(201);
+    expect(await people(client.id)).toEqual([
+      { givenName: 'Ada', email: 'ada@hp.example', employeeId: 'A-1', active: true },
+      { givenName: 'Bo', email: 'bo@hp.example', employeeId: 'A-2', active: false },
+    ]);
+    const history = await agent.get(`/api/clients/${client.id}/roster/history`).expect(200);
+    expect(history.body.imports[0]).toMatchObject({ updated: 0, skipped: 2 });
+  });
+
+  it('confirmed as the same people, the ids change', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    await importFile(agent, client.id, `${header}\r\nAda,Pike,ada@hp.example,A-1\r\n`);
+    await importFile(agent, client.id, `${header}\r\nAda,Pike,ada@hp.example,B-1\r\n`, {
+      rekeyConflicts: true,
+    });
+    expect((await people(client.id))[0]?.employeeId).toBe('B-1');
+  });
+});
+
+describe('people not in the file (issue 13, item 10)', () => {
+  it('stay active unless the commit asks to mark them inactive', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    await importFile(
+      agent,
+      client.id,
+      `${header}\r\nAda,Pike,ada@hp.example,A-1\r\nBo,Lund,bo@hp.example,A-2\r\n`,
+    );
+    await importFile(agent, client.id, `${header}\r\nAda,Pike,ada@hp.example,A-1\r\n`);
+    expect((await people(client.id)).map((person) => person.active)).toEqual([true, true]);
+    await importFile(agent, client.id, `${header}\r\nAda,Pike,ada@hp.example,A-1\r\n`, {
+      deactivateMissing: true,
+    });
+    expect((await people(client.id)).map((person) => person.active)).toEqual([true, false]);
+  });
+});
+
+describe('the rows-to-fix file (issue 13, item 12)', () => {
+  const download = (agent: Agent, clientId: string, draftId: string) =>
+    agent
+      .get(`/api/clients/${clientId}/roster/imports/${draftId}/errors.csv`)
+      .buffer(true)
+      .parse(binaryBody)
+      .expect(200);
+
+  it('comes back semicolon-separated in Windows-1252 after such an upload', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    // Windows-1252 bytes (WHATWG index: é = 0xE9); a value holding ";" must be quoted.
+    const text = 'Prénom;Nom;E-mail;Service\r\nRené;Dubois;;Design; Lyon\r\n'.replace(
+      'Design; Lyon',
+      '"Design; Lyon"',
+    );
+    const bytes = Uint8Array.from([...text], (char) => char.charCodeAt(0));
+    const draft = await uploadRoster(agent, client.id, bytes).expect(201);
+    expect(draft.body).toMatchObject({ encoding: 'windows-1252', delimiter: ';' });
+    const file = await download(agent, client.id, draft.body.id);
+    expect(file.headers['content-type']).toBe('text/csv; charset=windows-1252');
+    const body = file.body as Buffer;
+    expect(body.subarray(0, 3).equals(Buffer.from([0xef, 0xbb, 0xbf]))).toBe(false);
+    expect(body.includes(0xe9)).toBe(true);
+    expect(new TextDecoder('latin1').decode(body)).toBe(
+      'Prénom;Nom;E-mail;Service;What to fix\r\nRené;Dubois;;"Design; Lyon";The e-mail is missing.\r\n',
+    );
+  });
+
+  it('keeps UTF-16 with its byte order mark, and tab separators', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const text = 'First name\tLast name\tE-mail\r\nZoë\tMüller\tnot-an-address\r\n';
+    const bytes = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(text, 'utf16le')]);
+    const draft = await uploadRoster(agent, client.id, bytes).expect(201);
+    const file = await download(agent, client.id, draft.body.id);
+    const body = file.body as Buffer;
+    expect([...body.subarray(0, 2)]).toEqual([0xff, 0xfe]);
+    expect(new TextDecoder('utf-16le').decode(body.subarray(2))).toBe(
+      'First name\tLast name\tE-mail\tWhat to fix\r\nZoë\tMüller\tnot-an-address\tEnter a valid e-mail address, like name@example.com.\r\n',
+    );
+  });
+});
+
+describe('a Windows-1252 file and a stored name it cannot hold (issue 13, item 14)', () => {
+  it('warns and keeps Łukasz instead of writing ?ukasz', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    await importFile(agent, client.id, `${header}\r\nŁukasz,Wróbel,lw@hp.example,A-1\r\n`);
+    // What a spreadsheet program writes for Ł in Windows-1252 (from memory): "?"; ó = 0xF3.
+    const legacy = `${header}\r\n?ukasz,Wróbel,lw@hp.example,A-1\r\n`;
+    const bytes = Uint8Array.from([...legacy], (char) => char.charCodeAt(0));
+    const draft = await uploadRoster(agent, client.id, bytes).expect(201);
+    expect(draft.body.encoding).toBe('windows-1252');
+    expect(draft.body.counts).toMatchObject({ unchanged: 1, update: 0 });
+    const rows = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=unchanged`)
+      .expect(200);
+    expect(rows.body.rows[0].warnings.givenName).toMatch(/Kept “Łukasz”/);
+    expect(draft.body.rowsWithWarnings).toBe(1);
+    const warned = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=warned`)
+      .expect(200);
+    expect(warned.body.total).toBe(1);
+    await agent
+      .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
+      .send({ officeTimeZones: {} })
+      .expect(201);
+    expect((await people(client.id))[0]?.givenName).toBe('Łukasz');
+  });
+});

@@ -1,0 +1,90 @@
+import { describe, expect, it } from 'vitest';
+import {
+  cleanCell,
+  maxCellCharacters,
+  parseRosterFile,
+  parseRosterText,
+} from '../../server/modules/roster/csv-decode';
+import {
+  decodeWindows1252,
+  encodeWindows1252,
+  isWindows1252Copy,
+} from '../../server/modules/roster/windows-1252';
+
+const utf8 = (text: string) => new TextEncoder().encode(text);
+
+describe('control characters in cells (issue 14, item 1)', () => {
+  it('removes NUL, other C0 controls, DEL and C1, keeping tab and line breaks', () => {
+    expect(cleanCell('A\u0000d\u0007a\u007f\u0085')).toEqual({ value: 'Ada', removed: 4 });
+    expect(cleanCell('two\r\nlines\tand a tab')).toEqual({
+      value: 'two\r\nlines\tand a tab',
+      removed: 0,
+    });
+  });
+
+  it('a NUL in a cell is stripped with a warning instead of refusing the file as binary', () => {
+    const parsed = parseRosterFile(
+      utf8('First name,Last name,E-mail,Note\r\nA\u0000da,Pike,ada@x.example,ok\u0001\u0002\r\n'),
+    );
+    expect(parsed.rows).toEqual([['Ada', 'Pike', 'ada@x.example', 'ok']]);
+    expect(parsed.warnings).toEqual([
+      { row: 0, column: 0, removed: 1 },
+      { row: 0, column: 3, removed: 2 },
+    ]);
+  });
+
+  it('a header cell loses its control characters too', () => {
+    expect(parseRosterText('E-mail\u0000,Name\r\na@x.example,A\r\n').headers).toEqual([
+      'E-mail',
+      'Name',
+    ]);
+  });
+});
+
+describe('shape limits at decode (issue 14, item 11)', () => {
+  it('refuses a header of more than 200 columns, saying how many there are', () => {
+    const header = Array.from({ length: 201 }, (_, index) => `C${index}`).join(',');
+    expect(() => parseRosterText(`${header}\r\n1\r\n`)).toThrow(
+      'The header row has 201 columns; a staff list may have at most 200. Remove the columns you do not need and upload again.',
+    );
+    const widest = Array.from({ length: 200 }, (_, index) => `C${index}`).join(',');
+    expect(parseRosterText(`${widest}\r\n1\r\n`).headers).toHaveLength(200);
+  });
+
+  it('refuses a cell longer than 2,000 characters, naming its row and column', () => {
+    const long = 'x'.repeat(maxCellCharacters + 1);
+    expect(() => parseRosterText(`Name,Note\r\nAda,ok\r\nBo,${long}\r\n`)).toThrow(
+      'Row 3, column "Note" holds 2,001 characters; a value may hold at most 2,000. Shorten it and upload again.',
+    );
+    expect(parseRosterText(`Name,Note\r\nAda,${'x'.repeat(2000)}\r\n`).rows[0]?.[1]).toHaveLength(
+      2000,
+    );
+  });
+
+  it('cuts cells beyond the header width as it reads, so a wide data row costs nothing', () => {
+    const wide = Array.from({ length: 100_000 }, () => 'z').join(',');
+    expect(parseRosterText(`A,B\r\n${wide}\r\n`).rows).toEqual([['z', 'z']]);
+  });
+});
+
+describe('Windows-1252 writing (WHATWG Encoding, index-windows-1252)', () => {
+  it('encodes the bytes the index names and reads back what it wrote', () => {
+    // index-windows-1252: 0x80 € (U+20AC), 0x92 ’ (U+2019), 0x9F Ÿ (U+0178); 0xE9 é.
+    expect([...encodeWindows1252('€’Ÿé')]).toEqual([0x80, 0x92, 0x9f, 0xe9]);
+    const every = Array.from({ length: 256 }, (_, byte) => byte);
+    expect([...encodeWindows1252(decodeWindows1252(new Uint8Array(every)))]).toEqual(every);
+  });
+
+  it('writes a character the code page lacks as "?"', () => {
+    expect(new TextDecoder('ascii').decode(encodeWindows1252('Łukasz'))).toBe('?ukasz');
+  });
+
+  it('tells a lossy copy of a stored name from a real change', () => {
+    expect(isWindows1252Copy('Łukasz', '?ukasz')).toBe(true);
+    expect(isWindows1252Copy('Łukasz', 'Lukasz')).toBe(true);
+    expect(isWindows1252Copy('Dvořák', 'Dvorák')).toBe(true);
+    expect(isWindows1252Copy('Łukasz', 'Luke')).toBe(false);
+    // The stored name fits the code page: a different spelling is a real change.
+    expect(isWindows1252Copy('Zoë', 'Zoe')).toBe(false);
+  });
+});
