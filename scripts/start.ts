@@ -24,6 +24,7 @@ import {
   firstDemoSitterEmail,
   loadDemoScenario,
 } from './lib/demo-scenario';
+import { loadDemoPhotographedDay } from './lib/demo-photographed-day';
 import {
   chooseDataFolder,
   ensureDatabase,
@@ -102,7 +103,8 @@ async function main() {
   const db = createDatabase(databaseUrl);
   cleanups.push(() => db.destroy());
 
-  if (raw.LOAD_DEMO && (await loadDemoScenario(db))) {
+  const demoLoaded = raw.LOAD_DEMO && (await loadDemoScenario(db));
+  if (demoLoaded) {
     say('Loaded the demo scenario (Halvorsen & Pike Engineering, 240 people in three offices).');
   }
 
@@ -133,6 +135,18 @@ async function main() {
       ? `Frames are stored in ${config.storage.root}.`
       : `Frames are stored in the S3 bucket ${config.storage.bucket}.`,
   );
+  if (demoLoaded) {
+    const photographed = await loadDemoPhotographedDay({
+      db,
+      storage,
+      limits: config.uploads,
+      now: new Date(),
+    });
+    if (photographed)
+      say(
+        `Added yesterday's photographed day for Aldermoor Housing Trust (${photographed.frames} frames, read and matched in the background).`,
+      );
+  }
 
   const { app } = createApp({
     db,

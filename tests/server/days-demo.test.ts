@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { loadDemoPhotographedDay } from '../../scripts/lib/demo-photographed-day';
 import { DEMO_PASSWORD, loadDemoScenario } from '../../scripts/lib/demo-scenario';
+import { runQueuedJobs } from './booking-jobs';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import request from 'supertest';
 
@@ -28,5 +30,41 @@ describe('demo shoot days', () => {
       'Europe/Lisbon',
       'Europe/London',
     ]);
+  });
+
+  it("yesterday's photographed day: its card is read and every frame after a slate matched to its sitter", async () => {
+    const loaded = await loadDemoPhotographedDay({
+      db: t.db,
+      storage: t.storage,
+      limits: t.config.uploads,
+      now: t.clock.now(),
+    });
+    expect(loaded).not.toBeNull();
+    await runQueuedJobs(t);
+    const tomas = request.agent(t.app);
+    await tomas
+      .post('/api/session')
+      .send({ email: 'tomas@northlight.example', password: DEMO_PASSWORD })
+      .expect(201);
+    const days = (await tomas.get('/api/days').expect(200)).body.days;
+    expect(days.map((day: { officeName: string }) => day.officeName)).toContain('York');
+    const matches = await t.db
+      .selectFrom('frameMatches')
+      .select(['personId', 'reason'])
+      .where('dayId', '=', loaded!.dayId)
+      .execute();
+    expect(matches).toHaveLength(loaded!.frames);
+    const perPerson = new Map<string, number>();
+    for (const match of matches)
+      if (match.personId) perPerson.set(match.personId, (perPerson.get(match.personId) ?? 0) + 1);
+    const aldermoor = await t.db
+      .selectFrom('people')
+      .innerJoin('clients', 'clients.id', 'people.clientId')
+      .select('people.id')
+      .where('clients.slug', '=', 'aldermoor-housing-trust')
+      .execute();
+    // Six sitters, each with a slate and four frames (the generated card's plan).
+    expect([...perPerson.keys()].sort()).toEqual(aldermoor.map((person) => person.id).sort());
+    for (const count of perPerson.values()) expect(count).toBe(5);
   });
 });
