@@ -10,6 +10,7 @@ import type { Notifications } from './adapters/notifications';
 import type { ObjectStorage } from './adapters/storage/storage';
 import type { AppConfig } from './config';
 import type { Db } from './db/database';
+import { refuseControlCharacters } from './lib/control-characters';
 import { refuseCrossSiteChanges } from './lib/cross-site';
 import { AppError } from './lib/errors';
 import { errorHandler, notFoundHandler } from './lib/error-handler';
@@ -174,6 +175,7 @@ export function createApp(deps: AppDeps) {
   api.use(refuseCrossSiteChanges);
   api.use(express.json({ limit: '1mb' }));
   api.use(cookieParser());
+  api.use(refuseControlCharacters);
   api.use(requireJsonForMutations);
   api.use(loadViewer((token) => auth.resolveViewer(token)));
   api.use((_req, res, next) => {
