@@ -15,6 +15,8 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'POST /api/session': 'public',
   'GET /api/session': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
   'DELETE /api/session': 'public',
+  'GET /api/sessions': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
+  'DELETE /api/sessions': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
   'POST /api/sign-in-links': 'public',
   'POST /api/sign-in-links/redeem': 'public',
   'POST /api/password-resets': 'public',

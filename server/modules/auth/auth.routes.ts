@@ -14,6 +14,8 @@ import {
 } from '../../schemas/auth';
 import type { AuthService } from './auth.service';
 
+const everyone = ['studio_admin', 'photographer', 'coordinator', 'sitter'] as const;
+
 const LINK_SENT =
   'If that address belongs to someone on a roster, a sign-in link is on its way. Check your inbox.';
 const RESET_SENT =
@@ -43,19 +45,23 @@ export function registerAuthRoutes(
     ...signInLimits,
   );
 
-  routes.add(
-    'get',
-    '/session',
-    ['studio_admin', 'photographer', 'coordinator', 'sitter'],
-    async (req, res) => {
-      res.json(await auth.describe(viewerOf(req)));
-    },
-  );
+  routes.add('get', '/session', everyone, async (req, res) => {
+    res.json(await auth.describe(viewerOf(req)));
+  });
 
   routes.add('delete', '/session', 'public', async (req, res) => {
     if (req.viewer) await auth.signOut(req.viewer.sessionId);
     clearSessionCookie(req, res);
     res.status(204).end();
+  });
+
+  routes.add('get', '/sessions', everyone, async (req, res) => {
+    res.json(await auth.sessionsOf(viewerOf(req)));
+  });
+
+  // "Sign out everywhere": every other session of the viewer ends; this one stays.
+  routes.add('delete', '/sessions', everyone, async (req, res) => {
+    res.json(await auth.signOutElsewhere(viewerOf(req)));
   });
 
   routes.add(
