@@ -185,7 +185,7 @@ export function createApp(deps: AppDeps) {
 
   const routes = new RouteTable(api);
   registerHealthRoutes(routes, db, mailbox ? 'local catcher' : 'smtp');
-  registerAuthRoutes(routes, auth, db, config);
+  registerAuthRoutes(routes, auth, db, config, clock);
   registerUsersRoutes(routes, users);
   registerClientsRoutes(routes, clients);
   registerSittersRoutes(routes, db);

@@ -56,7 +56,10 @@ export const configSchema = z.object({
   PASSWORD_RESET_TTL_MINUTES: z.coerce.number().positive().default(60),
   RATE_LIMIT_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
-  RATE_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
+  /** Wrong passwords (or link requests) one address may make for one e-mail before waiting. */
+  SIGN_IN_FREE_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(5),
+  /** The longest wait the back-off asks of one address and e-mail pair. */
+  SIGN_IN_MAX_WAIT_MINUTES: z.coerce.number().positive().max(1440).default(15),
   TRUST_PROXY: trustProxyFromEnv.default(false),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LIKENESS_DATA_DIR: z.string().min(1).default('.data'),
@@ -93,7 +96,9 @@ export interface AppConfig {
   signInLinkTtlMs: number;
   setPasswordLinkTtlMs: number;
   passwordResetTtlMs: number;
-  rateLimit: { windowMs: number; perAddress: number; perAccount: number };
+  rateLimit: { windowMs: number; perAddress: number };
+  /** The growing wait per address and e-mail pair (server/lib/sign-in-backoff.ts). */
+  signInBackoff: { freeAttempts: number; firstDelayMs: number; maxDelayMs: number };
   storage: StorageSettings;
   /** Files still arriving live in `folder` (tus); no file over maxBytes or maxPixels is kept. */
   uploads: { folder: string; maxBytes: number; maxPixels: number };
@@ -137,7 +142,11 @@ export function toAppConfig(raw: RawConfig): AppConfig {
     rateLimit: {
       windowMs: raw.RATE_LIMIT_WINDOW_MINUTES * MINUTE,
       perAddress: raw.RATE_LIMIT_PER_ADDRESS,
-      perAccount: raw.RATE_LIMIT_PER_ACCOUNT,
+    },
+    signInBackoff: {
+      freeAttempts: raw.SIGN_IN_FREE_ATTEMPTS,
+      firstDelayMs: 2000,
+      maxDelayMs: raw.SIGN_IN_MAX_WAIT_MINUTES * MINUTE,
     },
     storage: toStorageSettings(raw),
     uploads: {
