@@ -10,6 +10,8 @@ import type { Notifications } from './adapters/notifications';
 import type { ObjectStorage } from './adapters/storage/storage';
 import type { AppConfig } from './config';
 import type { Db } from './db/database';
+import { refuseControlCharacters } from './lib/control-characters';
+import { refuseCrossSiteChanges } from './lib/cross-site';
 import { AppError } from './lib/errors';
 import { errorHandler, notFoundHandler } from './lib/error-handler';
 import type { Logger } from './lib/logger';
@@ -93,8 +95,12 @@ const requireJsonForMutations: RequestHandler = (req, _res, next) => {
 export function createApp(deps: AppDeps) {
   const { db, config, mailer, mailbox, clock, logger } = deps;
   const app = express();
-  // One reverse proxy in front (its X-Forwarded-* headers are believed), or none.
-  app.set('trust proxy', config.trustProxy ? 1 : false);
+  // One reverse proxy in front, the listed proxy addresses, or none: only their
+  // X-Forwarded-* headers are believed (README: set it only when the proxy is the sole way in).
+  app.set(
+    'trust proxy',
+    Array.isArray(config.trustProxy) ? config.trustProxy : config.trustProxy ? 1 : false,
+  );
   app.disable('x-powered-by');
 
   app.use((req, res, next) => {
@@ -116,9 +122,16 @@ export function createApp(deps: AppDeps) {
                 'upgrade-insecure-requests': null,
               },
             },
+      // Sent below, and only over HTTPS: on plain HTTP (the venue's local network) a browser
+      // ignores it anyway, and saying it there would promise what the request did not have.
       strictTransportSecurity: false,
     }),
   );
+  app.use((req, res, next) => {
+    // No includeSubDomains: the studio's other hosts are not ours to pin to HTTPS.
+    if (req.secure) res.setHeader('Strict-Transport-Security', 'max-age=31536000');
+    next();
+  });
 
   const auth = createAuthService({ db, clock, mailer, config, logger });
   const users = createUsersService({ db, auth });
@@ -158,8 +171,11 @@ export function createApp(deps: AppDeps) {
   });
 
   const api = express.Router();
+  // Before the body is read: a cross-site change is refused whatever it carries.
+  api.use(refuseCrossSiteChanges);
   api.use(express.json({ limit: '1mb' }));
   api.use(cookieParser());
+  api.use(refuseControlCharacters);
   api.use(requireJsonForMutations);
   api.use(loadViewer((token) => auth.resolveViewer(token)));
   api.use((_req, res, next) => {
@@ -169,7 +185,7 @@ export function createApp(deps: AppDeps) {
 
   const routes = new RouteTable(api);
   registerHealthRoutes(routes, db, mailbox ? 'local catcher' : 'smtp');
-  registerAuthRoutes(routes, auth, db, config);
+  registerAuthRoutes(routes, auth, db, config, clock);
   registerUsersRoutes(routes, users);
   registerClientsRoutes(routes, clients);
   registerSittersRoutes(routes, db);

@@ -1,10 +1,44 @@
 import { randomBytes } from 'node:crypto';
+import { isIP } from 'node:net';
 import path from 'node:path';
 import { z } from 'zod';
 
 const booleanFromEnv = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
   .transform((value) => value === 'true' || value === '1' || value === 'yes');
+
+/** Express's names for whole address ranges, accepted beside addresses and CIDR blocks. */
+const proxyRangeNames = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+function isProxyAddress(entry: string): boolean {
+  if (proxyRangeNames.has(entry)) return true;
+  const [address = '', prefix, ...rest] = entry.split('/');
+  const family = isIP(address);
+  if (!family || rest.length > 0) return false;
+  if (prefix === undefined) return true;
+  const bits = Number(prefix);
+  return /^\d{1,3}$/.test(prefix) && bits <= (family === 4 ? 32 : 128);
+}
+
+/**
+ * `true` believes exactly one proxy hop; a comma-separated list believes X-Forwarded-* only
+ * from those addresses (safer: a client reaching the app directly cannot spoof its address).
+ */
+const trustProxyFromEnv = z.union([
+  booleanFromEnv,
+  z
+    .string()
+    .transform((value) =>
+      value
+        .split(',')
+        .map((entry) => entry.trim())
+        .filter((entry) => entry.length > 0),
+    )
+    .refine((entries) => entries.length > 0 && entries.every(isProxyAddress), {
+      error:
+        'Use true, false, or a comma-separated list of proxy addresses (10.0.0.5, 10.0.0.0/24, loopback).',
+    }),
+]);
 
 /** Every setting the server reads from the environment, with its default. */
 export const configSchema = z.object({
@@ -22,8 +56,11 @@ export const configSchema = z.object({
   PASSWORD_RESET_TTL_MINUTES: z.coerce.number().positive().default(60),
   RATE_LIMIT_WINDOW_MINUTES: z.coerce.number().positive().default(15),
   RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
-  RATE_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
-  TRUST_PROXY: booleanFromEnv.default(false),
+  /** Wrong passwords (or link requests) one address may make for one e-mail before waiting. */
+  SIGN_IN_FREE_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(5),
+  /** The longest wait the back-off asks of one address and e-mail pair. */
+  SIGN_IN_MAX_WAIT_MINUTES: z.coerce.number().positive().max(1440).default(15),
+  TRUST_PROXY: trustProxyFromEnv.default(false),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LIKENESS_DATA_DIR: z.string().min(1).default('.data'),
   PG_PORT: z.coerce.number().int().min(1024).max(65535).default(54329),
@@ -51,14 +88,17 @@ export interface AppConfig {
   publicUrl: string;
   mailFrom: string;
   studioName: string;
-  trustProxy: boolean;
+  /** false, one hop (true), or the proxy addresses whose X-Forwarded-* headers are believed. */
+  trustProxy: boolean | string[];
   logLevel: RawConfig['LOG_LEVEL'];
   sessionTtlMs: number;
   invitationLinkTtlMs: number;
   signInLinkTtlMs: number;
   setPasswordLinkTtlMs: number;
   passwordResetTtlMs: number;
-  rateLimit: { windowMs: number; perAddress: number; perAccount: number };
+  rateLimit: { windowMs: number; perAddress: number };
+  /** The growing wait per address and e-mail pair (server/lib/sign-in-backoff.ts). */
+  signInBackoff: { freeAttempts: number; firstDelayMs: number; maxDelayMs: number };
   storage: StorageSettings;
   /** Files still arriving live in `folder` (tus); no file over maxBytes or maxPixels is kept. */
   uploads: { folder: string; maxBytes: number; maxPixels: number };
@@ -102,7 +142,11 @@ export function toAppConfig(raw: RawConfig): AppConfig {
     rateLimit: {
       windowMs: raw.RATE_LIMIT_WINDOW_MINUTES * MINUTE,
       perAddress: raw.RATE_LIMIT_PER_ADDRESS,
-      perAccount: raw.RATE_LIMIT_PER_ACCOUNT,
+    },
+    signInBackoff: {
+      freeAttempts: raw.SIGN_IN_FREE_ATTEMPTS,
+      firstDelayMs: 2000,
+      maxDelayMs: raw.SIGN_IN_MAX_WAIT_MINUTES * MINUTE,
     },
     storage: toStorageSettings(raw),
     uploads: {

@@ -112,6 +112,13 @@ export interface RateLimitCountersTable {
   resetsAt: Timestamp;
 }
 
+export interface SignInBackoffTable {
+  key: string;
+  attempts: number;
+  lastAttemptAt: Timestamp;
+  nextAllowedAt: Timestamp | null;
+}
+
 export interface AuditEventsTable {
   id: Generated<string>;
   occurredAt: DefaultedTimestamp;
@@ -205,6 +212,7 @@ export interface Database {
   sessions: SessionsTable;
   linkTokens: LinkTokensTable;
   rateLimitCounters: RateLimitCountersTable;
+  signInBackoff: SignInBackoffTable;
   auditEvents: AuditEventsTable;
   installationFacts: InstallationFactsTable;
   setupCards: SetupCardsTable;

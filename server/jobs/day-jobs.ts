@@ -39,6 +39,7 @@ export function createDayJobs(deps: JobDeps) {
   const proofs = proofsServiceFor({ ...deps, auth });
   return {
     handlers: {
+      ...auth.handlers(),
       ...invitations.handlers(),
       ...booking.handlers(),
       ...proofs.handlers(),

@@ -56,7 +56,6 @@ class PostgresRateLimitStore implements Store {
 export interface RateLimitSettings {
   windowMs: number;
   perAddress: number;
-  perAccount: number;
 }
 
 const tooMany = () =>
@@ -66,45 +65,26 @@ const tooMany = () =>
     'Too many attempts. Please wait a few minutes before trying again.',
   );
 
-function accountKey(req: Request): string {
-  const body: unknown = req.body;
-  const email =
-    typeof body === 'object' && body !== null && 'email' in body && typeof body.email === 'string'
-      ? body.email.trim().toLowerCase()
-      : '';
-  return email || 'no-email';
-}
-
-/** Limits per client address and per account (the e-mail in the body) for one action. */
+/**
+ * A limit per client address for one action. There is deliberately no limit per account: one
+ * that anybody can fill locks the owner out (sign-in-backoff.ts slows guessing per pair instead).
+ */
 export function createRateLimits(
   db: Db,
   action: string,
   settings: RateLimitSettings,
-  options: { byAccount?: boolean; onlyFailures?: boolean } = {},
+  options: { onlyFailures?: boolean } = {},
 ): RequestHandler[] {
-  const byAccount = options.byAccount ?? true;
-  const common = {
-    windowMs: settings.windowMs,
-    standardHeaders: 'draft-8' as const,
-    legacyHeaders: false,
-    // Both limits answer the same way, whether or not the e-mail is known.
-    handler: (_req: Request, _res: unknown, next: (error: unknown) => void) => next(tooMany()),
-    // Signing in correctly again (another tablet, another browser) is not an attack.
-    skipSuccessfulRequests: options.onlyFailures ?? false,
-  };
-  const limits = [
+  return [
     rateLimit({
-      ...common,
+      windowMs: settings.windowMs,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      handler: (_req: Request, _res: unknown, next: (error: unknown) => void) => next(tooMany()),
+      // Signing in correctly again (another tablet, another browser) is not an attack.
+      skipSuccessfulRequests: options.onlyFailures ?? false,
       limit: settings.perAddress,
       store: new PostgresRateLimitStore(db, `${action}:address:`),
     }),
-    rateLimit({
-      ...common,
-      limit: settings.perAccount,
-      keyGenerator: accountKey,
-      store: new PostgresRateLimitStore(db, `${action}:account:`),
-    }),
   ];
-  // Requests without an e-mail (link redemption) would all share one account key.
-  return byAccount ? limits : limits.slice(0, 1);
 }

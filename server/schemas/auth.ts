@@ -50,3 +50,17 @@ export type SessionResponse = z.infer<typeof sessionResponseSchema>;
 
 export const acceptedResponseSchema = z.object({ message: z.string() });
 export type AcceptedResponse = z.infer<typeof acceptedResponseSchema>;
+
+/** One of the viewer's own sessions, as the account page lists them. */
+export const sessionSummarySchema = z.object({
+  id: z.string(),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+  ipAddress: z.string().nullable(),
+  userAgent: z.string().nullable(),
+  current: z.boolean(),
+});
+export type SessionSummary = z.infer<typeof sessionSummarySchema>;
+
+export const sessionListSchema = z.object({ sessions: z.array(sessionSummarySchema) });
+export type SessionList = z.infer<typeof sessionListSchema>;

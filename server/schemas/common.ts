@@ -31,6 +31,18 @@ export const newPasswordSchema = z
 // eslint-disable-next-line no-control-regex
 export const controlCharacterPattern = /[\u0000-\u001f\u007f-\u009f]/;
 
+/**
+ * Fields where a person may type line breaks or tabs (a note in a textarea). Every other text
+ * field refuses them at the edge, like any other control character (server/lib/validate.ts).
+ */
+export const lineBreakFields = z.registry<{ lineBreaks: true }>();
+
+/** Marks a text schema as accepting tab, line feed and carriage return. */
+export function allowLineBreaks<Schema extends z.ZodType>(schema: Schema): Schema {
+  lineBreakFields.add(schema, { lineBreaks: true });
+  return schema;
+}
+
 export const uuidSchema = z.uuid({ error: 'Not a valid identifier.' });
 
 export const apiErrorSchema = z.object({

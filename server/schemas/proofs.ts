@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { controlCharacterPattern, uuidSchema } from './common';
+import { allowLineBreaks, controlCharacterPattern, uuidSchema } from './common';
 
 export const pickNoteLimit = 300;
 
@@ -7,13 +7,15 @@ export const pickNoteLimit = 300;
 // eslint-disable-next-line no-control-regex
 const noteControlPattern = /[\u0000-\u0009\u000b\u000c\u000e-\u001f\u007f-\u009f]/;
 
-export const pickNoteSchema = z
-  .string()
-  .trim()
-  .max(pickNoteLimit, { error: `Keep the note to ${pickNoteLimit} characters.` })
-  .refine((value) => !noteControlPattern.test(value), {
-    error: 'The note contains control characters.',
-  });
+export const pickNoteSchema = allowLineBreaks(
+  z
+    .string()
+    .trim()
+    .max(pickNoteLimit, { error: `Keep the note to ${pickNoteLimit} characters.` })
+    .refine((value) => !noteControlPattern.test(value), {
+      error: 'The note contains control characters.',
+    }),
+);
 
 export const savePicksRequestSchema = z
   .object({

@@ -49,6 +49,13 @@ export function createAppRouter(queryClient: QueryClient) {
               lazy: async () => ({ Component: (await import('./routes/home')).HomePage }),
             },
             {
+              path: '/account',
+              lazy: async () => {
+                const page = await import('./routes/account');
+                return { Component: page.AccountPage, loader: page.makeLoader(queryClient) };
+              },
+            },
+            {
               path: '/studio/clients',
               lazy: async () => {
                 const page = await import('./routes/studio/clients');

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sendQueuedLinks } from '../server/helpers';
 import {
   insertClient,
   insertOffice,
@@ -87,6 +88,8 @@ describe('signing in', () => {
     await linkForm.getByLabel('Work e-mail').fill(person.email);
     await linkForm.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
     await page.getByText(/a sign-in link is on its way/).waitFor();
+    // The link is issued and mailed by the job queue, as the worker would run it.
+    await sendQueuedLinks(env.testApp);
 
     const mail = await env.testApp.mail.waitFor(person.email);
     const url = /(http:\/\/\S+\/link\/\S+)/.exec(mail.text)?.[1];
@@ -125,5 +128,36 @@ describe('signing in', () => {
     await page.goto('/no/such/page');
     await page.getByRole('heading', { name: 'There is no page at this address' }).waitFor();
     await context.close();
+  });
+});
+
+describe('the account page', () => {
+  it('lists where the account is signed in and signs out everywhere else', async () => {
+    const user = await insertStaff(env.testApp.db, { role: 'photographer' });
+    const lostTablet = await env.newContext();
+    const tabletPage = await lostTablet.newPage();
+    await signInWithPassword(tabletPage, user.email, TEST_PASSWORD);
+    await tabletPage.getByRole('heading', { level: 1, name: /Hello,/ }).waitFor();
+
+    const desk = await env.newContext();
+    const page = await desk.newPage();
+    await signInWithPassword(page, user.email, TEST_PASSWORD);
+    await page.getByRole('heading', { level: 1, name: /Hello,/ }).waitFor();
+    await page.getByRole('link', { name: 'Account' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Your account' }).waitFor();
+    const sessions = page.getByRole('list', { name: 'Sessions' }).getByRole('listitem');
+    await expect.poll(() => sessions.count()).toBe(2);
+    await page.getByText('(this device)').waitFor();
+    expect(await seriousAxeViolations(page)).toEqual([]);
+
+    await page.getByRole('button', { name: 'Sign out everywhere else' }).click();
+    await page.getByText('Signed out of 1 other session. This device stays signed in.').waitFor();
+    await expect.poll(() => sessions.count()).toBe(1);
+
+    // The other browser is signed out on its next request.
+    await tabletPage.reload();
+    await tabletPage.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await lostTablet.close();
+    await desk.close();
   });
 });

@@ -259,7 +259,8 @@ describe('what a correction refuses', () => {
       ...action('correct_frames', { stationId, sittingId, firstFrame: 801 }),
       stationId: `${stationId}\u0000`,
     }).expect(400);
-    expect(padded.body.error.details.fieldErrors.stationId[0]).toMatch(/Not a valid identifier/);
+    // Refused at the edge for its control character, before the identifier check.
+    expect(padded.body.error.details.fieldErrors.stationId[0]).toMatch(/control characters/);
 
     const same = await post(
       action('correct_frames', { stationId, sittingId, firstFrame: 800 }),

@@ -5,6 +5,12 @@ import { insertClient, insertOffice, insertPerson, insertStaff } from '../factor
 import { insertDay } from '../factories/days';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { signedInAgent, signedInSitter } from './helpers';
+import {
+  setUpOwnershipWorld,
+  tableDigest,
+  victimBodies,
+  victimQueries,
+} from './route-ownership-world';
 
 /**
  * The role x route matrix. Every API route must have a line here saying who may call it;
@@ -15,6 +21,8 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'POST /api/session': 'public',
   'GET /api/session': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
   'DELETE /api/session': 'public',
+  'GET /api/sessions': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
+  'DELETE /api/sessions': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
   'POST /api/sign-in-links': 'public',
   'POST /api/sign-in-links/redeem': 'public',
   'POST /api/password-resets': 'public',
@@ -243,4 +251,84 @@ describe('role x route matrix', () => {
       });
     }
   }
+});
+
+/**
+ * Routes that act only on the caller's own data (no id of anyone else in the path): an outsider
+ * is answered, but nothing of the victim's may appear in the answer.
+ */
+const callerScoped = new Set([
+  'GET /api/session',
+  'GET /api/sessions',
+  'DELETE /api/sessions',
+  'GET /api/sitters/me',
+  'GET /api/sitters/me/days',
+  'GET /api/proofs',
+  'GET /api/clients',
+  'GET /api/days',
+  'GET /api/console/days',
+  'GET /api/setup-card-sources',
+  // The caller's own delivered files for the day named: none, for someone not on it.
+  'GET /api/my-portraits/:dayId',
+]);
+
+describe('ownership: another client’s coordinator and sitter, and a photographer not on the day', () => {
+  let world: Awaited<ReturnType<typeof setUpOwnershipWorld>>;
+  let ownershipParams: Record<string, string>;
+  beforeAll(async () => {
+    world = await setUpOwnershipWorld(t);
+    ownershipParams = {
+      ...params,
+      ...world.ids,
+      name: 'portrait',
+      // Not yet made on this day; an owner would get 404 here too, so only the state check counts.
+      importId: '00000000-0000-4000-8000-000000000000',
+      invoiceId: '00000000-0000-4000-8000-000000000003',
+      fileId: '00000000-0000-4000-8000-000000000003',
+    };
+  }, 120_000);
+
+  const outsiderRoles = ['coordinator', 'sitter', 'photographer'] as const;
+
+  it('refuses every route that names the victim’s ids with 403 or 404, and changes nothing', async () => {
+    const bodies = victimBodies(world.ids, world.victimEmail, params.stationId!);
+    const queries = victimQueries(world.ids);
+    const victimIds = Object.values(world.ids);
+    const before = await tableDigest(t);
+    const failures: string[] = [];
+    for (const [key, access] of Object.entries(expectedAccess)) {
+      if (access === 'public') continue;
+      const [method = 'GET', path = '/'] = key.split(' ');
+      const concrete = path.replace(/:(\w+)/g, (_match, name: string) => {
+        const value = ownershipParams[name];
+        if (!value) throw new Error(`The ownership matrix has no value for :${name}`);
+        return value;
+      });
+      for (const role of outsiderRoles.filter((outsider) => access.includes(outsider))) {
+        const verb = method.toLowerCase() as 'get' | 'post' | 'patch' | 'put' | 'delete';
+        const pending = world.outsiders[role][verb](concrete + (queries[key] ?? ''));
+        const response = await (verb === 'get' ? pending : pending.send(bodies[key] ?? {}));
+        if (callerScoped.has(key)) {
+          // An id the caller itself sent may be echoed; anything else of the victim's may not.
+          const leaked = victimIds.filter(
+            (id) => !concrete.includes(id) && JSON.stringify(response.body).includes(id),
+          );
+          if (leaked.length > 0) failures.push(`${key} as ${role}: shows ${leaked.join(', ')}`);
+        } else if (![403, 404].includes(response.status)) {
+          failures.push(`${key} as ${role}: ${response.status} ${JSON.stringify(response.body)}`);
+        }
+      }
+    }
+    expect(failures).toEqual([]);
+    expect(await tableDigest(t)).toEqual(before);
+  });
+
+  it('DELETE /api/session and DELETE /api/sessions end only the caller’s own sessions', async () => {
+    for (const role of outsiderRoles) {
+      await world.outsiders[role].delete('/api/sessions').expect(200);
+      await world.outsiders[role].delete('/api/session').expect(204);
+      await world.outsiders[role].get('/api/session').expect(401);
+    }
+    for (const victim of Object.values(world.victims)) await victim.get('/api/session').expect(200);
+  });
 });

@@ -1,8 +1,9 @@
+import { sql } from 'kysely';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { insertClient, insertPerson, insertStaff } from '../factories/accounts';
 import { startTestApp, type TestApp } from '../setup/test-app';
-import { linkTokenFrom, signedInAgent } from './helpers';
+import { linkTokenFrom, sendQueuedLinks, signedInAgent } from './helpers';
 
 let t: TestApp;
 let clientId: string;
@@ -12,10 +13,21 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
+const linkTokenCount = async () =>
+  Number(
+    (
+      await t.db
+        .selectFrom('linkTokens')
+        .select((eb) => eb.fn.countAll<string>().as('n'))
+        .executeTakeFirstOrThrow()
+    ).n,
+  );
+
 describe('sitter sign-in links', () => {
   it('e-mails a link that signs the sitter in once; the second use fails', async () => {
     const person = await insertPerson(t.db, clientId);
     await request(t.app).post('/api/sign-in-links').send({ email: person.email }).expect(202);
+    await sendQueuedLinks(t);
     const mail = await t.mail.waitFor(person.email);
     expect(mail.text).toMatch(/works once and for 30 minutes/);
     expect(mail.html).toContain('<a href="http://likeness.test/link/');
@@ -39,6 +51,7 @@ describe('sitter sign-in links', () => {
   it('stores only a hash of the link token', async () => {
     const person = await insertPerson(t.db, clientId);
     await request(t.app).post('/api/sign-in-links').send({ email: person.email }).expect(202);
+    await sendQueuedLinks(t);
     const token = linkTokenFrom((await t.mail.waitFor(person.email)).text, 'link');
     const stored = await t.db
       .selectFrom('linkTokens')
@@ -53,6 +66,7 @@ describe('sitter sign-in links', () => {
   it('refuses a link after SIGN_IN_LINK_TTL_MINUTES', async () => {
     const person = await insertPerson(t.db, clientId);
     await request(t.app).post('/api/sign-in-links').send({ email: person.email }).expect(202);
+    await sendQueuedLinks(t);
     const token = linkTokenFrom((await t.mail.waitFor(person.email)).text, 'link');
     t.clock.advance(31 * 60_000);
     const response = await request(t.app).post('/api/sign-in-links/redeem').send({ token });
@@ -85,6 +99,7 @@ describe('sitter sign-in links', () => {
     expect(known.status).toBe(202);
     expect(unknown.status).toBe(202);
     expect(known.body).toEqual(unknown.body);
+    await sendQueuedLinks(t);
     await t.mail.waitFor(person.email);
     await new Promise((resolve) => setTimeout(resolve, 200));
     expect(t.mail.list().some((mail) => mail.to.includes('stranger@elsewhere.example'))).toBe(
@@ -95,7 +110,54 @@ describe('sitter sign-in links', () => {
   it('sends no link to someone who has left the roster', async () => {
     const person = await insertPerson(t.db, clientId, { active: false });
     await request(t.app).post('/api/sign-in-links').send({ email: person.email }).expect(202);
+    await sendQueuedLinks(t);
     await expect(t.mail.waitFor(person.email, { timeoutMs: 400 })).rejects.toThrow(/No mail/);
+  });
+
+  it('does no lookup in the request: a known and an unknown e-mail each queue one job, nothing else', async () => {
+    const person = await insertPerson(t.db, clientId);
+    const user = await insertStaff(t.db, { role: 'photographer' });
+    const tokensBefore = await linkTokenCount();
+    for (const [path, email] of [
+      ['/api/sign-in-links', person.email],
+      ['/api/sign-in-links', 'nobody.here@elsewhere.example'],
+      ['/api/password-resets', user.email],
+      ['/api/password-resets', 'nobody.here@elsewhere.example'],
+    ] as const) {
+      await request(t.app).post(path).send({ email }).expect(202);
+    }
+    // Nothing was looked up or issued on the request path: no token, no mail, four alike jobs.
+    expect(await linkTokenCount()).toBe(tokensBefore);
+    const jobs = await sql<{ task: string }>`
+      select task_identifier as task from graphile_worker.jobs order by id`.execute(t.db);
+    expect(jobs.rows.map((job) => job.task)).toEqual([
+      'send_sign_in_link',
+      'send_sign_in_link',
+      'send_password_reset',
+      'send_password_reset',
+    ]);
+    await sendQueuedLinks(t);
+    expect(await linkTokenCount()).toBe(tokensBefore + 2);
+    await t.mail.waitFor(person.email);
+    await t.mail.waitFor(user.email);
+    expect(t.mail.list().some((mail) => mail.to.includes('nobody.here@elsewhere.example'))).toBe(
+      false,
+    );
+  });
+
+  it('retires the older unused sign-in link when a new one is issued', async () => {
+    const person = await insertPerson(t.db, clientId);
+    await request(t.app).post('/api/sign-in-links').send({ email: person.email }).expect(202);
+    await sendQueuedLinks(t);
+    const older = linkTokenFrom((await t.mail.waitFor(person.email)).text, 'link');
+    t.mail.clear();
+    await request(t.app).post('/api/sign-in-links').send({ email: person.email }).expect(202);
+    await sendQueuedLinks(t);
+    const newer = linkTokenFrom((await t.mail.waitFor(person.email)).text, 'link');
+    expect(newer).not.toBe(older);
+    const stale = await request(t.app).post('/api/sign-in-links/redeem').send({ token: older });
+    expect(stale.status).toBe(410);
+    await request(t.app).post('/api/sign-in-links/redeem').send({ token: newer }).expect(201);
   });
 
   it('refuses a made-up token', async () => {
@@ -152,6 +214,7 @@ describe('staff passwords by link', () => {
       .send({ email: 'who@nowhere.example' })
       .expect(202);
     expect(answer.body).toEqual(unknown.body);
+    await sendQueuedLinks(t);
     const token = linkTokenFrom((await t.mail.waitFor(user.email)).text, 'password');
     await request(t.app)
       .post('/api/passwords')

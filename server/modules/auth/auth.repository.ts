@@ -238,3 +238,31 @@ export async function retireOpenLinks(
   if (subject.personId) query = query.where('personId', '=', subject.personId);
   await query.execute();
 }
+
+type SessionSubject = { userId: string } | { personId: string };
+
+export async function listLiveSessions(db: Executor, subject: SessionSubject, now: Date) {
+  const query = db
+    .selectFrom('sessions')
+    .select(['id', 'createdAt', 'expiresAt', 'ipAddress', 'userAgent'])
+    .where('expiresAt', '>', now)
+    .orderBy('createdAt', 'desc');
+  return 'userId' in subject
+    ? query.where('userId', '=', subject.userId).execute()
+    : query.where('personId', '=', subject.personId).execute();
+}
+
+/** Deletes the subject's sessions except `keepId`; returns how many ended. */
+export async function deleteOtherSessions(
+  db: Executor,
+  subject: SessionSubject,
+  keepId: string,
+): Promise<number> {
+  const query = db.deleteFrom('sessions').where('id', '<>', keepId);
+  const result = await (
+    'userId' in subject
+      ? query.where('userId', '=', subject.userId)
+      : query.where('personId', '=', subject.personId)
+  ).executeTakeFirst();
+  return Number(result.numDeletedRows);
+}

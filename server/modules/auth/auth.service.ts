@@ -6,10 +6,16 @@ import { AppError } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
 import { hashPassword, hashToken, newOpaqueToken, verifyPassword } from '../../lib/secrets';
 import type { Viewer } from '../../lib/viewer';
-import type { SessionResponse, SetPasswordRequest, SignInRequest } from '../../schemas/auth';
+import type {
+  SessionList,
+  SessionResponse,
+  SetPasswordRequest,
+  SignInRequest,
+} from '../../schemas/auth';
 import { roleLabels } from '../../schemas/common';
 import * as repo from './auth.repository';
-import { passwordResetMail, sitterSignInMail, staffSetPasswordMail } from './auth.mails';
+import { staffSetPasswordMail } from './auth.mails';
+import { createAuthLinkJobs, issueLinkToken } from './auth-link-jobs';
 
 export interface AuthDeps {
   db: Db;
@@ -49,8 +55,11 @@ const deadLink = (reason: 'used' | 'expired' | 'unknown') =>
 
 export type AuthService = ReturnType<typeof createAuthService>;
 
+const subjectOf = (viewer: Viewer) =>
+  viewer.kind === 'staff' ? { userId: viewer.id } : { personId: viewer.id };
+
 export function createAuthService(deps: AuthDeps) {
-  const { db, clock, mailer, config, logger } = deps;
+  const { db, clock, mailer, config } = deps;
 
   const staffViewer = (account: repo.StaffAccount, session: repo.SessionRecord): Viewer => ({
     kind: 'staff',
@@ -90,26 +99,12 @@ export function createAuthService(deps: AuthDeps) {
     return { token, session };
   }
 
-  /** Sending must not decide the answer, so failures are logged, not thrown. */
-  function sendInBackground(send: () => Promise<void>, what: string) {
-    send().catch((error: unknown) => logger.error({ err: error }, `could not send ${what}`));
-  }
-
-  async function issueLink(
+  const linkJobs = createAuthLinkJobs({ db, clock, mailer, config });
+  const issueLink = (
     subject: { userId: string } | { personId: string },
-    purpose: 'sitter_sign_in' | 'sitter_invitation' | 'set_password' | 'reset_password',
+    purpose: 'sitter_invitation' | 'set_password',
     ttlMs: number,
-  ): Promise<string> {
-    const token = newOpaqueToken();
-    await repo.insertLinkToken(db, {
-      tokenHash: hashToken(token),
-      purpose,
-      userId: 'userId' in subject ? subject.userId : null,
-      personId: 'personId' in subject ? subject.personId : null,
-      expiresAt: new Date(clock.now().getTime() + ttlMs),
-    });
-    return token;
-  }
+  ) => issueLinkToken({ db, clock }, subject, purpose, ttlMs);
 
   async function explainDeadLink(token: string): Promise<never> {
     const link = await repo.findLinkToken(db, hashToken(token));
@@ -174,23 +169,9 @@ export function createAuthService(deps: AuthDeps) {
       };
     },
 
-    /** Always succeeds from the caller's view: whether the address is known is not revealed. */
+    /** Always succeeds from the caller's view: the lookup and the mail happen in a job. */
     async requestSitterLink(email: string): Promise<void> {
-      const sitters = await repo.findActiveSittersByEmail(db, email);
-      for (const sitter of sitters) {
-        const token = await issueLink(
-          { personId: sitter.id },
-          'sitter_sign_in',
-          config.signInLinkTtlMs,
-        );
-        const mail = sitterSignInMail({
-          name: sitter.displayName.split(' ')[0] ?? sitter.displayName,
-          clientName: sitter.clientName,
-          url: `${config.publicUrl}/link/${token}`,
-          ttlMs: config.signInLinkTtlMs,
-        });
-        sendInBackground(() => mailer.send({ to: sitter.email, ...mail }), 'sitter sign-in link');
-      }
+      await linkJobs.queueSitterLink(email);
     },
 
     /** Used by invitations: a longer-lived personal link to the sitter's booking page. */
@@ -215,20 +196,31 @@ export function createAuthService(deps: AuthDeps) {
     },
 
     async requestPasswordReset(email: string): Promise<void> {
-      const account = await repo.findStaffByEmail(db, email);
-      if (!account?.active) return;
-      await repo.retireOpenLinks(db, { userId: account.id }, ['reset_password'], clock.now());
-      const token = await issueLink(
-        { userId: account.id },
-        'reset_password',
-        config.passwordResetTtlMs,
-      );
-      const mail = passwordResetMail({
-        name: account.displayName,
-        url: `${config.publicUrl}/password/${token}`,
-        ttlMs: config.passwordResetTtlMs,
-      });
-      sendInBackground(() => mailer.send({ to: account.email, ...mail }), 'password reset');
+      await linkJobs.queuePasswordReset(email);
+    },
+
+    /** The queued work behind requestSitterLink and requestPasswordReset. */
+    handlers: () => linkJobs.handlers(),
+
+    /** The viewer's own live sessions, newest first, this one marked. */
+    async sessionsOf(viewer: Viewer): Promise<SessionList> {
+      const sessions = await repo.listLiveSessions(db, subjectOf(viewer), clock.now());
+      return {
+        sessions: sessions.map((session) => ({
+          id: session.id,
+          createdAt: new Date(session.createdAt).toISOString(),
+          expiresAt: new Date(session.expiresAt).toISOString(),
+          ipAddress: session.ipAddress,
+          userAgent: session.userAgent,
+          current: session.id === viewer.sessionId,
+        })),
+      };
+    },
+
+    /** Ends every session of the viewer but the one asking (a lost tablet, a shared computer). */
+    async signOutElsewhere(viewer: Viewer): Promise<{ ended: number }> {
+      const ended = await repo.deleteOtherSessions(db, subjectOf(viewer), viewer.sessionId);
+      return { ended };
     },
 
     /** Sends a staff member the link that lets them choose a password. */

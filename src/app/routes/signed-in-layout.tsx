@@ -69,6 +69,12 @@ export function SignedInLayout() {
               {roleLabels[user.role]}
               {user.clientName ? ` · ${user.clientName}` : ''}
             </span>
+            <NavLink
+              to="/account"
+              className="inline-flex min-h-touch items-center rounded-control px-2 font-medium text-spruce-700 underline"
+            >
+              Account
+            </NavLink>
             <Button
               variant="secondary"
               busy={signOut.isPending}
