@@ -11,7 +11,7 @@ import { debianPortrait, placePortrait, type Placement } from '../support/debian
  * its eyes found, each preset planned and rendered, then the eyes found again in every rendered
  * file. Across the set, each rendition's eye line and eye distance must agree within 2 px (the
  * issue's bar), and the ID badge must sit inside ISO/IEC 19794-5's full-frontal ranges as
- * REFERENCES.md quotes them (eye line 30-50 % from the top, face centre 45-55 % of the width,
+ * tests/reference/SOURCES.md quotes them (eye line 30-50 % from the top, face centre 45-55 % of the width,
  * at least 90 px between the eye centres; values as quoted by open checkers, verify).
  */
 const placements: Placement[] = [
@@ -78,7 +78,7 @@ describe('a consistent set from one face placed three ways (Debian python3-skima
     });
   }
 
-  it('ID badge: inside the ISO/IEC 19794-5 ranges for eye line, face centre and eye distance (as quoted in REFERENCES.md)', () => {
+  it('ID badge: inside the ISO/IEC 19794-5 ranges for eye line, face centre and eye distance (as quoted in tests/reference/SOURCES.md)', () => {
     const { width, height } = idBadgePreset.rendition;
     for (const each of found.get('id_badge')!) {
       expect(each.eyeLine / height).toBeGreaterThanOrEqual(0.3);

@@ -7,6 +7,7 @@ import * as daysRepo from '../days/days.repository';
 import type { DaysService } from '../days/days.service';
 import { wallClockAt } from '../days/zoned-time';
 import { toCsv } from '../../lib/csv';
+import { NO_FLASH_WORDING } from '../../schemas/sitter-wording';
 
 export type ProgressService = ReturnType<typeof createProgressService>;
 
@@ -159,7 +160,7 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
           entry.name,
           entry.preferredName ?? '',
           entry.glasses ? 'yes' : 'no',
-          entry.flashSensitive ? 'yes: use continuous light' : 'no',
+          entry.flashSensitive ? `yes: ${NO_FLASH_WORDING}` : 'no',
           entry.accessNeeds ?? '',
         ]);
       }
