@@ -107,7 +107,9 @@ describe('invitations, reminders and day-before mail through the job queue', () 
     const overview = await coordinator.get(`/api/clients/${client.id}/progress`).expect(200);
     expect(overview.body).toMatchObject({ invited: 2, booked: 1 });
     expect(overview.body.days[0]).toMatchObject({ dayId: day.id, label: `Leeds · ${day.date}` });
-    expect(overview.body.byOffice).toEqual([{ label: 'Leeds', invited: 2, booked: 1 }]);
+    expect(overview.body.byOffice).toEqual([
+      { label: 'Leeds', invited: 2, booked: 1, checkedIn: 0, photographed: 0, noShow: 0 },
+    ]);
     const departments = overview.body.byDepartment as Array<{ invited: number; booked: number }>;
     expect(departments.reduce((sum, group) => sum + group.invited, 0)).toBe(2);
     expect(departments.reduce((sum, group) => sum + group.booked, 0)).toBe(1);
