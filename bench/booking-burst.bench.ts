@@ -69,7 +69,7 @@ async function prepareDay(url: string) {
     const day = await one(
       `insert into shoot_days (client_id, office_id, day_date, time_zone, address, room, opens_at,
          closes_at, slot_minutes, booking_opens_at, booking_closes_at, changes_close_at, invite_by, status)
-       values ($1, $2, $3, 'Europe/London', '1 Wharf Street, Leeds', 'Studio', $4, $5, $6,
+       values ($1, $2, $3, 'Europe/London', '4 Quillfield Row, Leeds', 'Studio', $4, $5, $6,
          now() - interval '1 day', $3::date, $3::date, 'office', 'confirmed') returning id`,
       [company.id, office.id, date, hours.opensAt, hours.closesAt, hours.slotMinutes],
     );

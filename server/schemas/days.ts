@@ -144,14 +144,22 @@ export interface QueuedMailings {
   alreadyQueued: number;
 }
 
-export interface ProgressGroup {
-  label: string;
+/**
+ * How far a group got on a day. booked: holds a booking not marked as a no-show; checkedIn and
+ * photographed include walk-ins (who may not have been invited); noShow: booked, never came.
+ */
+export interface ProgressCounts {
   invited: number;
   booked: number;
+  checkedIn: number;
+  photographed: number;
+  noShow: number;
 }
-export interface DayProgress {
-  invited: number;
-  booked: number;
+export interface ProgressGroup extends ProgressCounts {
+  label: string;
+}
+export interface DayProgress extends ProgressCounts {
+  /** Invited people without a booking (no-shows did book, so they are not here). */
   unbooked: number;
   byOffice: ProgressGroup[];
   byDepartment: ProgressGroup[];
@@ -191,17 +199,15 @@ export interface DaySchedule {
   }>;
 }
 
-export interface ClientProgress {
+export interface ClientProgress extends ProgressCounts {
   clientId: string;
-  invited: number;
-  booked: number;
-  days: Array<{
-    dayId: string;
-    label: string;
-    status: 'proposed' | 'confirmed';
-    invited: number;
-    booked: number;
-  }>;
+  days: Array<
+    ProgressCounts & {
+      dayId: string;
+      label: string;
+      status: 'proposed' | 'confirmed';
+    }
+  >;
   byOffice: ProgressGroup[];
   byDepartment: ProgressGroup[];
 }

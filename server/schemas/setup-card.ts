@@ -6,6 +6,10 @@ const positive = (what: string, max: number) =>
     .positive({ error: `The ${what} must be more than zero.` })
     .max(max, { error: `The ${what} looks too large (at most ${max}).` });
 
+/** Apertures the card accepts: the widest lenses sold open to about f/0.95, the narrowest stop to f/64. */
+export const WIDEST_APERTURE = 0.95;
+export const NARROWEST_APERTURE = 64;
+
 export const lightRoles = ['key', 'fill', 'background', 'hair'] as const;
 
 export const cardLightSchema = z.object({
@@ -22,7 +26,8 @@ export const cardLightSchema = z.object({
     .max(6, { error: 'At most 6 stops.' })
     .nullable()
     .default(null),
-  distanceMetres: positive('distance to the sitter', 20),
+  /** To the sitter; for a background light, to the background it lights. */
+  distanceMetres: positive('distance', 20),
   guideNumber: z.number().positive().max(200).nullable().default(null),
 });
 export type CardLight = z.infer<typeof cardLightSchema>;
@@ -52,9 +57,11 @@ export const setupCardSchema = z
       customCropFactor: z.number().min(0.5).max(8).nullable().default(null),
       focalLengthMm: positive('focal length', 1200),
       aperture: z
-        .number()
-        .min(0.7, { error: 'The widest usual aperture is about f/0.95.' })
-        .max(64),
+        .number({ error: 'Enter the aperture.' })
+        .min(WIDEST_APERTURE, { error: `The widest aperture accepted is f/${WIDEST_APERTURE}.` })
+        .max(NARROWEST_APERTURE, {
+          error: `The narrowest aperture accepted is f/${NARROWEST_APERTURE}.`,
+        }),
       shutterSeconds: positive('shutter speed', 30),
       iso: z.number().int().min(25).max(409600),
       flashSyncSeconds: positive('flash sync speed', 1),

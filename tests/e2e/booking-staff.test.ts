@@ -59,11 +59,15 @@ describe('the studio plans a day', () => {
       .getByRole('link', { name: /2030-05-07 · Halvorsen & Pike Engineering · Porto/ })
       .click();
     await page.getByRole('heading', { level: 1, name: 'Porto · 2030-05-07' }).waitFor();
-    await page.getByText('0 of 3 booked', { exact: false }).first().waitFor();
+    await page.getByRole('img', { name: /^By office\. Porto: 3 invited, 0 booked/ }).waitFor();
     expect(await seriousAxeViolations(page)).toEqual([]);
     await page.getByRole('button', { name: 'Send invitations' }).click();
     await page.getByText('3 queued').waitFor();
     await page.getByText('Sending: 0 of 3 handled', { exact: false }).waitFor();
+    // The log names each state in words (Waiting / Sent / Failed), not the stored value.
+    const mailLog = page.getByRole('table', { name: 'Per-person mail log' });
+    await mailLog.getByRole('cell', { name: 'Waiting', exact: true }).first().waitFor();
+    expect(await mailLog.getByText('queued', { exact: true }).count()).toBe(0);
 
     // The studio books someone on their behalf, then moves and cancels that booking.
     const bookFor = page.getByRole('form', { name: 'Book for someone' });

@@ -12,6 +12,7 @@ import {
   startE2e,
   type E2eEnvironment,
 } from './support/browser';
+import { NO_FLASH_WORDING } from '../../server/schemas/sitter-wording';
 
 // Chromium reads its fake camera file at launch, so the file is named before the pass exists
 // and written (from the pass the app issues) before the page asks for the camera.
@@ -53,7 +54,7 @@ describe('station console: scanning a pass', () => {
     const flashSitter = page.getByRole('listitem', {
       name: new RegExp(scenario.people[0]!.givenName),
     });
-    await flashSitter.getByText('Flash-sensitive — use continuous light').waitFor();
+    await flashSitter.getByText(NO_FLASH_WORDING).waitFor();
     await page.getByText(/flash-sensitive sitter is still to come/).waitFor();
     expect(await seriousAxeViolations(page)).toEqual([]);
     expect(await smallTouchTargets(page)).toEqual([]);

@@ -37,6 +37,14 @@ describe('setup card', () => {
     await page.getByRole('heading', { level: 1, name: 'Setup cards' }).waitFor();
     const warnings = page.getByRole('region', { name: 'Warnings' });
     await warnings.getByText('No warnings for this card.').waitFor();
+    // The starter card sits at about 3:1 key-to-fill, both conventions named, and says what
+    // its figures assume (equal heads without guide numbers; an in-line key for the background).
+    await page.getByText('Lighting ratio (key+fill : fill)').waitFor();
+    await page.getByText('Key-to-fill', { exact: true }).waitFor();
+    expect(await page.getByText('2.8:1', { exact: true }).count()).toBe(1);
+    const assumptions = page.getByRole('region', { name: 'Assumptions' });
+    await assumptions.getByText(/assume heads of equal output/).waitFor();
+    await assumptions.getByText(/background fall-off is approximate/).waitFor();
 
     // Stand the sitter 1 m from the background: the shadow warning appears.
     const form = page.getByRole('form', { name: 'Setup card' });
@@ -44,8 +52,14 @@ describe('setup card', () => {
     await warnings.getByText(/closer than 1.5 m to the background/).waitFor();
     // Push ISO up too: a second warning joins the first.
     await form.getByLabel('ISO', { exact: true }).fill('800');
-    await warnings.getByText(/ISO above the base value/).waitFor();
+    await warnings.getByText(/ISO above 100, the base of most bodies/).waitFor();
     expect(await warnings.getByRole('listitem').count()).toBe(2);
+    // A background light is placed by its distance to the background, not to the sitter.
+    await form.getByRole('button', { name: 'Add a background light' }).click();
+    await form
+      .getByRole('group', { name: 'Background light' })
+      .getByLabel('Distance to background')
+      .waitFor();
     expect(await seriousAxeViolations(page)).toEqual([]);
 
     await form.getByRole('button', { name: 'Save card' }).click();
@@ -73,6 +87,8 @@ describe('setup card', () => {
     await page.getByRole('heading', { level: 1, name: /Setup card · Station 1/ }).waitFor();
     expect(await page.getByRole('img', { name: /Plan sketch/ }).count()).toBe(2);
     expect(await page.getByText(/Sandbag every light stand/).count()).toBe(2);
+    expect(await page.getByText(/A light on a boom over a sitter/).count()).toBe(2);
+    expect(await page.getByText(/every other station in the same room holds/).count()).toBe(2);
     await context.close();
   });
 });

@@ -32,7 +32,7 @@ export async function insertDay(
       officeId: input.officeId,
       dayDate: date,
       timeZone: input.timeZone ?? 'Europe/London',
-      address: '1 Wharf Street, Leeds',
+      address: '4 Quillfield Row, Leeds',
       room: 'Meeting room 3',
       opensAt: input.opensAt ?? '09:00',
       closesAt: input.closesAt ?? '12:00',

@@ -44,7 +44,15 @@ describe('RFC 4180 records', () => {
     expect(parseRosterText('A,B\n1,2\n').rows).toEqual([['1', '2']]);
   });
 
-  it('RFC 4180 §2.3: the first record is the header; short rows are padded to its width', () => {
+  it('RFC 4180 §2.3: the first record is the header', () => {
+    const parsed = parseRosterText('Given,Family,E-mail\r\nAda,Pike,ada@x.example\r\n');
+    expect(parsed.headers).toEqual(['Given', 'Family', 'E-mail']);
+    expect(parsed.rows).toEqual([['Ada', 'Pike', 'ada@x.example']]);
+  });
+
+  // §2.4 says each line should hold the same number of fields. HR exports drop trailing empty
+  // cells, so padding a short row with empty fields is our own leniency, not the RFC's rule.
+  it('RFC 4180 §2.4 wants equal field counts; padding a short row to the header is our leniency', () => {
     const parsed = parseRosterText('A,B,C\r\n1\r\n');
     expect(parsed.headers).toEqual(['A', 'B', 'C']);
     expect(parsed.rows).toEqual([['1', '', '']]);

@@ -12,7 +12,7 @@ const event = (overrides: Partial<SittingEvent> = {}): SittingEvent => ({
   endsAt: new Date('2027-03-04T09:20:00Z'),
   timeZone: 'Europe/London',
   summary: 'Portrait sitting (Halvorsen & Pike Engineering)',
-  location: 'Meeting room 3, 1 Wharf Street, Leeds',
+  location: 'Meeting room 3, 4 Quillfield Row, Leeds',
   description: 'Station A; show your pass, please.',
   organizer: { name: 'Likeness bookings', email: 'bookings@northlight.example' },
   attendee: { name: 'Robin Sample', email: 'robin@halvorsen-pike.example' },

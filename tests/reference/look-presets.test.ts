@@ -9,7 +9,7 @@ import {
 } from '../../server/modules/looks/look-presets';
 import { renditionSchema } from '../../server/schemas/looks';
 
-// Ranges as quoted in REFERENCES.md ("Portrait geometry"; values from open checkers, verify
+// Ranges as quoted in tests/reference/SOURCES.md ("ISO/IEC 19794-5"; values from open checkers, verify
 // against the standards). Clause numbers of ISO/IEC 19794-5:2005 are from memory.
 const ISO = 'ISO/IEC 19794-5:2005';
 const ICAO = 'ICAO Doc 9303 Part 3';

@@ -30,7 +30,7 @@ import {
  * - the face models again, on each rendered file: an independent detector's view, whose own
  *   repeatability on a re-detected rendition is up to about 2 % of the eye distance (measured here, so
  *   its bar is 2.5 % of the eye distance rather than 2 px).
- * The ID badge must sit inside ISO/IEC 19794-5's full-frontal ranges as REFERENCES.md quotes them
+ * The ID badge must sit inside ISO/IEC 19794-5's full-frontal ranges as tests/reference/SOURCES.md quotes them
  * (eye line 30-50 % from the top, face centre 45-55 % of the width, at least 90 px between the
  * eye centres; values as quoted by open checkers, verify).
  */
@@ -160,7 +160,7 @@ describe('a consistent set from one face placed four ways (Debian python3-skimag
     });
   }
 
-  it('ID badge: inside the ISO/IEC 19794-5 ranges for eye line, face centre and eye distance (as quoted in REFERENCES.md)', () => {
+  it('ID badge: inside the ISO/IEC 19794-5 ranges for eye line, face centre and eye distance (as quoted in tests/reference/SOURCES.md)', () => {
     const { width, height } = idBadgePreset.rendition;
     for (const each of [...found.get('id_badge')!, ...marked.get('id_badge')!]) {
       expect(each.eyeLine / height).toBeGreaterThanOrEqual(0.3);

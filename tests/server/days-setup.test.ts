@@ -13,7 +13,7 @@ const validDay = (clientId: string, officeId: string, photographerId: string | n
   clientId,
   officeId,
   date: '2030-10-27',
-  address: 'Weena 70, Rotterdam',
+  address: 'Brugmeesterkade 9, Rotterdam',
   room: 'Zaal 4',
   opensAt: '09:00',
   closesAt: '12:00',

@@ -7,6 +7,7 @@ import { insertClient, insertOffice, insertPerson, insertStaff } from '../factor
 import { insertDay } from '../factories/days';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { linkTokenFrom, signedInAgent } from './helpers';
+import { NO_FLASH_WORDING } from '../../server/schemas/sitter-wording';
 
 let t: TestApp;
 let mailer: ReturnType<typeof createSmtpMailer>;
@@ -106,7 +107,9 @@ describe('invitations, reminders and day-before mail through the job queue', () 
     const overview = await coordinator.get(`/api/clients/${client.id}/progress`).expect(200);
     expect(overview.body).toMatchObject({ invited: 2, booked: 1 });
     expect(overview.body.days[0]).toMatchObject({ dayId: day.id, label: `Leeds · ${day.date}` });
-    expect(overview.body.byOffice).toEqual([{ label: 'Leeds', invited: 2, booked: 1 }]);
+    expect(overview.body.byOffice).toEqual([
+      { label: 'Leeds', invited: 2, booked: 1, checkedIn: 0, photographed: 0, noShow: 0 },
+    ]);
     const departments = overview.body.byDepartment as Array<{ invited: number; booked: number }>;
     expect(departments.reduce((sum, group) => sum + group.invited, 0)).toBe(2);
     expect(departments.reduce((sum, group) => sum + group.booked, 0)).toBe(1);
@@ -160,7 +163,7 @@ describe('invitations, reminders and day-before mail through the job queue', () 
     // OWASP CSV Injection: a leading = is neutralised with an apostrophe; RFC 4180 doubles quotes.
     expect(lines[1]).toContain(`"'=HYPERLINK(""x"")"`);
     expect(lines[1]).toContain('10:00');
-    expect(lines[1]).toContain('yes: use continuous light');
+    expect(lines[1]).toContain(`yes: ${NO_FLASH_WORDING}`);
     const photographerAgent = await signedInAgent(t, photographer.email);
     const sheet = await photographerAgent.get(`/api/days/${day.id}/schedule`).expect(200);
     expect(sheet.body.stations[0].entries[0]).toMatchObject({

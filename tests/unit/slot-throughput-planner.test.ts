@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { planThroughput } from '../../src/features/days/lib/throughput';
 import { generateSlots } from '../../server/modules/days/slots';
 
-// Figures are common practice (REFERENCES.md, "The shoot day"): 12 per station-hour at
+// Figures are common practice (tests/reference/SOURCES.md, "common practice"): 12 per station-hour at
 // 5 minutes in theory, 8-10 for planning.
 describe('throughput planner', () => {
   it('uses 12 per station-hour in theory and 8-10 for planning at 5-minute slots', () => {

@@ -3,7 +3,7 @@ import type { OutgoingMail } from '../../adapters/mail/mailer';
 import { wallClockAt, formatOffset, offsetMinutesAt } from '../days/zoned-time';
 import type { DayRecord } from '../days/days.repository';
 
-/** What to wear (common studio practice, see the shoot-day notes in REFERENCES). */
+/** What to wear (common studio practice; see "common practice" in tests/reference/SOURCES.md). */
 export const whatToWear = [
   'Solid, mid-tone colours photograph best.',
   'Avoid fine stripes, small checks and tight patterns: they shimmer on camera.',

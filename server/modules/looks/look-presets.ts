@@ -3,9 +3,9 @@ import { faceProportions } from './crop-geometry';
 
 /**
  * The renditions a studio starts from, each value with where it comes from beside it. Values
- * marked "(from memory)" were not checked against the published text; "(value from
- * REFERENCES.md, verify)" means the figure is as quoted by open checkers, not read in the
- * standard itself.
+ * marked "(from memory)" were not checked against the published text; "(value as quoted by
+ * open checkers, …; verify)" means the figure is as quoted by open checkers, not read in the
+ * standard itself (tests/reference/SOURCES.md lists the sources).
  */
 export type Sourced<T> = { [K in keyof T]: { value: T[K]; source: string } };
 
@@ -87,14 +87,14 @@ export const idBadgePreset = preset('id_badge', {
     value: 420,
     source:
       'ICAO Doc 9303 Part 3 (from memory; clause not verified): 35 x 45 mm, aspect 7:9 ' +
-      '(value from REFERENCES.md, verify); 420 px = 35 mm at 12 px/mm (about 300 dpi): our choice',
+      '(value as quoted by open checkers, see tests/reference/SOURCES.md; verify); 420 px = 35 mm at 12 px/mm (about 300 dpi): our choice',
   },
   height: { value: 540, source: 'ICAO Doc 9303 Part 3 (from memory): 45 mm, 7:9 with the width' },
   eyeLine: {
     value: 0.45,
     source:
       'ISO/IEC 19794-5:2005 clause 8.3.3 (clause number from memory): eye line 30-50 % of the ' +
-      'height from the top (value from REFERENCES.md, verify); 45 % puts the crown at about ' +
+      'height from the top (value as quoted by open checkers, see tests/reference/SOURCES.md; verify); 45 % puts the crown at about ' +
       '7 % and the chin at about 83 % with the head size below',
   },
   headSize: {
@@ -106,14 +106,14 @@ export const idBadgePreset = preset('id_badge', {
       `${Math.round((BADGE_EYE_DISTANCE / faceProportions.eyeDistancePerHeadWidth) * 100)} %; ` +
       'ICAO Doc 9303 Part 3 (from memory) crown to chin 70-80 % of the height, here ' +
       `${Math.round(((BADGE_EYE_DISTANCE * 420 * faceProportions.crownToChinPerEyeDistance) / 540) * 100)} % ` +
-      '(values from REFERENCES.md, verify; head width and crown to chin estimated from the eye ' +
+      '(values as quoted by open checkers, see tests/reference/SOURCES.md; verify; head width and crown to chin estimated from the eye ' +
       'distance with the anthropometric ratios in crop-geometry.ts, from memory)',
   },
   centreX: {
     value: 0.5,
     source:
       'ISO/IEC 19794-5:2005 clause 8.3.2 (clause number from memory): face centre 45-55 % of ' +
-      'the width (value from REFERENCES.md, verify)',
+      'the width (value as quoted by open checkers, see tests/reference/SOURCES.md; verify)',
   },
   overflow: {
     value: 'refuse',

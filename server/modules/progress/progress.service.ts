@@ -2,42 +2,23 @@ import type { Db } from '../../db/database';
 import { notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import type { ClientProgress, DayProgress, DaySchedule, ProgressGroup } from '../../schemas/days';
+import {
+  addCounts,
+  addPerson,
+  emptyCounts,
+  groupPeople,
+  mergeGroups,
+  type PersonOnDay,
+} from './progress-counts';
+import * as progressRepo from './progress.repository';
 import * as bookingRepo from '../booking/booking.repository';
 import * as daysRepo from '../days/days.repository';
 import type { DaysService } from '../days/days.service';
 import { wallClockAt } from '../days/zoned-time';
 import { toCsv } from '../../lib/csv';
+import { NO_FLASH_WORDING } from '../../schemas/sitter-wording';
 
 export type ProgressService = ReturnType<typeof createProgressService>;
-
-function groupBy(
-  people: daysRepo.InvitedPerson[],
-  booked: Set<string>,
-  key: (person: daysRepo.InvitedPerson) => string,
-): ProgressGroup[] {
-  const groups = new Map<string, ProgressGroup>();
-  for (const person of people) {
-    const label = key(person);
-    const group = groups.get(label) ?? { label, invited: 0, booked: 0 };
-    group.invited += 1;
-    if (booked.has(person.id)) group.booked += 1;
-    groups.set(label, group);
-  }
-  return [...groups.values()].sort((a, b) => a.label.localeCompare(b.label));
-}
-
-/** Adds each day's groups into the client's totals, label by label. */
-function mergeGroups(totals: ProgressGroup[], groups: ProgressGroup[]) {
-  for (const group of groups) {
-    const total = totals.find((candidate) => candidate.label === group.label);
-    if (total) {
-      total.invited += group.invited;
-      total.booked += group.booked;
-    } else {
-      totals.push({ ...group });
-    }
-  }
-}
 
 export function createProgressService(deps: { db: Db; days: DaysService }) {
   const { db, days } = deps;
@@ -81,15 +62,44 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
       .orderBy('people.familyName')
       .execute();
     const bookings = await bookingRepo.activeBookingsOfDay(db, dayId);
-    const booked = new Set(bookings.map((booking) => booking.personId));
-    const bookedInvited = people.filter((person) => booked.has(person.id)).length;
+    const holdsBooking = new Set(bookings.map((booking) => booking.personId));
+    const outcome = await progressRepo.consoleOutcomes(db, dayId);
+    const invitedIds = new Set(people.map((person) => person.id));
+    const walkIns = await progressRepo.placesOf(
+      db,
+      [...outcome.checkedIn].filter((id) => !invitedIds.has(id)),
+    );
+    const onDay = (
+      person: { id: string; officeName: string | null; department: string | null },
+      invited: boolean,
+    ): PersonOnDay => {
+      const checkedIn = outcome.checkedIn.has(person.id);
+      // A no-show undone by a late check-in is not a no-show.
+      const noShow = outcome.noShow.has(person.id) && !checkedIn;
+      return {
+        id: person.id,
+        officeName: person.officeName,
+        department: person.department,
+        invited,
+        booked: holdsBooking.has(person.id) && !noShow,
+        checkedIn,
+        photographed: outcome.photographed.has(person.id),
+        noShow,
+      };
+    };
+    const everyone = [
+      ...people.map((person) => onDay(person, true)),
+      ...walkIns.map((person) => onDay(person, false)),
+    ];
+    const counts = emptyCounts();
+    everyone.forEach((person) => addPerson(counts, person));
+    const unbookedPeople = people.filter((person) => !holdsBooking.has(person.id));
     return {
-      invited: people.length,
-      booked: bookedInvited,
-      unbooked: people.length - bookedInvited,
-      byOffice: groupBy(people, booked, (person) => person.officeName ?? 'No office'),
-      byDepartment: groupBy(people, booked, (person) => person.department ?? 'No department'),
-      unbookedPeople: people.filter((person) => !booked.has(person.id)),
+      ...counts,
+      unbooked: unbookedPeople.length,
+      byOffice: groupPeople(everyone, (person) => person.officeName ?? 'No office'),
+      byDepartment: groupPeople(everyone, (person) => person.department ?? 'No department'),
+      unbookedPeople,
     };
   }
 
@@ -103,25 +113,36 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
         throw notFound('That client');
       }
       const list = (await days.list(viewer)).filter((day) => day.clientId === clientId);
-      const rows = [];
+      const rows: ClientProgress['days'] = [];
       const byOffice: ProgressGroup[] = [];
       const byDepartment: ProgressGroup[] = [];
+      const totals = emptyCounts();
       for (const day of list) {
-        const progress = await dayProgress(viewer, day.id);
-        mergeGroups(byOffice, progress.byOffice);
-        mergeGroups(byDepartment, progress.byDepartment);
+        const {
+          byOffice: offices,
+          byDepartment: departments,
+          ...progress
+        } = await dayProgress(viewer, day.id);
+        mergeGroups(byOffice, offices);
+        mergeGroups(byDepartment, departments);
+        const counts = {
+          invited: progress.invited,
+          booked: progress.booked,
+          checkedIn: progress.checkedIn,
+          photographed: progress.photographed,
+          noShow: progress.noShow,
+        };
+        addCounts(totals, counts);
         rows.push({
           dayId: day.id,
           label: `${day.officeName} · ${day.date}`,
           status: day.status,
-          invited: progress.invited,
-          booked: progress.booked,
+          ...counts,
         });
       }
       return {
         clientId,
-        invited: rows.reduce((sum, row) => sum + row.invited, 0),
-        booked: rows.reduce((sum, row) => sum + row.booked, 0),
+        ...totals,
         days: rows,
         byOffice: byOffice.sort((a, b) => a.label.localeCompare(b.label)),
         byDepartment: byDepartment.sort((a, b) => a.label.localeCompare(b.label)),
@@ -159,7 +180,7 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
           entry.name,
           entry.preferredName ?? '',
           entry.glasses ? 'yes' : 'no',
-          entry.flashSensitive ? 'yes: use continuous light' : 'no',
+          entry.flashSensitive ? `yes: ${NO_FLASH_WORDING}` : 'no',
           entry.accessNeeds ?? '',
         ]);
       }

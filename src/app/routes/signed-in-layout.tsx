@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { NavLink, Outlet, useNavigate, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, Outlet, useLocation, useNavigate, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Role } from '../../../server/schemas/common';
 import { roleLabels } from '../../../server/schemas/common';
 import { Button } from '../../components/ui/button';
@@ -15,7 +15,14 @@ export const makeLoader =
     return null;
   };
 
-const navigation: Record<Role, Array<{ to: string; label: string }>> = {
+/** A menu entry; `within` marks the pages it stands for besides its own path. */
+interface NavigationItem {
+  to: string;
+  label: string;
+  within?: RegExp;
+}
+
+const navigation: Record<Role, NavigationItem[]> = {
   studio_admin: [
     { to: '/', label: 'Overview' },
     { to: '/studio/clients', label: 'Clients' },
@@ -29,7 +36,8 @@ const navigation: Record<Role, Array<{ to: string; label: string }>> = {
   ],
   coordinator: [
     { to: '/', label: 'Overview' },
-    { to: '/people', label: 'People' },
+    // /people redirects to the client's directory, so the tab must light up there too.
+    { to: '/people', label: 'People', within: /^\/clients\/[^/]+\/people(\/|$)/ },
     { to: '/days', label: 'Shoot days' },
   ],
   sitter: [{ to: '/', label: 'My portrait' }],
@@ -39,6 +47,7 @@ export function SignedInLayout() {
   const { data: session } = useSession();
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const { pathname } = useLocation();
   if (!session) return null;
   const { user } = session;
 
@@ -48,20 +57,21 @@ export function SignedInLayout() {
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <Logo size={28} />
           <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1">
-            {navigation[user.role].map((item) => (
-              <NavLink
-                key={item.to}
-                to={item.to}
-                end
-                className={({ isActive }) =>
-                  `inline-flex min-h-touch items-center rounded-control px-3 font-medium ${
-                    isActive ? 'bg-spruce-50 text-spruce-700' : 'text-ink-muted hover:text-ink'
-                  }`
-                }
-              >
-                {item.label}
-              </NavLink>
-            ))}
+            {navigation[user.role].map((item) => {
+              const active = pathname === item.to || Boolean(item.within?.test(pathname));
+              return (
+                <Link
+                  key={item.to}
+                  to={item.to}
+                  aria-current={active ? 'page' : undefined}
+                  className={`inline-flex min-h-touch items-center rounded-control px-3 font-medium ${
+                    active ? 'bg-spruce-50 text-spruce-700' : 'text-ink-muted hover:text-ink'
+                  }`}
+                >
+                  {item.label}
+                </Link>
+              );
+            })}
           </nav>
           <div className="flex items-center gap-3 text-sm">
             <span className="text-ink-muted">

@@ -28,6 +28,7 @@ export function PagedTable<Row>({
   caption,
   busy,
   rowKey,
+  dense = false,
 }: {
   columns: ColumnDef<Row, unknown>[];
   rows: Row[];
@@ -39,6 +40,8 @@ export function PagedTable<Row>({
   caption: string;
   busy?: boolean;
   rowKey: (row: Row) => string;
+  /** One line per row, vertically centred: for long lists read row by row (the people directory). */
+  dense?: boolean;
 }) {
   const pageCount = Math.max(1, Math.ceil(total / page.pageSize));
   const table = useReactTable({
@@ -106,8 +109,8 @@ export function PagedTable<Row>({
           </thead>
           <TableBody
             table={table}
-            rowClassName="border-t border-line align-top"
-            cellClassName="px-3 py-2"
+            rowClassName={`border-t border-line ${dense ? 'align-middle' : 'align-top'}`}
+            cellClassName={dense ? 'whitespace-nowrap px-3 py-0.5' : 'px-3 py-2'}
           />
         </table>
       </div>

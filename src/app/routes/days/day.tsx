@@ -1,6 +1,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Card } from '../../../components/ui/card';
+import { SafetyCautions } from '../../../components/ui/safety-cautions';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { useSession } from '../../../features/auth/api/get-session';
 import { BookForPerson } from '../../../features/booking/components/book-for-person';
@@ -151,6 +152,12 @@ export function DayPage() {
                 <ManageBookings dayId={day.id} />
               </Card>
             ) : null}
+            <Card title="Safety at the venue" className="lg:col-span-2">
+              <p className="mb-2 text-sm">
+                For the venue&apos;s people: the studio follows these on the day.
+              </p>
+              <SafetyCautions />
+            </Card>
           </>
         ) : null}
       </div>

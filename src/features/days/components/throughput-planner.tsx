@@ -1,6 +1,7 @@
 import { planThroughput } from '../lib/throughput';
 
-const hours = (value: number) => `${value.toLocaleString('en-GB', { maximumFractionDigits: 1 })} h`;
+const oneDecimal = (value: number) => value.toLocaleString('en-GB', { maximumFractionDigits: 1 });
+const hours = (value: number) => `${oneDecimal(value)} h`;
 
 /** Live estimate beside the day form; the figures are trade rules of thumb, and it says so. */
 export function ThroughputPlanner(props: {
@@ -29,10 +30,12 @@ export function ThroughputPlanner(props: {
             {hours(props.hoursPerDay)}.
           </p>
           <p className="text-sm text-ink-muted">
-            In theory a {props.slotMinutes}-minute slot seats {plan.theoreticalPerStationHour} an
-            hour per station ({hours(plan.theoreticalHours)} in all); plan on{' '}
-            {plan.planningPerStationHour.low}–{plan.planningPerStationHour.high} to leave room for
-            walk-ins and retakes. These are common practice, not a rule.
+            In theory a {props.slotMinutes}-minute slot seats{' '}
+            {oneDecimal(plan.theoreticalPerStationHour)} an hour per station (
+            {hours(plan.theoreticalHours)} in all); plan on{' '}
+            {oneDecimal(plan.planningPerStationHour.low)}–
+            {oneDecimal(plan.planningPerStationHour.high)} to leave room for walk-ins and retakes.
+            These are common practice, not a rule.
           </p>
         </>
       )}

@@ -49,11 +49,14 @@ export function PeopleDirectory({
     setPage((current) => ({ ...current, page: 1 }));
   };
 
+  // Each sortable column has an accessor: TanStack Table offers sorting only on those. The
+  // order itself comes from the server (manual sorting), by the column id.
   const columns = useMemo<ColumnDef<Person, unknown>[]>(
     () => [
       {
         id: 'name',
         header: 'Name',
+        accessorFn: (p) => `${p.familyName} ${p.givenName}`,
         cell: ({ row: { original: p } }) => (
           <span className="font-medium">
             {p.givenName} {p.familyName}
@@ -63,18 +66,40 @@ export function PeopleDirectory({
           </span>
         ),
       },
-      { id: 'email', header: 'Work e-mail', cell: ({ row }) => row.original.email },
+      {
+        id: 'email',
+        header: 'Work e-mail',
+        accessorFn: (p) => p.email,
+        cell: ({ row }) => row.original.email,
+      },
       {
         id: 'employeeId',
         header: 'Employee id',
+        accessorFn: (p) => p.employeeId,
         cell: ({ row }) => row.original.employeeId ?? '—',
       },
-      { id: 'department', header: 'Department', cell: ({ row }) => row.original.department ?? '—' },
-      { id: 'jobTitle', header: 'Job title', cell: ({ row }) => row.original.jobTitle ?? '—' },
-      { id: 'office', header: 'Office', cell: ({ row }) => row.original.officeName ?? '—' },
+      {
+        id: 'department',
+        header: 'Department',
+        accessorFn: (p) => p.department,
+        cell: ({ row }) => row.original.department ?? '—',
+      },
+      {
+        id: 'jobTitle',
+        header: 'Job title',
+        accessorFn: (p) => p.jobTitle,
+        cell: ({ row }) => row.original.jobTitle ?? '—',
+      },
+      {
+        id: 'office',
+        header: 'Office',
+        accessorFn: (p) => p.officeName,
+        cell: ({ row }) => row.original.officeName ?? '—',
+      },
       {
         id: 'active',
         header: 'Status',
+        accessorFn: (p) => p.active,
         cell: ({ row }) =>
           row.original.active ? 'Active' : <span className="text-caution-600">Inactive</span>,
       },
@@ -91,16 +116,16 @@ export function PeopleDirectory({
         cell: ({ row: { original: p } }) => {
           const name = `${p.givenName} ${p.familyName}`;
           return (
-            <div className="flex flex-wrap gap-2">
+            <div className="flex gap-1">
               <Button
-                variant="secondary"
+                variant="quiet"
                 aria-label={`Edit ${name}`}
                 onClick={() => setPanel({ mode: 'edit', person: p })}
               >
                 Edit
               </Button>
               <Button
-                variant="secondary"
+                variant="quiet"
                 aria-label={`${p.active ? 'Deactivate' : 'Reactivate'} ${name}`}
                 onClick={() => setActive.mutate({ clientId, personId: p.id, active: !p.active })}
               >
@@ -247,6 +272,7 @@ export function PeopleDirectory({
           }}
           busy={people.isFetching}
           rowKey={(person) => person.id}
+          dense
         />
       )}
     </div>

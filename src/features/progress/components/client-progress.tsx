@@ -19,17 +19,18 @@ export function ClientProgressCard({
     <Card title={`${clientName}: booking progress`}>
       <p className="mb-3">
         {progress.data.booked} of {progress.data.invited} invited people have a slot across{' '}
-        {progress.data.days.length} day{progress.data.days.length === 1 ? '' : 's'}.
+        {progress.data.days.length} day{progress.data.days.length === 1 ? '' : 's'};{' '}
+        {progress.data.photographed} photographed, {progress.data.noShow} no-show
+        {progress.data.noShow === 1 ? '' : 's'}.
       </p>
       <ProgressChart
         title="By day"
-        groups={progress.data.days.map((day) => ({
-          label: day.status === 'proposed' ? `${day.label} (proposed)` : day.label,
-          invited: day.invited,
-          booked: day.booked,
+        groups={progress.data.days.map(({ dayId: _dayId, status, label, ...counts }) => ({
+          label: status === 'proposed' ? `${label} (proposed)` : label,
+          ...counts,
         }))}
       />
-      <div className="mt-4 grid gap-4 md:grid-cols-2">
+      <div className="mt-4 flex flex-col gap-4">
         <ProgressChart title="By office" groups={progress.data.byOffice} />
         <ProgressChart title="By department" groups={progress.data.byDepartment} />
       </div>

@@ -1,5 +1,6 @@
 import { Notice } from '../../../components/ui/notice';
 import { useSchedule } from '../api/get-schedule';
+import { NO_FLASH_WORDING } from '../../../../server/schemas/sitter-wording';
 
 /** One printable page per station: time, name and what helps (glasses, flash, access). */
 export function DaySheet({ dayId }: { dayId: string }) {
@@ -41,7 +42,7 @@ export function DaySheet({ dayId }: { dayId: string }) {
                     </td>
                     <td className="py-1.5 pr-3">
                       {[
-                        entry.flashSensitive ? 'NO FLASH: use continuous light' : null,
+                        entry.flashSensitive ? NO_FLASH_WORDING : null,
                         entry.glasses ? 'Glasses' : null,
                         entry.accessNeeds,
                       ]

@@ -2,6 +2,7 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useMailings } from '../api/get-mailings';
 import { useQueueMailings } from '../api/queue-mailings';
+import { mailStatusLabels } from '../../../../server/schemas/sitter-wording';
 
 const kindLabel = {
   invitation: 'Invitation',
@@ -92,7 +93,7 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
                     {entry.kind === 'reminder' ? ` ${entry.round}` : ''}
                   </td>
                   <td className="py-2 pr-3">
-                    {entry.status}
+                    {mailStatusLabels[entry.status]}
                     {entry.reason ? (
                       <span className="block text-danger-700">{entry.reason}</span>
                     ) : null}

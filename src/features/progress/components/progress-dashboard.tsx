@@ -17,11 +17,14 @@ export function ProgressDashboard({ dayId }: { dayId: string }) {
   }
   return (
     <div className="flex flex-col gap-5">
-      <dl className="grid grid-cols-3 gap-3 text-center">
+      <dl className="grid grid-cols-3 gap-3 text-center sm:grid-cols-6">
         {[
           ['Invited', data.invited],
           ['Booked', data.booked],
           ['Not yet booked', data.unbooked],
+          ['Checked in', data.checkedIn],
+          ['Photographed', data.photographed],
+          ['No-show', data.noShow],
         ].map(([label, value]) => (
           <div key={label} className="rounded-control bg-paper-sunk p-3">
             <dt className="text-sm text-ink-muted">{label}</dt>

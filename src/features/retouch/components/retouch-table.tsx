@@ -10,6 +10,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { PagedTable } from '../../../components/ui/paged-table';
 import { useRetouchQueue, useUpdatePick, type RetouchParams } from '../api/retouch';
+import { NO_FLASH_WORDING } from '../../../../server/schemas/sitter-wording';
 
 const chooserWords = {
   sitter: 'the sitter',
@@ -93,7 +94,7 @@ export function RetouchTable({
             {row.original.note ? <span>“{row.original.note}”</span> : null}
             {row.original.glasses ? <span className="text-ink-muted">Wears glasses</span> : null}
             {row.original.flashSensitive ? (
-              <span className="font-medium text-danger-700">Flash-sensitive sitter</span>
+              <span className="font-medium text-danger-700">{NO_FLASH_WORDING}</span>
             ) : null}
           </div>
         ),

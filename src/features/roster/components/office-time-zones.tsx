@@ -1,12 +1,11 @@
 import { SelectField } from '../../../components/ui/field';
+import { currentTimeZones, currentZoneName } from '../../../lib/time-zones';
 
-/** IANA zones the browser knows, with a short list where it cannot tell. */
-const zones: string[] =
-  typeof Intl.supportedValuesOf === 'function'
-    ? Intl.supportedValuesOf('timeZone')
-    : ['Europe/London', 'Europe/Amsterdam', 'Europe/Lisbon', 'Europe/Berlin', 'UTC'];
+/** IANA zones the browser knows, under their current names (old spellings are aliases). */
+const zones: string[] = currentTimeZones();
 
-export const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+export const browserTimeZone = () =>
+  currentZoneName(Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC');
 
 /** One time zone per office the file names and the client does not have yet. */
 export function OfficeTimeZones({

@@ -28,7 +28,9 @@ export function CardFiguresPanel({ figures }: { figures: CardFigures }) {
         {figures.lights.map((light) => (
           <div key={light.role} className="contents">
             <dt className="text-ink-muted">
-              {light.role.charAt(0).toUpperCase() + light.role.slice(1)} on the sitter
+              {light.role === 'background'
+                ? 'Background light on the background'
+                : `${light.role.charAt(0).toUpperCase() + light.role.slice(1)} on the sitter`}
             </dt>
             <dd>
               {light.role === 'key' ? 'reference' : stops(light.stopsRelativeToKey)}
@@ -40,11 +42,12 @@ export function CardFiguresPanel({ figures }: { figures: CardFigures }) {
         ))}
         {figures.ratio ? (
           <>
-            <dt className="text-ink-muted">Key : fill</dt>
-            <dd>
-              {figures.ratio.stops.toFixed(1)} stops · {ratio(figures.ratio.incident)} incident (key
-              + fill : fill) · {ratio(figures.ratio.separateMeter)} separate-meter (key : fill)
-            </dd>
+            <dt className="text-ink-muted">Key over fill</dt>
+            <dd>{figures.ratio.stops.toFixed(1)} stops</dd>
+            <dt className="text-ink-muted">Lighting ratio (key+fill : fill)</dt>
+            <dd>{ratio(figures.ratio.lighting)}</dd>
+            <dt className="text-ink-muted">Key-to-fill</dt>
+            <dd>{ratio(figures.ratio.keyToFill)}</dd>
           </>
         ) : null}
         <dt className="text-ink-muted">Exposure value</dt>
@@ -64,9 +67,17 @@ export function CardFiguresPanel({ figures }: { figures: CardFigures }) {
         </dd>
         <dt className="text-ink-muted">Background</dt>
         <dd>
-          {figures.backgroundStopsBelowSitter.toFixed(1)} stops darker than the sitter under the key
+          About {figures.backgroundStopsBelowSitter.toFixed(1)} stops darker than the sitter under
+          the key
         </dd>
       </dl>
+      <section aria-label="Assumptions" className="text-sm text-ink-muted">
+        <ul className="flex list-disc flex-col gap-1 pl-5">
+          {figures.assumptions.map((assumption) => (
+            <li key={assumption.code}>{assumption.message}</li>
+          ))}
+        </ul>
+      </section>
     </div>
   );
 }

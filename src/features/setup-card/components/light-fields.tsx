@@ -41,7 +41,7 @@ export function LightFields(props: {
           error={errors[`${path}.power`]}
         />
         <NumberInput
-          label="Distance to sitter"
+          label={light.role === 'background' ? 'Distance to background' : 'Distance to sitter'}
           unit="m"
           value={light.distanceMetres}
           onChange={(value) => set('distanceMetres', value ?? Number.NaN)}
@@ -63,7 +63,7 @@ export function LightFields(props: {
         />
         <NumberInput
           label="Guide number"
-          unit="m at ISO 100, optional"
+          unit="m, full power at ISO 100, optional"
           allowEmpty
           value={light.guideNumber}
           onChange={(value) => set('guideNumber', value)}

@@ -1,9 +1,11 @@
 import type { SetupCard } from '../../../../server/schemas/setup-card';
 
 /**
- * The card a station starts from: a typical key-plus-fill headshot set (common practice) —
- * key through a shoot-through umbrella at 1/2, fill four stops lower at 1/32 from the same distance, ISO 100, 1/125 s,
- * about f/5.6, camera 1.5 m from the sitter, sitter 2 m in front of the background.
+ * The card a station starts from: a corporate key-plus-fill headshot (common practice) — key
+ * through a shoot-through umbrella at 1/2 from 1.2 m, fill at 1/8 from 1.0 m, about 1½ stops
+ * under the key (2 stops of power, half a stop back by being closer): key-to-fill about 3:1,
+ * where corporate sets usually sit (2:1 to 4:1). ISO 100, 1/125 s, about f/5.6, camera 1.5 m
+ * from the sitter, sitter 2 m in front of the background.
  */
 export const starterCard: SetupCard = {
   lights: [
@@ -17,10 +19,10 @@ export const starterCard: SetupCard = {
     },
     {
       role: 'fill',
-      power: 1 / 32,
+      power: 1 / 8,
       modifier: 'Small diffuser',
       modifierLossStops: null,
-      distanceMetres: 1.2,
+      distanceMetres: 1,
       guideNumber: null,
     },
   ],

@@ -6,6 +6,7 @@ import {
 } from '../../../../server/schemas/console-rules';
 import { Button } from '../../../components/ui/button';
 import type { ShownEntry, ShownSitting } from '../model/apply-pending';
+import { NO_FLASH_WORDING } from '../../../../server/schemas/sitter-wording';
 
 export const statusLabels: Record<QueueStatus, string> = {
   booked: 'Booked',
@@ -84,7 +85,7 @@ export function QueueEntryCard({
           </span>
           {entry.flashSensitive ? (
             <span className="rounded-full bg-danger-600 px-3 py-1 font-bold text-paper-raised">
-              ⚠ Flash-sensitive — use continuous light
+              ⚠ {NO_FLASH_WORDING}
             </span>
           ) : null}
           {entry.glasses ? (

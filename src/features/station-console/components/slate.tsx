@@ -2,6 +2,7 @@ import QRCode from 'qrcode';
 import { useEffect, useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { FrameKeypad, frameDoubt, parseFrame } from './frame-keypad';
+import { NO_FLASH_WORDING } from '../../../../server/schemas/sitter-wording';
 
 /**
  * The slate: the sitter's name in large type and a QR code with the sitting's token, filling
@@ -78,7 +79,7 @@ export function Slate({
         <p className="font-mono text-lg tracking-wider text-ink-muted">{slateToken}</p>
         {flashSensitive ? (
           <p className="rounded-control border-2 border-danger-600 bg-danger-50 px-4 py-2 text-lg font-semibold text-danger-700">
-            Flash-sensitive sitter: use continuous light, single exposures only.
+            {NO_FLASH_WORDING}
           </p>
         ) : null}
       </div>

@@ -8,6 +8,7 @@ import { useConsoleEvents } from '../live/use-console-events';
 import { useWakeLock } from '../live/use-wake-lock';
 import { applyPending, type ShownEntry, type ShownSitting } from '../model/apply-pending';
 import { correctableSittings } from '../model/correctable-sittings';
+import { neighbourFlashHolds } from '../model/neighbour-flash-holds';
 import { useBrowserOnline, useOutbox } from '../offline/use-outbox';
 import { CheckInPanel } from './check-in-panel';
 import { CorrectFrames } from './correct-frames';
@@ -121,6 +122,7 @@ export function StationConsoleScreen({
   const flashCount = entries.filter(
     (entry) => entry.flashSensitive && ['booked', 'arrived', 'in_chair'].includes(entry.status),
   ).length;
+  const holdFor = neighbourFlashHolds({ stations: data.stations, ...shown }, stationId);
 
   return (
     <div className="flex min-h-dvh flex-col">
@@ -169,6 +171,13 @@ export function StationConsoleScreen({
           />
           {!data.canAct ? (
             <Notice>You can follow the console; only the studio can change it.</Notice>
+          ) : null}
+          {holdFor.length > 0 ? (
+            <Notice tone="danger">
+              Hold your flashes: {holdFor.join(' and ')} {holdFor.length === 1 ? 'has' : 'have'} a
+              sitter in the chair who must not see flash (same room). Continuous light only until
+              they finish.
+            </Notice>
           ) : null}
           {flashCount > 0 ? (
             <Notice tone="danger">
