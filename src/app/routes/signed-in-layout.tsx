@@ -79,12 +79,13 @@ export function SignedInLayout() {
               {roleLabels[user.role]}
               {user.clientName ? ` · ${user.clientName}` : ''}
             </span>
-            <NavLink
+            <Link
               to="/account"
+              aria-current={pathname === '/account' ? 'page' : undefined}
               className="inline-flex min-h-touch items-center rounded-control px-2 font-medium text-spruce-700 underline"
             >
               Account
-            </NavLink>
+            </Link>
             <Button
               variant="secondary"
               busy={signOut.isPending}
