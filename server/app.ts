@@ -134,6 +134,7 @@ export function createApp(deps: AppDeps) {
     days,
     booking,
     issueSitterInvitationLink: (personId) => auth.issueSitterInvitationLink(personId),
+    reminderCooldownMs: config.reminderCooldownMs,
   });
   const progress = createProgressService({ db, days });
   const retouch = createRetouchService({

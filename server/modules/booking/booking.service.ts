@@ -29,6 +29,13 @@ export const bookingMailJob = 'booking-mail';
 
 const conflict = (code: string, message: string) => new AppError(code, 409, message);
 
+/** Says when the slot began, in the day's own clock, so the refusal explains itself. */
+const slotBegun = (day: daysRepo.DayRecord, startsAt: Date) =>
+  conflict(
+    'slot_past',
+    `That slot began at ${wallClockAt(startsAt.getTime(), day.timeZone).time} (${day.timeZone}): pick a later one.`,
+  );
+
 const isUniqueViolation = (error: unknown) =>
   typeof error === 'object' && error !== null && (error as { code?: unknown }).code === '23505';
 
@@ -164,17 +171,24 @@ export function createBookingService(deps: {
 
     async slots(viewer: Viewer, dayId: string): Promise<SlotList> {
       const day = await dayFor(viewer, dayId);
-      const taken = await repo.takenSeatsByStart(db, dayId);
-      const stations = day.stations.length;
+      const taken = await repo.takenStationsByStart(db, dayId);
       const now = clock.now().getTime();
+      const staff = viewer.role !== 'sitter';
       return {
         timeZone: day.timeZone,
+        stations: day.stations.map((station) => ({ id: station.id, name: station.name })),
+        // A slot that has begun cannot be booked by anyone, so nobody is offered one.
         slots: generateSlots(hoursOf(day))
-          .filter((slot) => viewer.role !== 'sitter' || Date.parse(slot.startsAt) > now)
-          .map((slot) => ({
-            ...slot,
-            free: Math.max(0, stations - (taken.get(slot.startsAt) ?? 0)),
-          })),
+          .filter((slot) => Date.parse(slot.startsAt) > now)
+          .map((slot) => {
+            const busy = taken.get(slot.startsAt);
+            const free = day.stations.filter((station) => !busy?.has(station.id));
+            return {
+              ...slot,
+              free: free.length,
+              ...(staff ? { freeStationIds: free.map((station) => station.id) } : {}),
+            };
+          }),
       };
     },
 
@@ -200,7 +214,17 @@ export function createBookingService(deps: {
       }
       const startsAt = new Date(input.startsAt);
       checkSlot(day, startsAt);
-      if (startsAt <= now) throw conflict('slot_past', 'That slot has already begun.');
+      if (startsAt <= now) throw slotBegun(day, startsAt);
+      if (input.stationId && viewer.role === 'sitter') {
+        throw new AppError('invalid_input', 400, 'The studio places sitters at stations.', {
+          fieldErrors: { stationId: ['Leave the station to the studio.'] },
+        });
+      }
+      if (input.stationId && !day.stations.some((station) => station.id === input.stationId)) {
+        throw new AppError('invalid_input', 400, 'That station is not one of this day’s.', {
+          fieldErrors: { stationId: ['Pick one of the day’s stations.'] },
+        });
+      }
 
       const outcome = await db.transaction().execute(async (trx) => {
         const person = await repo.lockPersonForDay(trx, personId, day.id);
@@ -225,6 +249,7 @@ export function createBookingService(deps: {
             accessNeeds: input.accessNeeds,
             flashSensitive: input.flashSensitive,
             bookedByUserId: viewer.kind === 'staff' ? viewer.id : null,
+            stationId: input.stationId ?? null,
           });
           if (claim.bookingId) {
             await addJob(trx, bookingMailJob, { bookingId: claim.bookingId, kind: 'booked' });
@@ -241,7 +266,9 @@ export function createBookingService(deps: {
             throw conflict('already_booked', 'You already have a slot that day: move it instead.');
           }
         }
-        throw conflict('slot_taken', 'That slot has just been taken. Please pick another.');
+        throw input.stationId
+          ? conflict('station_taken', 'That station is taken at that time: pick another.')
+          : conflict('slot_taken', 'That slot has just been taken. Please pick another.');
       });
       const booking = await repo.findBooking(db, outcome.id);
       if (!booking) throw notFound('That booking');
@@ -258,7 +285,7 @@ export function createBookingService(deps: {
       }
       const startsAt = new Date(startsAtText);
       checkSlot(day, startsAt);
-      if (startsAt <= clock.now()) throw conflict('slot_past', 'That slot has already begun.');
+      if (startsAt <= clock.now()) throw slotBegun(day, startsAt);
       try {
         await db.transaction().execute(async (trx) => {
           const locked = await repo.lockBooking(trx, id);

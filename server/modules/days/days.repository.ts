@@ -25,7 +25,7 @@ export interface DayRecord {
   changesCloseAt: Date;
   inviteBy: 'office' | 'department' | 'list';
   inviteDepartments: string[];
-  status: 'proposed' | 'confirmed';
+  status: 'proposed' | 'confirmed' | 'cancelled';
   reminderRounds: number;
   stations: Array<{
     id: string;

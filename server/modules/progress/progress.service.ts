@@ -8,6 +8,17 @@ import type { DaysService } from '../days/days.service';
 import { wallClockAt } from '../days/zoned-time';
 import { toCsv } from '../../lib/csv';
 
+async function invitationsSent(db: Db, dayId: string): Promise<Set<string>> {
+  const rows = await db
+    .selectFrom('dayMailings')
+    .select('personId')
+    .where('dayId', '=', dayId)
+    .where('kind', '=', 'invitation')
+    .where('status', '=', 'sent')
+    .execute();
+  return new Set(rows.map((row) => row.personId));
+}
+
 export type ProgressService = ReturnType<typeof createProgressService>;
 
 function groupBy(
@@ -83,8 +94,11 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
     const bookings = await bookingRepo.activeBookingsOfDay(db, dayId);
     const booked = new Set(bookings.map((booking) => booking.personId));
     const bookedInvited = people.filter((person) => booked.has(person.id)).length;
+    // "Invited" means mailed: a queued or failed invitation has not reached anyone yet.
+    const mailed = await invitationsSent(db, dayId);
     return {
-      invited: people.length,
+      listed: people.length,
+      invited: people.filter((person) => mailed.has(person.id)).length,
       booked: bookedInvited,
       unbooked: people.length - bookedInvited,
       byOffice: groupBy(people, booked, (person) => person.officeName ?? 'No office'),

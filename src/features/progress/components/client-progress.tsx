@@ -18,7 +18,7 @@ export function ClientProgressCard({
   return (
     <Card title={`${clientName}: booking progress`}>
       <p className="mb-3">
-        {progress.data.booked} of {progress.data.invited} invited people have a slot across{' '}
+        {progress.data.booked} booked; {progress.data.invited} invitations sent across{' '}
         {progress.data.days.length} day{progress.data.days.length === 1 ? '' : 's'}.
       </p>
       <ProgressChart
