@@ -135,7 +135,7 @@ export function createBookingService(deps: {
         [bookingMailJob]: async (payload) => {
           const { bookingId, kind } = payload as { bookingId?: unknown; kind?: unknown };
           if (typeof bookingId !== 'string') return;
-          if (kind === 'booked' || kind === 'moved' || kind === 'cancelled') {
+          if (kind === 'booked' || kind === 'moved' || kind === 'updated' || kind === 'cancelled') {
             await sendMail(kind, bookingId);
           }
         },

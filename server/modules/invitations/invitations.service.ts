@@ -109,6 +109,10 @@ export function createInvitationsService(deps: {
       await repo.markMailing(db, mailingId, 'failed', 'No longer on the roster', now);
       return;
     }
+    if (day.status === 'cancelled') {
+      await repo.markMailing(db, mailingId, 'failed', 'Not sent: the day was cancelled', now);
+      return;
+    }
     try {
       if (mailing.kind === 'day_before') {
         const held = await bookingRepo.activeBookingOf(db, day.id, mailing.personId);
@@ -163,11 +167,21 @@ export function createInvitationsService(deps: {
           return { queued: 0, alreadyQueued: 0, coolingDown: plan.coolingDown, nextReminderAt };
         }
         const round = await repo.bumpReminderRound(trx, day.id);
-        const ids = await repo.insertMailings(trx, day.id, plan.due, 'reminder', round, clock.now());
+        const ids = await repo.insertMailings(
+          trx,
+          day.id,
+          plan.due,
+          'reminder',
+          round,
+          clock.now(),
+        );
         await addJobs(
           trx,
           dayMailJob,
-          ids.map((mailingId) => ({ payload: { mailingId }, jobKey: `${dayMailJob}:${mailingId}` })),
+          ids.map((mailingId) => ({
+            payload: { mailingId },
+            jobKey: `${dayMailJob}:${mailingId}`,
+          })),
         );
         await recordAudit(trx, {
           actorUserId: viewer.kind === 'staff' ? viewer.id : null,
@@ -198,7 +212,10 @@ export function createInvitationsService(deps: {
         const reminded = plan.last.get(entry.personId);
         if (entry.kind !== 'reminder' || !reminded || latest.has(entry.personId)) return entry;
         latest.add(entry.personId);
-        return { ...entry, nextReminderAt: new Date(reminded.getTime() + cooldownMs).toISOString() };
+        return {
+          ...entry,
+          nextReminderAt: new Date(reminded.getTime() + cooldownMs).toISOString(),
+        };
       });
       return {
         ...log,
