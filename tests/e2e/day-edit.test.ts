@@ -47,10 +47,11 @@ describe('editing a day in the browser', () => {
     const context = await env.newContext();
     const page = await context.newPage();
     await signInWithPassword(page, admin.email, TEST_PASSWORD);
+    await page.getByRole('navigation', { name: 'Main' }).waitFor();
     await page.goto(`/days/${day.id}`);
     const form = page.getByRole('form', { name: 'Change this day' });
     await form.getByText('Every time here is Europe/London time', { exact: false }).waitFor();
-    await form.getByLabel('Closes').fill('11:00');
+    await form.getByLabel('Closes', { exact: true }).fill('11:00');
     await form.getByRole('button', { name: 'Check what this changes' }).click();
     const affected = form.getByRole('list', { name: 'Bookings that no longer fit' });
     await affected
@@ -91,6 +92,7 @@ describe('editing a day in the browser', () => {
     const context = await env.newContext({ timezoneId: 'UTC' });
     const page = await context.newPage();
     await signInWithPassword(page, admin.email, TEST_PASSWORD);
+    await page.getByRole('navigation', { name: 'Main' }).waitFor();
     await page.goto('/days');
     const form = page.getByRole('form', { name: 'Plan a shoot day' });
     if ((await form.getByLabel('Client').count()) > 0) {
