@@ -15,12 +15,19 @@ const inWindow = (date: string) => date >= earliestDayDate && date <= latestDayD
 const windowMessage = 'Pick a date between 2000 and 2099.';
 export const dayDate = z.iso
   .date({ error: 'Pick the date of the day.' })
-  .refine(inWindow, { error: windowMessage });
-export const instant = z.iso
-  .datetime({ offset: true, error: 'Enter a date and time.' })
-  .refine((value) => inWindow(new Date(value).toISOString().slice(0, 10)), {
+  .refine((date) => !/^\d{4}-\d{2}-\d{2}$/.test(date) || inWindow(date), {
     error: windowMessage,
   });
+export const instant = z.iso
+  .datetime({ offset: true, error: 'Enter a date and time.' })
+  .refine(
+    (value) => {
+      // A value that is not a date-time at all was already refused by the format check.
+      const at = Date.parse(value);
+      return Number.isNaN(at) || inWindow(new Date(at).toISOString().slice(0, 10));
+    },
+    { error: windowMessage },
+  );
 
 /**
  * Slot lengths that divide the hour, so slots line up with the clock (common practice for

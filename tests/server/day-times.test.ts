@@ -155,6 +155,9 @@ describe('day sanity', () => {
     await refusedOn({ date: '1900-01-01' }, 'date');
     await refusedOn({ date: '9999-12-31' }, 'date');
     await refusedOn({ bookingOpensAt: '1900-01-01T00:00:00Z' }, 'bookingOpensAt');
+    // Not a date-time at all: a field error, never a failure inside the window check.
+    await refusedOn({ bookingOpensAt: '', date: '' }, 'bookingOpensAt');
+    await refusedOn({ changesCloseAt: 'soon' }, 'changesCloseAt');
     // The day closes at 12:00 Amsterdam time, 11:00 UTC (winter time from 03:00 that morning,
     // the last Sunday of October; EU summer-time rule, from memory): later cut-offs are refused.
     await refusedOn({ bookingClosesAt: '2030-10-27T12:00:00Z' }, 'bookingClosesAt');
