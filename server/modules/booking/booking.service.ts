@@ -11,10 +11,11 @@ import type { Booking, CreateBookingInput, SitterDay } from '../../schemas/booki
 import type { SlotList } from '../../schemas/days';
 import * as daysRepo from '../days/days.repository';
 import { hoursOf, staffMaySee } from '../days/days.service';
-import { generateSlots, isSlotStart } from '../days/slots';
+import { generateSlots } from '../days/slots';
 import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
 import * as repo from './booking.repository';
 import { createBookingMailSender } from './booking.confirmation';
+import { checkSlot, recheckUnderLock, slotBegun } from './booking-checks';
 import { newPassToken, passPng } from './pass';
 
 const alreadyCheckedIn = () =>
@@ -28,13 +29,6 @@ export type BookingService = ReturnType<typeof createBookingService>;
 export const bookingMailJob = 'booking-mail';
 
 const conflict = (code: string, message: string) => new AppError(code, 409, message);
-
-/** Says when the slot began, in the day's own clock, so the refusal explains itself. */
-const slotBegun = (day: daysRepo.DayRecord, startsAt: Date) =>
-  conflict(
-    'slot_past',
-    `That slot began at ${wallClockAt(startsAt.getTime(), day.timeZone).time} (${day.timeZone}): pick a later one.`,
-  );
 
 const isUniqueViolation = (error: unknown) =>
   typeof error === 'object' && error !== null && (error as { code?: unknown }).code === '23505';
@@ -114,14 +108,6 @@ export function createBookingService(deps: {
     const slots = generateSlots(hoursOf(day));
     const last = slots.at(-1);
     return last ? now.getTime() < Date.parse(last.endsAt) : false;
-  }
-
-  function checkSlot(day: daysRepo.DayRecord, startsAt: Date) {
-    if (!isSlotStart(hoursOf(day), startsAt)) {
-      throw new AppError('invalid_input', 400, 'That is not one of the day’s slots.', {
-        fieldErrors: { startsAt: ['Pick one of the listed slots.'] },
-      });
-    }
   }
 
   const sendMail = createBookingMailSender({ db, clock, mailer, config });
@@ -213,7 +199,7 @@ export function createBookingService(deps: {
         throw conflict('booking_closed', 'Booking for this day is not open right now.');
       }
       const startsAt = new Date(input.startsAt);
-      checkSlot(day, startsAt);
+      checkSlot(hoursOf(day), startsAt);
       if (startsAt <= now) throw slotBegun(day, startsAt);
       if (input.stationId && viewer.role === 'sitter') {
         throw new AppError('invalid_input', 400, 'The studio places sitters at stations.', {
@@ -227,6 +213,7 @@ export function createBookingService(deps: {
       }
 
       const outcome = await db.transaction().execute(async (trx) => {
+        await recheckUnderLock(trx, day.id, startsAt);
         const person = await repo.lockPersonForDay(trx, personId, day.id);
         if (!person?.active || person.clientId !== day.clientId) throw notFound('That person');
         if (person.bookingId && person.startsAt) {
@@ -284,10 +271,11 @@ export function createBookingService(deps: {
         );
       }
       const startsAt = new Date(startsAtText);
-      checkSlot(day, startsAt);
+      checkSlot(hoursOf(day), startsAt);
       if (startsAt <= clock.now()) throw slotBegun(day, startsAt);
       try {
         await db.transaction().execute(async (trx) => {
+          await recheckUnderLock(trx, day.id, startsAt);
           const locked = await repo.lockBooking(trx, id);
           if (locked?.status !== 'active')
             throw conflict('booking_cancelled', 'That booking was cancelled.');

@@ -99,6 +99,28 @@ export async function lockDay(trx: Transaction<Database>, id: string): Promise<v
   await trx.selectFrom('shootDays').select('id').where('id', '=', id).forUpdate().execute();
 }
 
+/**
+ * Reads the day's hours under a shared lock: bookings take it so that a day edit (which locks
+ * the row for update) cannot change the hours between a booking's slot check and its insert.
+ */
+export async function lockDayHoursShared(trx: Transaction<Database>, id: string) {
+  const row = await trx
+    .selectFrom('shootDays')
+    .select([
+      sql<string>`to_char(day_date, 'YYYY-MM-DD')`.as('date'),
+      'timeZone',
+      'opensAt',
+      'closesAt',
+      'breaks',
+      'slotMinutes',
+      'status',
+    ])
+    .where('id', '=', id)
+    .forShare()
+    .executeTakeFirst();
+  return row;
+}
+
 export async function officeTimeZone(
   db: Executor,
   officeId: string,

@@ -24,7 +24,7 @@ export function ClientProgressCard({
       <ProgressChart
         title="By day"
         groups={progress.data.days.map((day) => ({
-          label: day.status === 'proposed' ? `${day.label} (proposed)` : day.label,
+          label: day.status === 'confirmed' ? day.label : `${day.label} (${day.status})`,
           invited: day.invited,
           booked: day.booked,
         }))}
