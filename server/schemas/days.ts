@@ -18,16 +18,14 @@ export const dayDate = z.iso
   .refine((date) => !/^\d{4}-\d{2}-\d{2}$/.test(date) || inWindow(date), {
     error: windowMessage,
   });
-export const instant = z.iso
-  .datetime({ offset: true, error: 'Enter a date and time.' })
-  .refine(
-    (value) => {
-      // A value that is not a date-time at all was already refused by the format check.
-      const at = Date.parse(value);
-      return Number.isNaN(at) || inWindow(new Date(at).toISOString().slice(0, 10));
-    },
-    { error: windowMessage },
-  );
+export const instant = z.iso.datetime({ offset: true, error: 'Enter a date and time.' }).refine(
+  (value) => {
+    // A value that is not a date-time at all was already refused by the format check.
+    const at = Date.parse(value);
+    return Number.isNaN(at) || inWindow(new Date(at).toISOString().slice(0, 10));
+  },
+  { error: windowMessage },
+);
 
 /**
  * Slot lengths that divide the hour, so slots line up with the clock (common practice for

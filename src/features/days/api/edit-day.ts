@@ -13,6 +13,7 @@ export function useEditDay() {
   return useMutation({
     mutationFn: editDay,
     // The day, its slots, bookings, progress and proposals all change with it.
-    onSuccess: (_result, input) => queryClient.invalidateQueries({ queryKey: ['days', input.dayId] }),
+    onSuccess: (_result, input) =>
+      queryClient.invalidateQueries({ queryKey: ['days', input.dayId] }),
   });
 }
