@@ -69,13 +69,13 @@ export function createInvitationsService(deps: {
   async function queue(
     viewer: Viewer | null,
     day: daysRepo.DayRecord,
-    kind: 'invitation' | 'reminder' | 'day_before',
+    // Reminders have their own path (remind), with the cool-down under the same lock.
+    kind: 'invitation' | 'day_before',
     personIds: string[],
   ): Promise<QueuedMailings> {
     const inserted = await db.transaction().execute(async (trx) => {
       await daysRepo.lockDay(trx, day.id);
-      const round = kind === 'reminder' ? await repo.bumpReminderRound(trx, day.id) : 1;
-      const ids = await repo.insertMailings(trx, day.id, personIds, kind, round);
+      const ids = await repo.insertMailings(trx, day.id, personIds, kind, 1);
       await addJobs(
         trx,
         dayMailJob,
