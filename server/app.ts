@@ -44,6 +44,8 @@ import { createPortraitsService } from './modules/looks/portraits.service';
 import { registerRetouchRoutes } from './modules/retouch/retouch.routes';
 import { createRetouchService } from './modules/retouch/retouch.service';
 import { createMatchingService } from './modules/matching/matching.service';
+import { registerDayChangesRoutes } from './modules/days/day-changes.routes';
+import { createDayChangesService } from './modules/days/day-changes.service';
 import { createInvitationsService } from './modules/invitations/invitations.service';
 import { registerProgressRoutes } from './modules/progress/progress.routes';
 import { createProgressService } from './modules/progress/progress.service';
@@ -147,6 +149,7 @@ export function createApp(deps: AppDeps) {
     days,
     booking,
     issueSitterInvitationLink: (personId) => auth.issueSitterInvitationLink(personId),
+    reminderCooldownMs: config.reminderCooldownMs,
   });
   const progress = createProgressService({ db, days });
   const retouch = createRetouchService({
@@ -192,6 +195,7 @@ export function createApp(deps: AppDeps) {
   registerRosterRoutes(routes, roster);
   registerPeopleRoutes(routes, people);
   registerDaysRoutes(routes, days, booking);
+  registerDayChangesRoutes(routes, createDayChangesService({ db, clock }));
   registerBookingRoutes(routes, booking);
   registerProgressRoutes(routes, progress, invitations);
   registerSetupCardsRoutes(routes, createSetupCardsService({ db }));

@@ -79,6 +79,8 @@ export const configSchema = z.object({
   /** Written as the credit (and in the copyright) of delivered portraits. */
   STUDIO_NAME: z.string().min(1).max(100).default('Northlight Portrait Co.'),
   PROOF_URL_TTL_MINUTES: z.coerce.number().int().min(1).max(1440).default(60),
+  /** A person gets at most one booking reminder per day within this many hours. */
+  REMINDER_COOLDOWN_HOURS: z.coerce.number().min(0).max(720).default(24),
 });
 
 export type RawConfig = z.infer<typeof configSchema>;
@@ -104,6 +106,7 @@ export interface AppConfig {
   uploads: { folder: string; maxBytes: number; maxPixels: number };
   /** Proof previews are served through signed URLs that expire. */
   proofUrls: { secret: string; ttlMs: number };
+  reminderCooldownMs: number;
 }
 
 /**
@@ -160,6 +163,7 @@ export function toAppConfig(raw: RawConfig): AppConfig {
       secret: raw.URL_SIGNING_SECRET ?? randomBytes(32).toString('hex'),
       ttlMs: raw.PROOF_URL_TTL_MINUTES * MINUTE,
     },
+    reminderCooldownMs: raw.REMINDER_COOLDOWN_HOURS * HOUR,
   };
 }
 

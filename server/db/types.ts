@@ -5,6 +5,7 @@ import type {
   SittingsTable,
   StationActionsTable,
 } from './console-types';
+import type { DayChangeProposalsTable } from './day-change-types';
 import type { FrameUploadsTable, FramesTable } from './frame-types';
 import type { InvoiceSequencesTable, InvoicesTable, PriceListsTable } from './invoice-types';
 import type {
@@ -153,7 +154,7 @@ export interface ShootDaysTable {
   changesCloseAt: Timestamp;
   inviteBy: 'office' | 'department' | 'list';
   inviteDepartments: ColumnType<string[], string | undefined, string>;
-  status: 'proposed' | 'confirmed';
+  status: 'proposed' | 'confirmed' | 'cancelled';
   reminderRounds: Generated<number>;
   noShowGraceMinutes: Generated<number>;
   createdByUserId: string | null;
@@ -247,6 +248,7 @@ export interface Database {
   priceLists: PriceListsTable;
   invoiceSequences: InvoiceSequencesTable;
   invoices: InvoicesTable;
+  dayChangeProposals: DayChangeProposalsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -28,6 +28,8 @@ export const createBookingRequestSchema = sittingNeedsSchema.extend({
   startsAt: instant,
   /** Only coordinators and the studio book for someone else; a sitter's own id comes from the session. */
   personId: uuidSchema.optional(),
+  /** Staff may seat the person at a chosen station; without it any free station is taken. */
+  stationId: uuidSchema.optional(),
 });
 export type CreateBookingRequest = z.input<typeof createBookingRequestSchema>;
 export type CreateBookingInput = z.output<typeof createBookingRequestSchema>;

@@ -1,11 +1,45 @@
 import { z } from 'zod';
 import { uuidSchema } from './common';
 
-const clockTime = z
+export const clockTime = z
   .string({ error: 'Enter a time like 09:00.' })
   .regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Enter a time like 09:00.' });
 const minutesOf = (time: string) => Number(time.slice(0, 2)) * 60 + Number(time.slice(3, 5));
-const instant = z.iso.datetime({ offset: true, error: 'Enter a date and time.' });
+/**
+ * Dates and instants inside a window a real shoot day can use: a typo such as 1900-01-01 or
+ * 9999-12-31 is refused rather than stored (the service also refuses a new day in the past).
+ */
+export const earliestDayDate = '2000-01-01';
+export const latestDayDate = '2099-12-31';
+const inWindow = (date: string) => date >= earliestDayDate && date <= latestDayDate;
+const windowMessage = 'Pick a date between 2000 and 2099.';
+export const dayDate = z.iso
+  .date({ error: 'Pick the date of the day.' })
+  .refine((date) => !/^\d{4}-\d{2}-\d{2}$/.test(date) || inWindow(date), {
+    error: windowMessage,
+  });
+export const instant = z.iso.datetime({ offset: true, error: 'Enter a date and time.' }).refine(
+  (value) => {
+    // A value that is not a date-time at all was already refused by the format check.
+    const at = Date.parse(value);
+    return Number.isNaN(at) || inWindow(new Date(at).toISOString().slice(0, 10));
+  },
+  { error: windowMessage },
+);
+
+/**
+ * Slot lengths that divide the hour, so slots line up with the clock (common practice for
+ * booking sheets). A number is required as a number: "0x0a" or "1e1" are not coerced.
+ */
+export const slotMinuteChoices = [3, 4, 5, 6, 10, 12, 15, 20, 30, 60] as const;
+export const slotMinutesSchema = z
+  .number({ error: 'Enter the slot length in minutes.' })
+  .int({ error: 'Use whole minutes.' })
+  .refine((value) => (slotMinuteChoices as readonly number[]).includes(value), {
+    error: `Use one of ${slotMinuteChoices.join(', ')} minutes.`,
+  });
+
+export const minutesOfClock = minutesOf;
 
 export const breakSchema = z
   .object({ start: clockTime, end: clockTime })
@@ -23,18 +57,13 @@ export const createDayRequestSchema = z
   .object({
     clientId: uuidSchema,
     officeId: uuidSchema,
-    date: z.iso.date({ error: 'Pick the date of the day.' }),
+    date: dayDate,
     address: z.string().trim().min(3, { error: 'Enter the address.' }).max(300),
     room: z.string().trim().max(120).default(''),
     opensAt: clockTime,
     closesAt: clockTime,
     breaks: z.array(breakSchema).max(6).default([]),
-    slotMinutes: z.coerce
-      .number({ error: 'Enter the slot length in minutes.' })
-      .int()
-      .min(3, { error: 'Use at least 3 minutes.' })
-      .max(60, { error: 'Use at most 60 minutes.' })
-      .default(5),
+    slotMinutes: slotMinutesSchema.default(5),
     bookingOpensAt: instant,
     bookingClosesAt: instant,
     changesCloseAt: instant,
@@ -98,7 +127,7 @@ export const daySchema = z.object({
   changesCloseAt: z.string(),
   inviteBy: z.enum(['office', 'department', 'list']),
   inviteDepartments: z.array(z.string()),
-  status: z.enum(['proposed', 'confirmed']),
+  status: z.enum(['proposed', 'confirmed', 'cancelled']),
   stations: z.array(stationSchema),
   seats: z.number(),
   booked: z.number(),
@@ -112,9 +141,15 @@ export const slotSchema = z.object({
   localTime: z.string(),
   offset: z.string(),
   free: z.number(),
+  /** Staff only: the stations still free at this time, so a booking can name one. */
+  freeStationIds: z.array(z.string()).optional(),
 });
 export type SlotWithSeats = z.infer<typeof slotSchema>;
-export type SlotList = { timeZone: string; slots: SlotWithSeats[] };
+export type SlotList = {
+  timeZone: string;
+  stations: Array<{ id: string; name: string }>;
+  slots: SlotWithSeats[];
+};
 
 export const mailingKinds = [
   'invitation',
@@ -137,11 +172,27 @@ export interface MailingLog {
     status: 'queued' | 'sent' | 'failed';
     reason: string | null;
     updatedAt: string;
+    /** On a person's latest reminder: when the cool-down lets them have another. */
+    nextReminderAt: string | null;
   }>;
+  reminders: ReminderState;
+}
+/** One reminder per person and day within the cool-down; the panel shows what is possible. */
+export interface ReminderState {
+  cooldownHours: number;
+  /** Unbooked people a reminder would go to now. */
+  dueNow: number;
+  /** Unbooked people reminded within the cool-down. */
+  coolingDown: number;
+  /** When the next of those becomes due again; null when none is waiting. */
+  nextAt: string | null;
 }
 export interface QueuedMailings {
   queued: number;
   alreadyQueued: number;
+  /** Reminders only: people skipped because they were reminded within the cool-down. */
+  coolingDown?: number;
+  nextReminderAt?: string | null;
 }
 
 /**
@@ -159,7 +210,9 @@ export interface ProgressGroup extends ProgressCounts {
   label: string;
 }
 export interface DayProgress extends ProgressCounts {
-  /** Invited people without a booking (no-shows did book, so they are not here). */
+  /** People the day's rule invites (its list); `invited` counts only those actually mailed. */
+  listed: number;
+  /** Listed people without a booking (no-shows did book, so they are not here). */
   unbooked: number;
   byOffice: ProgressGroup[];
   byDepartment: ProgressGroup[];
@@ -205,7 +258,7 @@ export interface ClientProgress extends ProgressCounts {
     ProgressCounts & {
       dayId: string;
       label: string;
-      status: 'proposed' | 'confirmed';
+      status: 'proposed' | 'confirmed' | 'cancelled';
     }
   >;
   byOffice: ProgressGroup[];

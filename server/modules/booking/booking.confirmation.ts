@@ -8,7 +8,7 @@ import * as repo from './booking.repository';
 import { writeIcs } from './ics';
 import { passPng } from './pass';
 
-export type BookingMailKind = 'booked' | 'moved' | 'cancelled' | 'day_before';
+export type BookingMailKind = 'booked' | 'moved' | 'updated' | 'cancelled' | 'day_before';
 
 /**
  * Sends a sitter the message for their booking as it stands now: the pass as an inline PNG

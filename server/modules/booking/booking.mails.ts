@@ -30,7 +30,7 @@ export function localWhen(startsAt: Date, timeZone: string): string {
 const place = (day: DayRecord) => (day.room ? `${day.room}, ${day.address}` : day.address);
 
 export function bookingMail(input: {
-  kind: 'booked' | 'moved' | 'cancelled' | 'day_before';
+  kind: 'booked' | 'moved' | 'updated' | 'cancelled' | 'day_before';
   to: string;
   name: string;
   day: DayRecord;
@@ -44,12 +44,14 @@ export function bookingMail(input: {
   const subjects = {
     booked: `Your portrait sitting for ${client} is booked`,
     moved: `Your portrait sitting for ${client} has moved`,
+    updated: `Your portrait sitting for ${client} has changed`,
     cancelled: `Your portrait sitting for ${client} is cancelled`,
     day_before: `Tomorrow: your portrait sitting for ${client}`,
   };
   const opening = {
     booked: `You are booked for ${when}.`,
     moved: `Your sitting is now ${when}.`,
+    updated: `The studio changed the details of your sitting on ${when}.`,
     cancelled: `Your sitting on ${when} is cancelled. You can book another slot from your page.`,
     day_before: `See you tomorrow, ${when}.`,
   };

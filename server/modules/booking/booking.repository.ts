@@ -130,12 +130,15 @@ export async function claimSeat(
     accessNeeds: string | null;
     flashSensitive: boolean;
     bookedByUserId: string | null;
+    /** The station staff asked for; null lets the database pick any free one. */
+    stationId?: string | null;
   },
 ): Promise<{ bookingId: string | null; candidates: number }> {
   const result = await sql<{ bookingId: string | null; candidates: string }>`
     with chosen as (
       select stations.id from stations
       where stations.day_id = ${values.dayId}::uuid
+        and (${values.stationId ?? null}::uuid is null or stations.id = ${values.stationId ?? null}::uuid)
         and not exists (
           select 1 from bookings
           where bookings.station_id = stations.id
@@ -228,6 +231,27 @@ export async function takenSeatsByStart(db: Executor, dayId: string): Promise<Ma
     .groupBy('startsAt')
     .execute();
   return new Map(rows.map((row) => [new Date(row.startsAt).toISOString(), Number(row.n)]));
+}
+
+/** The stations holding an active booking at each slot start, for naming the free ones. */
+export async function takenStationsByStart(
+  db: Executor,
+  dayId: string,
+): Promise<Map<string, Set<string>>> {
+  const rows = await db
+    .selectFrom('bookings')
+    .select(['startsAt', 'stationId'])
+    .where('dayId', '=', dayId)
+    .where('status', '=', 'active')
+    .execute();
+  const taken = new Map<string, Set<string>>();
+  for (const row of rows) {
+    const key = new Date(row.startsAt).toISOString();
+    const stations = taken.get(key) ?? new Set<string>();
+    stations.add(row.stationId);
+    taken.set(key, stations);
+  }
+  return taken;
 }
 
 export async function confirmedDaysOfClient(db: Executor, clientId: string): Promise<string[]> {

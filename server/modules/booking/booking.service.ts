@@ -11,10 +11,11 @@ import type { Booking, CreateBookingInput, SitterDay } from '../../schemas/booki
 import type { SlotList } from '../../schemas/days';
 import * as daysRepo from '../days/days.repository';
 import { hoursOf, staffMaySee } from '../days/days.service';
-import { generateSlots, isSlotStart } from '../days/slots';
+import { generateSlots } from '../days/slots';
 import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
 import * as repo from './booking.repository';
 import { createBookingMailSender } from './booking.confirmation';
+import { checkSlot, recheckUnderLock, slotBegun } from './booking-checks';
 import { newPassToken, passPng } from './pass';
 
 const alreadyCheckedIn = () =>
@@ -109,14 +110,6 @@ export function createBookingService(deps: {
     return last ? now.getTime() < Date.parse(last.endsAt) : false;
   }
 
-  function checkSlot(day: daysRepo.DayRecord, startsAt: Date) {
-    if (!isSlotStart(hoursOf(day), startsAt)) {
-      throw new AppError('invalid_input', 400, 'That is not one of the day’s slots.', {
-        fieldErrors: { startsAt: ['Pick one of the listed slots.'] },
-      });
-    }
-  }
-
   const sendMail = createBookingMailSender({ db, clock, mailer, config });
 
   return {
@@ -128,7 +121,7 @@ export function createBookingService(deps: {
         [bookingMailJob]: async (payload) => {
           const { bookingId, kind } = payload as { bookingId?: unknown; kind?: unknown };
           if (typeof bookingId !== 'string') return;
-          if (kind === 'booked' || kind === 'moved' || kind === 'cancelled') {
+          if (kind === 'booked' || kind === 'moved' || kind === 'updated' || kind === 'cancelled') {
             await sendMail(kind, bookingId);
           }
         },
@@ -164,17 +157,24 @@ export function createBookingService(deps: {
 
     async slots(viewer: Viewer, dayId: string): Promise<SlotList> {
       const day = await dayFor(viewer, dayId);
-      const taken = await repo.takenSeatsByStart(db, dayId);
-      const stations = day.stations.length;
+      const taken = await repo.takenStationsByStart(db, dayId);
       const now = clock.now().getTime();
+      const staff = viewer.role !== 'sitter';
       return {
         timeZone: day.timeZone,
+        stations: day.stations.map((station) => ({ id: station.id, name: station.name })),
+        // A slot that has begun cannot be booked by anyone, so nobody is offered one.
         slots: generateSlots(hoursOf(day))
-          .filter((slot) => viewer.role !== 'sitter' || Date.parse(slot.startsAt) > now)
-          .map((slot) => ({
-            ...slot,
-            free: Math.max(0, stations - (taken.get(slot.startsAt) ?? 0)),
-          })),
+          .filter((slot) => Date.parse(slot.startsAt) > now)
+          .map((slot) => {
+            const busy = taken.get(slot.startsAt);
+            const free = day.stations.filter((station) => !busy?.has(station.id));
+            return {
+              ...slot,
+              free: free.length,
+              ...(staff ? { freeStationIds: free.map((station) => station.id) } : {}),
+            };
+          }),
       };
     },
 
@@ -199,10 +199,21 @@ export function createBookingService(deps: {
         throw conflict('booking_closed', 'Booking for this day is not open right now.');
       }
       const startsAt = new Date(input.startsAt);
-      checkSlot(day, startsAt);
-      if (startsAt <= now) throw conflict('slot_past', 'That slot has already begun.');
+      checkSlot(hoursOf(day), startsAt);
+      if (startsAt <= now) throw slotBegun(day, startsAt);
+      if (input.stationId && viewer.role === 'sitter') {
+        throw new AppError('invalid_input', 400, 'The studio places sitters at stations.', {
+          fieldErrors: { stationId: ['Leave the station to the studio.'] },
+        });
+      }
+      if (input.stationId && !day.stations.some((station) => station.id === input.stationId)) {
+        throw new AppError('invalid_input', 400, 'That station is not one of this day’s.', {
+          fieldErrors: { stationId: ['Pick one of the day’s stations.'] },
+        });
+      }
 
       const outcome = await db.transaction().execute(async (trx) => {
+        await recheckUnderLock(trx, day.id, startsAt);
         const person = await repo.lockPersonForDay(trx, personId, day.id);
         if (!person?.active || person.clientId !== day.clientId) throw notFound('That person');
         if (person.bookingId && person.startsAt) {
@@ -225,6 +236,7 @@ export function createBookingService(deps: {
             accessNeeds: input.accessNeeds,
             flashSensitive: input.flashSensitive,
             bookedByUserId: viewer.kind === 'staff' ? viewer.id : null,
+            stationId: input.stationId ?? null,
           });
           if (claim.bookingId) {
             await addJob(trx, bookingMailJob, { bookingId: claim.bookingId, kind: 'booked' });
@@ -241,7 +253,9 @@ export function createBookingService(deps: {
             throw conflict('already_booked', 'You already have a slot that day: move it instead.');
           }
         }
-        throw conflict('slot_taken', 'That slot has just been taken. Please pick another.');
+        throw input.stationId
+          ? conflict('station_taken', 'That station is taken at that time: pick another.')
+          : conflict('slot_taken', 'That slot has just been taken. Please pick another.');
       });
       const booking = await repo.findBooking(db, outcome.id);
       if (!booking) throw notFound('That booking');
@@ -257,10 +271,11 @@ export function createBookingService(deps: {
         );
       }
       const startsAt = new Date(startsAtText);
-      checkSlot(day, startsAt);
-      if (startsAt <= clock.now()) throw conflict('slot_past', 'That slot has already begun.');
+      checkSlot(hoursOf(day), startsAt);
+      if (startsAt <= clock.now()) throw slotBegun(day, startsAt);
       try {
         await db.transaction().execute(async (trx) => {
+          await recheckUnderLock(trx, day.id, startsAt);
           const locked = await repo.lockBooking(trx, id);
           if (locked?.status !== 'active')
             throw conflict('booking_cancelled', 'That booking was cancelled.');

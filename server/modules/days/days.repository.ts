@@ -25,7 +25,7 @@ export interface DayRecord {
   changesCloseAt: Date;
   inviteBy: 'office' | 'department' | 'list';
   inviteDepartments: string[];
-  status: 'proposed' | 'confirmed';
+  status: 'proposed' | 'confirmed' | 'cancelled';
   reminderRounds: number;
   stations: Array<{
     id: string;
@@ -97,6 +97,28 @@ export async function findDay(db: Executor, id: string): Promise<DayRecord | und
 /** Locks the day row: used when a change must not race with another change to the day. */
 export async function lockDay(trx: Transaction<Database>, id: string): Promise<void> {
   await trx.selectFrom('shootDays').select('id').where('id', '=', id).forUpdate().execute();
+}
+
+/**
+ * Reads the day's hours under a shared lock: bookings take it so that a day edit (which locks
+ * the row for update) cannot change the hours between a booking's slot check and its insert.
+ */
+export async function lockDayHoursShared(trx: Transaction<Database>, id: string) {
+  const row = await trx
+    .selectFrom('shootDays')
+    .select([
+      sql<string>`to_char(day_date, 'YYYY-MM-DD')`.as('date'),
+      'timeZone',
+      'opensAt',
+      'closesAt',
+      'breaks',
+      'slotMinutes',
+      'status',
+    ])
+    .where('id', '=', id)
+    .forShare()
+    .executeTakeFirst();
+  return row;
 }
 
 export async function officeTimeZone(

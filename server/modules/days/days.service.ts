@@ -3,6 +3,7 @@ import { recordAudit } from '../../lib/audit';
 import { AppError, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import type { ConfirmDayRequest, CreateDayInput, Day } from '../../schemas/days';
+import { dayTimesProblem } from './day-rules';
 import * as repo from './days.repository';
 import { generateSlots, type DayHours } from './slots';
 
@@ -39,7 +40,7 @@ export function toDayDto(day: repo.DayRecord, booked: number): Day {
   };
 }
 
-const fieldError = (field: string, message: string, status = 400) =>
+export const fieldError = (field: string, message: string, status = 400) =>
   new AppError('invalid_input', status, message, { fieldErrors: { [field]: [message] } });
 
 export function createDaysService(deps: { db: Db }) {
@@ -99,10 +100,8 @@ export function createDaysService(deps: { db: Db }) {
           throw fieldError('invitePersonIds', 'Pick people from this client’s roster.');
         }
       }
-      const hours = { ...input, date: input.date, timeZone };
-      if (generateSlots(hours).length === 0) {
-        throw fieldError('closesAt', 'These hours leave no slot: open longer or shorten breaks.');
-      }
+      const problem = dayTimesProblem({ ...input, timeZone }, input);
+      if (problem) throw fieldError(problem.field, problem.message);
       const id = await db.transaction().execute(async (trx) => {
         const dayId = await repo.insertDay(
           trx,

@@ -12,11 +12,12 @@ export async function insertMailings(
   personIds: string[],
   kind: MailingKind,
   round: number,
+  queuedAt?: Date,
 ): Promise<string[]> {
   if (personIds.length === 0) return [];
   const rows = await trx
     .insertInto('dayMailings')
-    .values(personIds.map((personId) => ({ dayId, personId, kind, round })))
+    .values(personIds.map((personId) => ({ dayId, personId, kind, round, queuedAt })))
     .onConflict((conflict) => conflict.columns(['dayId', 'personId', 'kind', 'round']).doNothing())
     .returning('id')
     .execute();
@@ -65,7 +66,10 @@ export async function markMailing(
     .execute();
 }
 
-export async function mailingLog(db: Executor, dayId: string): Promise<MailingLog> {
+export async function mailingLog(
+  db: Executor,
+  dayId: string,
+): Promise<Omit<MailingLog, 'reminders'>> {
   const rows = await db
     .selectFrom('dayMailings')
     .innerJoin('people', 'people.id', 'dayMailings.personId')
@@ -89,7 +93,11 @@ export async function mailingLog(db: Executor, dayId: string): Promise<MailingLo
   for (const row of rows) counts[row.status] += 1;
   return {
     counts,
-    entries: rows.map((row) => ({ ...row, updatedAt: new Date(row.updatedAt).toISOString() })),
+    entries: rows.map((row) => ({
+      ...row,
+      updatedAt: new Date(row.updatedAt).toISOString(),
+      nextReminderAt: null,
+    })),
   };
 }
 
@@ -124,4 +132,16 @@ export async function upcomingDayIds(db: Executor, now: Date): Promise<string[]>
     )
     .execute();
   return rows.map((row) => row.id);
+}
+
+/** When each person of the day was last reminded (queued), for the reminder cool-down. */
+export async function lastRemindedAt(db: Executor, dayId: string): Promise<Map<string, Date>> {
+  const rows = await db
+    .selectFrom('dayMailings')
+    .select(['personId', (eb) => eb.fn.max('queuedAt').as('last')])
+    .where('dayId', '=', dayId)
+    .where('kind', '=', 'reminder')
+    .groupBy('personId')
+    .execute();
+  return new Map(rows.map((row) => [row.personId, new Date(row.last)]));
 }

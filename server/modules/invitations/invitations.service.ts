@@ -24,8 +24,33 @@ export function createInvitationsService(deps: {
   days: DaysService;
   booking: BookingService;
   issueSitterInvitationLink: (personId: string) => Promise<string>;
+  /** One reminder per person and day within this time (REMINDER_COOLDOWN_HOURS). */
+  reminderCooldownMs?: number;
 }) {
   const { db, clock, mailer, days, booking } = deps;
+  const cooldownMs = deps.reminderCooldownMs ?? 24 * 3_600_000;
+
+  /** Who a reminder would reach now, and who waits out the cool-down (until when). */
+  async function reminderPlan(executor: Db, day: daysRepo.DayRecord) {
+    const booked = await repo.bookedPersonIds(executor, day.id);
+    const unbooked = (await invitedIds(day)).filter((id) => !booked.has(id));
+    const last = await repo.lastRemindedAt(executor, day.id);
+    const now = clock.now().getTime();
+    const due: string[] = [];
+    let coolingDown = 0;
+    let nextAt: number | null = null;
+    for (const personId of unbooked) {
+      const reminded = last.get(personId);
+      const freeAt = reminded ? reminded.getTime() + cooldownMs : 0;
+      if (freeAt <= now) {
+        due.push(personId);
+      } else {
+        coolingDown += 1;
+        nextAt = nextAt === null ? freeAt : Math.min(nextAt, freeAt);
+      }
+    }
+    return { due, coolingDown, nextAt: nextAt === null ? null : new Date(nextAt), last };
+  }
 
   async function confirmedDay(viewer: Viewer, dayId: string) {
     const day = await days.visibleDay(viewer, dayId);
@@ -44,13 +69,13 @@ export function createInvitationsService(deps: {
   async function queue(
     viewer: Viewer | null,
     day: daysRepo.DayRecord,
-    kind: 'invitation' | 'reminder' | 'day_before',
+    // Reminders have their own path (remind), with the cool-down under the same lock.
+    kind: 'invitation' | 'day_before',
     personIds: string[],
   ): Promise<QueuedMailings> {
     const inserted = await db.transaction().execute(async (trx) => {
       await daysRepo.lockDay(trx, day.id);
-      const round = kind === 'reminder' ? await repo.bumpReminderRound(trx, day.id) : 1;
-      const ids = await repo.insertMailings(trx, day.id, personIds, kind, round);
+      const ids = await repo.insertMailings(trx, day.id, personIds, kind, 1);
       await addJobs(
         trx,
         dayMailJob,
@@ -82,6 +107,10 @@ export function createInvitationsService(deps: {
     const now = clock.now();
     if (!day || !mailing.active) {
       await repo.markMailing(db, mailingId, 'failed', 'No longer on the roster', now);
+      return;
+    }
+    if (day.status === 'cancelled') {
+      await repo.markMailing(db, mailingId, 'failed', 'Not sent: the day was cancelled', now);
       return;
     }
     try {
@@ -123,17 +152,81 @@ export function createInvitationsService(deps: {
       return { ...result, alreadyQueued: result.alreadyQueued + already.size };
     },
 
+    /**
+     * Reminds the unbooked who have not had a reminder within the cool-down; the others are
+     * counted, not mailed, so pressing the button again sends nothing new (and no new link).
+     */
     async remind(viewer: Viewer, dayId: string): Promise<QueuedMailings> {
       const day = await confirmedDay(viewer, dayId);
-      const booked = await repo.bookedPersonIds(db, dayId);
-      const unbooked = (await invitedIds(day)).filter((id) => !booked.has(id));
-      if (unbooked.length === 0) return { queued: 0, alreadyQueued: 0 };
-      return queue(viewer, day, 'reminder', unbooked);
+      return db.transaction().execute(async (trx) => {
+        // Under the day's lock, so two presses at once cannot both find the same people due.
+        await daysRepo.lockDay(trx, day.id);
+        const plan = await reminderPlan(trx, day);
+        const nextReminderAt = plan.nextAt?.toISOString() ?? null;
+        if (plan.due.length === 0) {
+          return { queued: 0, alreadyQueued: 0, coolingDown: plan.coolingDown, nextReminderAt };
+        }
+        const round = await repo.bumpReminderRound(trx, day.id);
+        const ids = await repo.insertMailings(
+          trx,
+          day.id,
+          plan.due,
+          'reminder',
+          round,
+          clock.now(),
+        );
+        await addJobs(
+          trx,
+          dayMailJob,
+          ids.map((mailingId) => ({
+            payload: { mailingId },
+            jobKey: `${dayMailJob}:${mailingId}`,
+          })),
+        );
+        await recordAudit(trx, {
+          actorUserId: viewer.kind === 'staff' ? viewer.id : null,
+          action: 'day.reminder_queued',
+          subjectType: 'shoot_day',
+          subjectId: day.id,
+          details: { count: ids.length, coolingDown: plan.coolingDown },
+        });
+        // Everyone just reminded now waits out the cool-down too.
+        const justNow = clock.now().getTime() + cooldownMs;
+        const next = plan.nextAt ? Math.min(plan.nextAt.getTime(), justNow) : justNow;
+        return {
+          queued: ids.length,
+          alreadyQueued: plan.due.length - ids.length,
+          coolingDown: plan.coolingDown,
+          nextReminderAt: new Date(next).toISOString(),
+        };
+      });
     },
 
     async log(viewer: Viewer, dayId: string): Promise<MailingLog> {
-      await days.visibleDay(viewer, dayId);
-      return repo.mailingLog(db, dayId);
+      const day = await days.visibleDay(viewer, dayId);
+      const log = await repo.mailingLog(db, dayId);
+      const plan = await reminderPlan(db, day);
+      // The latest reminder row of each person says when their next one is possible.
+      const latest = new Set<string>();
+      const entries = log.entries.map((entry) => {
+        const reminded = plan.last.get(entry.personId);
+        if (entry.kind !== 'reminder' || !reminded || latest.has(entry.personId)) return entry;
+        latest.add(entry.personId);
+        return {
+          ...entry,
+          nextReminderAt: new Date(reminded.getTime() + cooldownMs).toISOString(),
+        };
+      });
+      return {
+        ...log,
+        entries,
+        reminders: {
+          cooldownHours: cooldownMs / 3_600_000,
+          dueNow: day.status === 'confirmed' ? plan.due.length : 0,
+          coolingDown: plan.coolingDown,
+          nextAt: plan.nextAt?.toISOString() ?? null,
+        },
+      };
     },
 
     /** Queues the day-before message for days starting within the next 36 hours. */

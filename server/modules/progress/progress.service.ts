@@ -18,6 +18,17 @@ import { wallClockAt } from '../days/zoned-time';
 import { toCsv } from '../../lib/csv';
 import { NO_FLASH_WORDING } from '../../schemas/sitter-wording';
 
+async function invitationsSent(db: Db, dayId: string): Promise<Set<string>> {
+  const rows = await db
+    .selectFrom('dayMailings')
+    .select('personId')
+    .where('dayId', '=', dayId)
+    .where('kind', '=', 'invitation')
+    .where('status', '=', 'sent')
+    .execute();
+  return new Set(rows.map((row) => row.personId));
+}
+
 export type ProgressService = ReturnType<typeof createProgressService>;
 
 export function createProgressService(deps: { db: Db; days: DaysService }) {
@@ -69,9 +80,11 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
       db,
       [...outcome.checkedIn].filter((id) => !invitedIds.has(id)),
     );
+    // "Invited" means mailed: a queued or failed invitation has not reached anyone yet.
+    const mailed = await invitationsSent(db, dayId);
     const onDay = (
       person: { id: string; officeName: string | null; department: string | null },
-      invited: boolean,
+      listed: boolean,
     ): PersonOnDay => {
       const checkedIn = outcome.checkedIn.has(person.id);
       // A no-show undone by a late check-in is not a no-show.
@@ -80,7 +93,7 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
         id: person.id,
         officeName: person.officeName,
         department: person.department,
-        invited,
+        invited: listed && mailed.has(person.id),
         booked: holdsBooking.has(person.id) && !noShow,
         checkedIn,
         photographed: outcome.photographed.has(person.id),
@@ -96,6 +109,7 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
     const unbookedPeople = people.filter((person) => !holdsBooking.has(person.id));
     return {
       ...counts,
+      listed: people.length,
       unbooked: unbookedPeople.length,
       byOffice: groupPeople(everyone, (person) => person.officeName ?? 'No office'),
       byDepartment: groupPeople(everyone, (person) => person.department ?? 'No department'),

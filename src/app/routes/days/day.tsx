@@ -8,6 +8,8 @@ import { BookForPerson } from '../../../features/booking/components/book-for-per
 import { ManageBookings } from '../../../features/booking/components/manage-bookings';
 import { dayQueryOptions, useDay } from '../../../features/days/api/get-day';
 import { ConfirmDayForm } from '../../../features/days/components/confirm-day-form';
+import { DayChangesPanel } from '../../../features/days/components/day-changes-panel';
+import { Notice } from '../../../components/ui/notice';
 import { MailingPanel } from '../../../features/progress/components/mailing-panel';
 import { ProgressDashboard } from '../../../features/progress/components/progress-dashboard';
 import { DeliveryPanel } from '../../../features/looks/components/delivery-panel';
@@ -35,6 +37,13 @@ export function DayPage() {
         {day.room ? `${day.room}, ` : ''}
         {day.address}
       </PageHeading>
+      {day.status === 'cancelled' ? (
+        <div className="mb-5">
+          <Notice tone="caution">
+            This day is cancelled. Its bookings were cancelled and the sitters told.
+          </Notice>
+        </div>
+      ) : null}
       <div className="grid gap-5 lg:grid-cols-2">
         <Card title="Stations and seats">
           <p className="mb-3">
@@ -159,6 +168,9 @@ export function DayPage() {
               <SafetyCautions />
             </Card>
           </>
+        ) : null}
+        {manages && day.status !== 'cancelled' ? (
+          <DayChangesPanel day={day} studio={session?.user.role === 'studio_admin'} />
         ) : null}
       </div>
     </>

@@ -4,6 +4,7 @@ import { SelectField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { useProgress } from '../../progress/api/get-progress';
 import { useCreateBooking } from '../api/create-booking';
+import { useSlots } from '../api/list-slots';
 import { SlotPicker } from './slot-picker';
 
 /** A coordinator (or the studio) books a slot on someone's behalf, e.g. for a colleague on leave. */
@@ -12,6 +13,13 @@ export function BookForPerson({ dayId }: { dayId: string }) {
   const create = useCreateBooking();
   const [personId, setPersonId] = useState('');
   const [startsAt, setStartsAt] = useState('');
+  const [stationId, setStationId] = useState('');
+  const slots = useSlots(dayId);
+  const chosenSlot = slots.data?.slots.find((slot) => slot.startsAt === startsAt);
+  // The stations free at the chosen time; before a time is chosen, every station.
+  const stationChoices = (slots.data?.stations ?? []).filter(
+    (station) => !chosenSlot?.freeStationIds || chosenSlot.freeStationIds.includes(station.id),
+  );
   const [error, setError] = useState<string | null>(null);
   const people = progress.data?.unbookedPeople ?? [];
   if (progress.isSuccess && people.length === 0) {
@@ -26,11 +34,12 @@ export function BookForPerson({ dayId }: { dayId: string }) {
     }
     setError(null);
     create.mutate(
-      { dayId, personId, startsAt },
+      { dayId, personId, startsAt, ...(stationId ? { stationId } : {}) },
       {
         onSuccess: () => {
           setPersonId('');
           setStartsAt('');
+          setStationId('');
         },
         onError: (failure) => setError(failure.message),
       },
@@ -47,8 +56,8 @@ export function BookForPerson({ dayId }: { dayId: string }) {
       {error ? <Notice tone="danger">{error}</Notice> : null}
       {create.isSuccess && !error ? (
         <Notice tone="success">
-          Booked {create.data.personName} at {create.data.localTime}. They get the confirmation by
-          e-mail.
+          Booked {create.data.personName} at {create.data.localTime} ({create.data.stationName}).
+          They get the confirmation by e-mail.
         </Notice>
       ) : null}
       <SelectField
@@ -63,7 +72,25 @@ export function BookForPerson({ dayId }: { dayId: string }) {
           })),
         ]}
       />
-      <SlotPicker dayId={dayId} value={startsAt} onChange={setStartsAt} />
+      <SlotPicker
+        dayId={dayId}
+        value={startsAt}
+        onChange={(next) => {
+          setStartsAt(next);
+          setStationId('');
+        }}
+      />
+      {(slots.data?.stations.length ?? 0) > 1 ? (
+        <SelectField
+          label="Station"
+          value={stationId}
+          onChange={setStationId}
+          options={[
+            { value: '', label: 'Any free station' },
+            ...stationChoices.map((station) => ({ value: station.id, label: station.name })),
+          ]}
+        />
+      ) : null}
       <Button type="submit" busy={create.isPending}>
         Book for them
       </Button>

@@ -1,5 +1,10 @@
 import { useState, type FormEvent } from 'react';
-import { createDayRequestSchema, type CreateDayRequest } from '../../../../server/schemas/days';
+import {
+  createDayRequestSchema,
+  slotMinuteChoices,
+  type CreateDayRequest,
+} from '../../../../server/schemas/days';
+import { officeLocalToInstant } from '../../../../server/schemas/office-time';
 import type { Client } from '../../../../server/schemas/clients';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
@@ -13,8 +18,6 @@ import { ThroughputPlanner } from './throughput-planner';
 type Errors = Record<string, string | undefined>;
 const minutes = (time: string) =>
   /^\d\d:\d\d$/.test(time) ? Number(time.slice(0, 2)) * 60 + Number(time.slice(3)) : NaN;
-/** A datetime-local value is the browser's local time; the API wants an instant. */
-const toInstant = (value: string) => (value ? new Date(value).toISOString() : '');
 
 export function DayForm({
   clients,
@@ -65,6 +68,12 @@ export function DayForm({
 
   const defaultHeadCount =
     inviteBy === 'list' ? invitePersonIds.length : (office?.activePeople ?? 0);
+
+  // The office's wall clock, not the browser's: a day in Hamburg planned from a UTC laptop
+  // closes booking at the Hamburg time typed.
+  const zone = office?.timeZone ?? 'UTC';
+  const toInstant = (value: string) => (value ? officeLocalToInstant(value, zone) : '');
+  const zoneHint = `In ${zone} time, like the opening hours.`;
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -173,15 +182,15 @@ export function DayForm({
           onChange={set('date')}
           error={errors.date}
         />
-        <TextField
+        <SelectField
           label="Slot length (minutes)"
-          type="number"
-          inputMode="numeric"
-          min={3}
-          max={60}
           value={fields.slotMinutes}
           onChange={set('slotMinutes')}
           error={errors.slotMinutes}
+          options={slotMinuteChoices.map((choice) => ({
+            value: String(choice),
+            label: `${choice} minutes`,
+          }))}
         />
         <TextField
           label="Address"
@@ -220,26 +229,28 @@ export function DayForm({
           error={errors.breakEnd}
         />
         <TextField
-          label="Booking opens"
+          label={`Booking opens (${zone})`}
           type="datetime-local"
+          hint={zoneHint}
           value={fields.bookingOpensAt}
           onChange={set('bookingOpensAt')}
           error={errors.bookingOpensAt}
         />
         <TextField
-          label="Booking closes"
+          label={`Booking closes (${zone})`}
           type="datetime-local"
+          hint={zoneHint}
           value={fields.bookingClosesAt}
           onChange={set('bookingClosesAt')}
           error={errors.bookingClosesAt}
         />
         <TextField
-          label="Sitters can change until"
+          label={`Sitters can change until (${zone})`}
           type="datetime-local"
           value={fields.changesCloseAt}
           onChange={set('changesCloseAt')}
           error={errors.changesCloseAt}
-          hint="Your browser's local time."
+          hint={zoneHint}
         />
         <SelectField
           label="Who is invited"

@@ -21,6 +21,7 @@ export function DaysList({ days, emptyHint }: { days: Day[]; emptyHint: string }
               {day.opensAt}–{day.closesAt} {day.timeZone} · {day.stations.length} station
               {day.stations.length === 1 ? '' : 's'} · {day.booked} of {day.seats} seats booked
               {day.status === 'proposed' ? ' · proposed, awaiting the studio' : ''}
+              {day.status === 'cancelled' ? ' · cancelled' : ''}
             </span>
           </Link>
         </li>

@@ -2,6 +2,8 @@ import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 
 export interface StationDraft {
+  /** Set for a station the day already has (editing); absent for one being added. */
+  id?: string;
   name: string;
   photographerId: string;
 }

@@ -26,7 +26,7 @@ export function ClientProgressCard({
       <ProgressChart
         title="By day"
         groups={progress.data.days.map(({ dayId: _dayId, status, label, ...counts }) => ({
-          label: status === 'proposed' ? `${label} (proposed)` : label,
+          label: status === 'confirmed' ? label : `${label} (${status})`,
           ...counts,
         }))}
       />

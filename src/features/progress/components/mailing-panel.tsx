@@ -13,6 +13,12 @@ const kindLabel = {
   portraits_ready: 'Portraits ready',
 };
 
+/** The viewer's own clock for a moment in time, with the date (the cool-down spans days). */
+const whenLocal = (instant: string) =>
+  new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' }).format(
+    new Date(instant),
+  );
+
 /** Sending happens in the background; this shows how far it got and each person's outcome. */
 export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: boolean }) {
   const log = useMailings(dayId);
@@ -20,6 +26,7 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
   const counts = log.data?.counts ?? { queued: 0, sent: 0, failed: 0 };
   const total = counts.queued + counts.sent + counts.failed;
   const done = counts.sent + counts.failed;
+  const reminders = log.data?.reminders;
 
   return (
     <div className="flex flex-col gap-4">
@@ -30,7 +37,11 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
       {queue.isSuccess ? (
         <Notice tone="success">
           {queue.data.queued} queued
-          {queue.data.alreadyQueued ? `; ${queue.data.alreadyQueued} already had one` : ''}.
+          {queue.data.alreadyQueued ? `; ${queue.data.alreadyQueued} already had one` : ''}
+          {queue.data.coolingDown
+            ? `; ${queue.data.coolingDown} reminded within the last ${reminders?.cooldownHours ?? 24} hours`
+            : ''}
+          .
         </Notice>
       ) : null}
       <div className="flex flex-wrap gap-2">
@@ -43,13 +54,24 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
         </Button>
         <Button
           variant="secondary"
-          disabled={!confirmed}
+          disabled={!confirmed || (reminders !== undefined && reminders.dueNow === 0)}
           busy={queue.isPending && queue.variables?.kind === 'reminders'}
           onClick={() => queue.mutate({ dayId, kind: 'reminders' })}
+          aria-describedby={`${dayId}-reminder-state`}
         >
-          Remind the unbooked
+          {reminders && reminders.dueNow > 0
+            ? `Remind the unbooked (${reminders.dueNow})`
+            : 'Remind the unbooked'}
         </Button>
       </div>
+      {reminders ? (
+        <p id={`${dayId}-reminder-state`} className="text-sm text-ink-muted">
+          One reminder per person every {reminders.cooldownHours} hours.
+          {reminders.nextAt
+            ? ` ${reminders.coolingDown} reminded recently; the next reminder is possible from ${whenLocal(reminders.nextAt)}.`
+            : ''}
+        </p>
+      ) : null}
       {total > 0 ? (
         <div className="flex flex-col gap-1">
           <label htmlFor={`${dayId}-sending`} className="text-sm font-medium">
@@ -94,6 +116,11 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
                   </td>
                   <td className="py-2 pr-3">
                     {mailStatusLabels[entry.status]}
+                    {entry.nextReminderAt ? (
+                      <span className="block text-ink-muted">
+                        Next reminder from {whenLocal(entry.nextReminderAt)}
+                      </span>
+                    ) : null}
                     {entry.reason ? (
                       <span className="block text-danger-700">{entry.reason}</span>
                     ) : null}

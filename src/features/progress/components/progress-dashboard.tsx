@@ -8,7 +8,7 @@ export function ProgressDashboard({ dayId }: { dayId: string }) {
   if (progress.isPending) return <p role="status">Loading progress…</p>;
   if (progress.isError) return <Notice tone="danger">{progress.error.message}</Notice>;
   const data = progress.data;
-  if (data.invited === 0) {
+  if (data.listed === 0) {
     return (
       <EmptyState title="Nobody is invited yet">
         Import the roster for this office (or pick departments), then send the invitations.
@@ -17,9 +17,11 @@ export function ProgressDashboard({ dayId }: { dayId: string }) {
   }
   return (
     <div className="flex flex-col gap-5">
-      <dl className="grid grid-cols-3 gap-3 text-center sm:grid-cols-6">
+      <dl className="grid grid-cols-2 gap-3 text-center sm:grid-cols-4 lg:grid-cols-7">
         {[
-          ['Invited', data.invited],
+          ['On the list', data.listed],
+          // Only people whose invitation was actually sent count as invited.
+          ['Invited (mailed)', data.invited],
           ['Booked', data.booked],
           ['Not yet booked', data.unbooked],
           ['Checked in', data.checkedIn],
