@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import { sql } from 'kysely';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
@@ -176,6 +177,16 @@ describe('check-in by pass token', () => {
   });
 });
 
+/** Waits until this many statements wait on a lock (both requests reached the database). */
+async function waitForBlockedStatements(count: number) {
+  for (;;) {
+    const { rows } = await sql<{ waiting: number }>`
+      select count(*)::int as waiting from pg_locks where not granted`.execute(t.db);
+    if ((rows[0]?.waiting ?? 0) >= count) return;
+    await new Promise((resolve) => setTimeout(resolve, 20));
+  }
+}
+
 describe('idempotent replay', () => {
   it('applies the same queued action once, however often it is sent', async () => {
     const { person, booking } = await bookedPerson();
@@ -201,6 +212,47 @@ describe('idempotent replay', () => {
       .where('idempotencyKey', '=', body.idempotencyKey)
       .execute();
     expect(actions).toHaveLength(1);
+  });
+
+  it('answers a replay sent while the first is still in flight with its result, not a 409', async () => {
+    const { person, booking } = await bookedPerson();
+    const body = action('check_in_pass', {
+      stationId,
+      checkInId: randomUUID(),
+      passToken: booking.passToken,
+    });
+    // Hold the booking row so the first request stalls mid-transaction, as on a slow database.
+    let release!: () => void;
+    const released = new Promise<void>((resolve) => (release = resolve));
+    let locked!: () => void;
+    const holding = new Promise<void>((resolve) => (locked = resolve));
+    const holder = t.db.transaction().execute(async (trx) => {
+      await trx
+        .selectFrom('bookings')
+        .select('id')
+        .where('id', '=', booking.id)
+        .forUpdate()
+        .execute();
+      locked();
+      await released;
+    });
+    await holding;
+    const first = post(photographer, body).then((response) => response);
+    const replay = post(photographer, body).then((response) => response);
+    await waitForBlockedStatements(2);
+    release();
+    await holder;
+    const answers = await Promise.all([first, replay]);
+    expect(answers.map((response) => response.status).sort()).toEqual([200, 201]);
+    for (const response of answers) {
+      expect(response.body).toMatchObject({ idempotencyKey: body.idempotencyKey });
+    }
+    const checkIns = await t.db
+      .selectFrom('checkIns')
+      .select('id')
+      .where('personId', '=', person.id)
+      .execute();
+    expect(checkIns).toHaveLength(1);
   });
 
   it('refuses a key reused for a different change', async () => {

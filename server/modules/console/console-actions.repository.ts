@@ -14,6 +14,16 @@ export function findActionByKey(db: Executor, idempotencyKey: string) {
     .executeTakeFirst();
 }
 
+/**
+ * Serialises actions sharing one idempotency key until the holder's transaction ends. The key
+ * is hashed into the advisory lock space; a rare collision only makes two actions wait in turn.
+ */
+export async function lockActionKey(db: Transaction<Database>, idempotencyKey: string) {
+  await sql`select pg_advisory_xact_lock(hashtextextended(${`station_action:${idempotencyKey}`}, 0))`.execute(
+    db,
+  );
+}
+
 export async function insertAction(
   db: Executor,
   row: {

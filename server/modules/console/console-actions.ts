@@ -39,20 +39,18 @@ export async function applyConsoleAction(
   if (!day.stations.some((station) => station.id === action.stationId)) {
     throw notFound('That station');
   }
-  const replay = async () => {
-    const stored = await repo.findActionByKey(deps.db, action.idempotencyKey);
-    if (!stored) return null;
-    if (stored.dayId !== day.id || stored.kind !== action.kind) {
-      throw new AppError('key_reused', 409, 'This change key was already used for another change.');
-    }
-    return { ...(stored.result as ConsoleActionResult), replayed: true };
-  };
+  const replay = () => replayOf(deps.db, day, action);
   const earlier = await replay();
   if (earlier) return earlier;
 
   const now = deps.clock.now();
   try {
     return await deps.db.transaction().execute(async (trx) => {
+      // A replay sent while the first is still in flight waits here for it to commit, then is
+      // answered with its stored result instead of colliding with its rows (and a 409).
+      await repo.lockActionKey(trx, action.idempotencyKey);
+      const stored = await replayOf(trx, day, action);
+      if (stored) return stored;
       const context: ActionContext = { trx, now, tabletAt: new Date(action.tabletAt), viewer, day };
       const message = await perform(context, action);
       const result: ConsoleActionResult = {
@@ -79,15 +77,27 @@ export async function applyConsoleAction(
     const { code, constraint } = pgError(error);
     if (code !== '23505') throw error;
     // The same key sent twice at once: the first one won, this one reports its result.
-    if (constraint === 'station_actions_idempotency_key_key') {
-      const winner = await replay();
-      if (winner) return winner;
-    }
+    const winner = await replay();
+    if (winner) return winner;
     if (constraint?.startsWith('check_ins_one_per') && 'checkInId' in action) {
       throw await alreadyCheckedIn(deps.db, day, action);
     }
     throw explainConstraint(constraint) ?? error;
   }
+}
+
+/** The stored answer to an action already applied under this key, or null. */
+async function replayOf(
+  db: Db | Trx,
+  day: DayRecord,
+  action: ConsoleAction,
+): Promise<ConsoleActionResult | null> {
+  const stored = await repo.findActionByKey(db, action.idempotencyKey);
+  if (!stored) return null;
+  if (stored.dayId !== day.id || stored.kind !== action.kind) {
+    throw new AppError('key_reused', 409, 'This change key was already used for another change.');
+  }
+  return { ...(stored.result as ConsoleActionResult), replayed: true };
 }
 
 async function alreadyCheckedIn(db: Db, day: DayRecord, action: ConsoleAction) {
