@@ -8,7 +8,7 @@ import { createSmtpMailer } from '../server/adapters/mail/mailer';
 import { createPgNotifications } from '../server/adapters/notifications';
 import { createStorage } from '../server/adapters/storage/create-storage';
 import { createApp, type AppDeps } from '../server/app';
-import { parseEnvironment, toAppConfig } from '../server/config';
+import { mailIdentity, parseEnvironment, toAppConfig } from '../server/config';
 import { createDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
 import { startDayJobsWorker } from '../server/jobs/day-jobs';
@@ -117,7 +117,7 @@ async function main() {
       `Local mail catcher listening on ${catcher.smtpUrl}: read it at ${config.publicUrl}/studio/mailbox`,
     );
   }
-  const mailer = createSmtpMailer({ smtpUrl, from: config.mailFrom });
+  const mailer = createSmtpMailer({ smtpUrl, ...mailIdentity(config) });
   cleanups.push(() => mailer.close());
 
   // One dedicated connection LISTENs for station console changes from every app process.

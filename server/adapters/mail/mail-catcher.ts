@@ -6,6 +6,7 @@ export interface CaughtMail {
   id: string;
   receivedAt: string;
   from: string;
+  replyTo: string;
   to: string[];
   subject: string;
   text: string;
@@ -48,6 +49,7 @@ export async function startMailCatcher(port = 0, keep = 500): Promise<MailCatche
             id: randomUUID(),
             receivedAt: new Date().toISOString(),
             from: parsed.from?.text ?? '',
+            replyTo: parsed.replyTo?.text ?? '',
             to,
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',

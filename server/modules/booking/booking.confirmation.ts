@@ -21,7 +21,13 @@ export function createBookingMailSender(deps: {
   config: AppConfig;
 }) {
   const { db, clock, mailer, config } = deps;
-  const organizerEmail = /<([^>]+)>/.exec(config.mailFrom)?.[1] ?? config.mailFrom;
+  // The studio organises the sitting. With a reply address the invitation is a REQUEST whose
+  // organiser can receive answers; without one it is PUBLISH, which asks for no reply.
+  const organizer = {
+    name: config.mailFrom.name,
+    email: config.mailReplyTo ?? config.mailFrom.address,
+  };
+  const invitationMethod = config.mailReplyTo ? 'REQUEST' : 'PUBLISH';
 
   return async function sendMail(kind: BookingMailKind, bookingId: string): Promise<void> {
     const booking = await repo.findBooking(db, bookingId);
@@ -31,7 +37,7 @@ export function createBookingMailSender(deps: {
     if (kind !== 'cancelled' && booking.status === 'cancelled') return;
     const endsAt = new Date(booking.startsAt.getTime() + day.slotMinutes * 60_000);
     const ics = writeIcs({
-      method: kind === 'cancelled' ? 'CANCEL' : 'REQUEST',
+      method: kind === 'cancelled' ? 'CANCEL' : invitationMethod,
       uid: booking.calendarUid,
       sequence: booking.sequence,
       stampedAt: clock.now(),
@@ -40,8 +46,8 @@ export function createBookingMailSender(deps: {
       timeZone: day.timeZone,
       summary: `Portrait sitting (${day.clientName})`,
       location: day.room ? `${day.room}, ${day.address}` : day.address,
-      description: `Station ${booking.stationName}. Show your pass at the station.`,
-      organizer: { name: 'Likeness bookings', email: organizerEmail },
+      description: sittingDescription(booking.stationName, day.room),
+      organizer,
       attendee: { name: booking.personName, email: booking.personEmail },
     });
     await mailer.send(
@@ -53,8 +59,15 @@ export function createBookingMailSender(deps: {
         startsAt: booking.startsAt,
         passPng: kind === 'cancelled' ? null : await passPng(booking.passToken),
         ics,
+        calendarMethod: kind === 'cancelled' ? 'CANCEL' : invitationMethod,
         url: `${config.publicUrl}/`,
       }),
     );
   };
+}
+
+/** The calendar entry's note: where to go and what to bring, in the sitter's words. */
+export function sittingDescription(stationName: string, room: string | null): string {
+  const where = room ? `${stationName} in ${room}` : stationName;
+  return `Your portrait is taken at ${where}. Bring your pass (in the booking e-mail or on your booking page) and show it at the station.`;
 }
