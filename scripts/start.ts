@@ -5,6 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { systemClock } from '../server/adapters/clock';
 import { startMailCatcher, type MailCatcher } from '../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../server/adapters/mail/mailer';
+import { createCaughtMailStore } from '../server/modules/dev-mailbox/dev-mailbox.repository';
 import { createPgNotifications } from '../server/adapters/notifications';
 import { createStorage } from '../server/adapters/storage/create-storage';
 import { createApp, type AppDeps } from '../server/app';
@@ -109,7 +110,8 @@ async function main() {
   let catcher: MailCatcher | null = null;
   let smtpUrl = raw.SMTP_URL;
   if (!smtpUrl) {
-    catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT);
+    // Caught mail is kept in the database, so the Mailbox survives a restart.
+    catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT, { store: createCaughtMailStore(db) });
     const started = catcher;
     cleanups.push(() => started.close());
     smtpUrl = catcher.smtpUrl;

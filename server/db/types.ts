@@ -22,6 +22,7 @@ import type {
   PicksTable,
   StudioPicksTable,
 } from './proof-types';
+import type { CaughtMailsTable } from './mailbox-types';
 import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
@@ -239,6 +240,7 @@ export interface Database {
   priceLists: PriceListsTable;
   invoiceSequences: InvoiceSequencesTable;
   invoices: InvoicesTable;
+  caughtMails: CaughtMailsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -29,6 +29,7 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/sitters/me': ['sitter'],
   'GET /api/dev/mailbox': ['studio_admin'],
   'GET /api/dev/mailbox/:messageId': ['studio_admin'],
+  'GET /api/dev/mailbox/:messageId/attachments/:index': ['studio_admin'],
   'POST /api/clients/:clientId/roster/imports': ['studio_admin', 'coordinator'],
   'GET /api/clients/:clientId/roster/imports/:importId': ['studio_admin', 'coordinator'],
   'PUT /api/clients/:clientId/roster/imports/:importId/mapping': ['studio_admin', 'coordinator'],
@@ -186,6 +187,7 @@ beforeAll(async () => {
     token: 'A'.repeat(43),
     fileId: '00000000-0000-4000-8000-000000000003',
     name: 'portrait',
+    index: '0',
   };
 });
 afterAll(() => t.close());
