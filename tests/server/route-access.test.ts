@@ -97,6 +97,8 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'POST /api/bookings': ['sitter', 'coordinator', 'studio_admin'],
   'PATCH /api/bookings/:bookingId': ['sitter', 'coordinator', 'studio_admin'],
   'DELETE /api/bookings/:bookingId': ['sitter', 'coordinator', 'studio_admin'],
+  'PUT /api/bookings/:bookingId/answers': ['sitter', 'coordinator', 'studio_admin'],
+  'GET /api/bookings/:bookingId/calendar.ics': ['sitter', 'coordinator', 'studio_admin'],
   'GET /api/bookings/:bookingId/pass.png': [
     'sitter',
     'coordinator',
