@@ -108,6 +108,7 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/days/:dayId/progress': ['studio_admin', 'coordinator'],
   'GET /api/clients/:clientId/progress': ['studio_admin', 'coordinator'],
   'GET /api/days/:dayId/schedule': ['studio_admin', 'coordinator', 'photographer'],
+  'GET /api/days/:dayId/recorded': ['studio_admin', 'coordinator', 'photographer'],
   'GET /api/days/:dayId/schedule.csv': ['studio_admin', 'coordinator', 'photographer'],
   'POST /api/days/:dayId/invitations': ['studio_admin', 'coordinator'],
   'POST /api/days/:dayId/reminders': ['studio_admin', 'coordinator'],

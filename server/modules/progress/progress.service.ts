@@ -7,6 +7,7 @@ import * as daysRepo from '../days/days.repository';
 import type { DaysService } from '../days/days.service';
 import { wallClockAt } from '../days/zoned-time';
 import { toCsv } from '../../lib/csv';
+import { recordedDay } from './day-record';
 
 export type ProgressService = ReturnType<typeof createProgressService>;
 
@@ -96,6 +97,8 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
   return {
     schedule,
     progress: dayProgress,
+    /** The day sheet after the day: what the console recorded, station by station. */
+    recorded: (viewer: Viewer, dayId: string) => recordedDay({ db, days }, viewer, dayId),
 
     /** Every day of one client side by side: a coordinator's overview across offices. */
     async clientProgress(viewer: Viewer, clientId: string): Promise<ClientProgress> {
