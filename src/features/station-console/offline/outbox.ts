@@ -73,11 +73,15 @@ export class Outbox {
     this.notify(tone, text);
   }
 
-  /** One notice at a time: a new one replaces the last, and each fades on its own. */
+  /**
+   * One notice at a time: a new one replaces the last and fades on its own. A notice that
+   * offers a fix (correct the first frame) stays until used or dismissed.
+   */
   private notify(tone: OutboxNotice['tone'], text: string, fix?: OutboxNotice['fix']) {
     const notice: OutboxNotice = { id: crypto.randomUUID(), tone, text, ...(fix ? { fix } : {}) };
     clearTimeout(this.fadeTimer);
-    this.set({ notices: [notice] });
+    const offers = this.state.notices.filter((item) => item.fix).slice(-2);
+    this.set({ notices: [...offers, notice] });
     if (!fix) this.fadeTimer = setTimeout(() => this.dismiss(notice.id), noticeMs[tone]);
   }
 
