@@ -21,7 +21,8 @@ export async function recordedDayScenario(t: TestApp) {
     photographerIds: [photographer.id, photographer.id],
     date: '2030-03-14',
   });
-  const [stationA, stationB] = day.stations as [{ id: string }, { id: string }];
+  const stationA = day.stations[0]!;
+  const stationB = day.stations[1]!;
   const person = async (givenName: string) =>
     insertPerson(db, client.id, { officeId: office.id, givenName });
   const at = (time: string) => new Date(`2030-03-14T${time}:00Z`); // London is on GMT in March
