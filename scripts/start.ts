@@ -5,10 +5,11 @@ import { fileURLToPath } from 'node:url';
 import { systemClock } from '../server/adapters/clock';
 import { startMailCatcher, type MailCatcher } from '../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../server/adapters/mail/mailer';
+import { createCaughtMailStore } from '../server/modules/dev-mailbox/dev-mailbox.repository';
 import { createPgNotifications } from '../server/adapters/notifications';
 import { createStorage } from '../server/adapters/storage/create-storage';
 import { createApp, type AppDeps } from '../server/app';
-import { parseEnvironment, toAppConfig } from '../server/config';
+import { mailIdentity, parseEnvironment, toAppConfig } from '../server/config';
 import { createDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
 import { startDayJobsWorker } from '../server/jobs/day-jobs';
@@ -111,7 +112,8 @@ async function main() {
   let catcher: MailCatcher | null = null;
   let smtpUrl = raw.SMTP_URL;
   if (!smtpUrl) {
-    catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT);
+    // Caught mail is kept in the database, so the Mailbox survives a restart.
+    catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT, { store: createCaughtMailStore(db) });
     const started = catcher;
     cleanups.push(() => started.close());
     smtpUrl = catcher.smtpUrl;
@@ -119,7 +121,7 @@ async function main() {
       `Local mail catcher listening on ${catcher.smtpUrl}: read it at ${config.publicUrl}/studio/mailbox`,
     );
   }
-  const mailer = createSmtpMailer({ smtpUrl, from: config.mailFrom });
+  const mailer = createSmtpMailer({ smtpUrl, ...mailIdentity(config) });
   cleanups.push(() => mailer.close());
 
   // One dedicated connection LISTENs for station console changes from every app process.

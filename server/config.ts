@@ -48,7 +48,14 @@ export const configSchema = z.object({
   PUBLIC_URL: z.url().optional(),
   DATABASE_URL: z.url().optional(),
   SMTP_URL: z.url().optional(),
-  MAIL_FROM: z.string().min(3).default('Likeness <no-reply@likeness.invalid>'),
+  /** The studio's sending address, bare or as `Name <address>`; the name defaults to STUDIO_NAME. */
+  MAIL_FROM: z
+    .string()
+    .trim()
+    .regex(/^(?:[^<>]*<[^\s<>@]+@[^\s<>@]+>|[^\s<>@]+@[^\s<>@]+)$/, 'an address or Name <address>')
+    .default('bookings@northlight.example'),
+  /** Where replies go (Reply-To, and the calendar organiser); without it invitations ask for none. */
+  MAIL_REPLY_TO: z.email().optional(),
   SESSION_TTL_HOURS: z.coerce.number().positive().default(168),
   INVITATION_LINK_TTL_HOURS: z.coerce.number().positive().default(168),
   SIGN_IN_LINK_TTL_MINUTES: z.coerce.number().positive().default(30),
@@ -88,7 +95,10 @@ export type RawConfig = z.infer<typeof configSchema>;
 export interface AppConfig {
   env: RawConfig['NODE_ENV'];
   publicUrl: string;
-  mailFrom: string;
+  /** The From header: the studio's name and sending address. */
+  mailFrom: { name: string; address: string };
+  /** Reply-To of every message and the calendar organiser; null when no reply is wanted. */
+  mailReplyTo: string | null;
   studioName: string;
   /** false, one hop (true), or the proxy addresses whose X-Forwarded-* headers are believed. */
   trustProxy: boolean | string[];
@@ -133,7 +143,8 @@ export function toAppConfig(raw: RawConfig): AppConfig {
   return {
     env: raw.NODE_ENV,
     publicUrl: (raw.PUBLIC_URL ?? `http://localhost:${raw.PORT}`).replace(/\/$/, ''),
-    mailFrom: raw.MAIL_FROM,
+    mailFrom: parseMailFrom(raw.MAIL_FROM, raw.STUDIO_NAME),
+    mailReplyTo: raw.MAIL_REPLY_TO ?? null,
     studioName: raw.STUDIO_NAME,
     trustProxy: raw.TRUST_PROXY,
     logLevel: raw.LOG_LEVEL,
@@ -165,6 +176,18 @@ export function toAppConfig(raw: RawConfig): AppConfig {
     },
     reminderCooldownMs: raw.REMINDER_COOLDOWN_HOURS * HOUR,
   };
+}
+
+function parseMailFrom(value: string, studioName: string): { name: string; address: string } {
+  const named = /^(.*)<([^<>]+)>$/.exec(value);
+  if (!named) return { name: studioName, address: value };
+  const name = named[1]!.trim().replace(/^"(.*)"$/, '$1');
+  return { name: name || studioName, address: named[2]!.trim() };
+}
+
+/** What the mailer needs to send as the studio: who it is from, where replies go, the sign-off. */
+export function mailIdentity(config: AppConfig) {
+  return { from: config.mailFrom, replyTo: config.mailReplyTo, signature: config.studioName };
 }
 
 function toStorageSettings(raw: RawConfig): StorageSettings {

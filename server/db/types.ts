@@ -23,6 +23,7 @@ import type {
   PicksTable,
   StudioPicksTable,
 } from './proof-types';
+import type { CaughtMailsTable } from './mailbox-types';
 import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
@@ -249,6 +250,7 @@ export interface Database {
   invoiceSequences: InvoiceSequencesTable;
   invoices: InvoicesTable;
   dayChangeProposals: DayChangeProposalsTable;
+  caughtMails: CaughtMailsTable;
 }
 
 export type UserRow = Selectable<UsersTable>;

@@ -23,6 +23,9 @@ export const sittingNeedsSchema = z.object({
   flashSensitive: z.boolean().default(false),
 });
 
+export type SittingNeedsRequest = z.input<typeof sittingNeedsSchema>;
+export type SittingNeedsInput = z.output<typeof sittingNeedsSchema>;
+
 export const createBookingRequestSchema = sittingNeedsSchema.extend({
   dayId: uuidSchema,
   startsAt: instant,

@@ -99,9 +99,9 @@ export interface ConsoleActionResult {
 
 export const rosterSearchQuerySchema = z.object({
   q: z
-    .string({ error: 'Type part of a name.' })
+    .string({ error: 'Type part of a name or an employee id.' })
     .trim()
-    .min(2, { error: 'Type at least two letters.' })
+    .min(2, { error: 'Type at least two characters.' })
     .max(80),
 });
 
@@ -187,6 +187,7 @@ export interface ConsoleDay {
 export interface RosterMatch {
   id: string;
   name: string;
+  employeeId: string | null;
   department: string | null;
   officeName: string | null;
   checkedIn: boolean;

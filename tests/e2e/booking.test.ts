@@ -1,3 +1,4 @@
+import { readFile } from 'node:fs/promises';
 import ICAL from 'ical.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
@@ -41,6 +42,7 @@ describe('a sitter books on a phone', () => {
       viewport: { width: 390, height: 844 },
       isMobile: true,
       hasTouch: true,
+      acceptDownloads: true,
     });
     const page = await context.newPage();
     await page.goto(url as string);
@@ -85,7 +87,19 @@ describe('a sitter books on a phone', () => {
     const move = page.getByRole('form', { name: 'Move my sitting' });
     await move.getByText('10:00', { exact: true }).click();
     await move.getByRole('button', { name: 'Move to this time' }).click();
-    await page.getByText('Moved. An updated calendar invitation is on its way.').waitFor();
+    const movedNotice = page.getByText(
+      'Moved to 10:00. An updated calendar invitation is on its way.',
+    );
+    await movedNotice.waitFor();
+    // The confirmation is where the sitter is looking, not above the top of the phone's screen.
+    await expect
+      .poll(() =>
+        movedNotice.evaluate((element) => {
+          const box = element.getBoundingClientRect();
+          return box.top >= 0 && box.bottom <= window.innerHeight;
+        }),
+      )
+      .toBe(true);
     await expect(page.locator('p', { hasText: 'Booked for' }).innerText()).resolves.toContain(
       '10:00',
     );
@@ -98,11 +112,62 @@ describe('a sitter books on a phone', () => {
       ICAL.parse(Buffer.from(part!.content, 'base64').toString('utf8')),
     );
     const vevent = calendar.getFirstSubcomponent('vevent')!;
-    expect(calendar.getFirstPropertyValue('method')).toBe('REQUEST');
+    // No reply address is set here, so the entry asks for no reply (RFC 5546 PUBLISH).
+    expect(calendar.getFirstPropertyValue('method')).toBe('PUBLISH');
     expect(vevent.getFirstPropertyValue('sequence')).toBe(1);
     expect(vevent.getFirstProperty('dtstart')!.toICALString()).toBe(
       'DTSTART;TZID=Europe/London:20300314T100000',
     );
+
+    // The same entry downloads from the page, read back with ical.js.
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: /Add to my calendar/ }).click(),
+    ]);
+    expect(download.suggestedFilename()).toBe('portrait-sitting.ics');
+    const file = new ICAL.Component(ICAL.parse(await readFile((await download.path())!, 'utf8')));
+    const fileEvent = file.getFirstSubcomponent('vevent')!;
+    expect(fileEvent.getFirstPropertyValue('uid')).toBe(vevent.getFirstPropertyValue('uid'));
+    expect(fileEvent.getFirstProperty('dtstart')!.toICALString()).toBe(
+      'DTSTART;TZID=Europe/London:20300314T100000',
+    );
+
+    // The answers given at booking can be read and changed.
+    const answers = page.getByRole('region', { name: 'Your answers' });
+    await answers.getByText('No flash: continuous light for this sitter').waitFor();
+    await answers.getByRole('button', { name: 'Change my answers' }).click();
+    const edit = page.getByRole('form', { name: 'Change my answers' });
+    await edit.getByLabel('I wear glasses').check();
+    await edit.getByLabel('Name to use on your photo files').fill('Inês');
+    await edit.getByRole('button', { name: 'Save my answers' }).click();
+    await answers.getByText('Your answers are saved.').waitFor();
+    await answers.getByText('Inês', { exact: true }).waitFor();
+    const row = await t.db
+      .selectFrom('bookings')
+      .select(['glasses', 'preferredName', 'flashSensitive', 'status'])
+      .where('personId', '=', person.id)
+      .executeTakeFirstOrThrow();
+    expect(row).toEqual({
+      glasses: true,
+      preferredName: 'Inês',
+      flashSensitive: true,
+      status: 'active',
+    });
+
+    // Cancelling asks first; keeping it changes nothing.
+    await page.getByRole('button', { name: 'Cancel my sitting' }).click();
+    await page.getByText('Cancel your sitting at 10:00?').waitFor();
+    await page.getByRole('button', { name: 'Keep it' }).click();
+    await page.getByRole('button', { name: 'Cancel my sitting' }).click();
+    await page.getByRole('button', { name: 'Yes, cancel it' }).click();
+    await page.getByRole('form', { name: 'Book a slot' }).waitFor();
+    const cancelled = await t.db
+      .selectFrom('bookings')
+      .select('status')
+      .where('personId', '=', person.id)
+      .executeTakeFirstOrThrow();
+    expect(cancelled.status).toBe('cancelled');
+    expect(await seriousAxeViolations(page)).toEqual([]);
     await context.close();
   });
 });

@@ -79,6 +79,51 @@ describe('calendar invitations (RFC 5545, RFC 5546)', () => {
     expect(time.toJSDate().toISOString()).toBe('2027-03-04T03:30:00.000Z');
   });
 
+  it('writes the same zone section for every sitting of a season, on whole minutes (RFC 5545 3.6.5)', () => {
+    const zoneOf = (text: string) =>
+      text.slice(text.indexOf('BEGIN:VTIMEZONE'), text.indexOf('END:VTIMEZONE'));
+    const morning = writeIcs(event({ startsAt: new Date('2027-07-01T08:15:00Z') }));
+    const later = writeIcs(
+      event({
+        startsAt: new Date('2027-07-01T13:47:00Z'),
+        stampedAt: new Date('2027-06-02T17:03:41Z'),
+      }),
+    );
+    expect(zoneOf(later)).toBe(zoneOf(morning));
+    // EU summer time (Directive 2000/84/EC art. 2): from 01:00 UTC on the last Sunday of March,
+    // 28 March in 2027; the observance starts at that instant read in GMT (TZOFFSETFROM).
+    expect(morning).toContain(
+      'BEGIN:DAYLIGHT\r\nDTSTART:20270328T010000\r\nTZOFFSETFROM:+0000\r\nTZOFFSETTO:+0100',
+    );
+    const winter = writeIcs(
+      event({
+        timeZone: 'America/New_York',
+        startsAt: new Date('2027-01-12T14:02:00Z'),
+        endsAt: new Date('2027-01-12T14:07:00Z'),
+      }),
+    );
+    // US daylight time (Energy Policy Act of 2005 §110) ends at 02:00 local on the first Sunday
+    // of November: 1 November 2026.
+    expect(winter).toContain(
+      'BEGIN:STANDARD\r\nDTSTART:20261101T020000\r\nTZOFFSETFROM:-0400\r\nTZOFFSETTO:-0500',
+    );
+    for (const text of [morning, later, winter]) {
+      for (const line of text.split('\r\n').filter((item) => item.startsWith('DTSTART:'))) {
+        expect(line).toMatch(/00$/);
+      }
+    }
+  });
+
+  it('sends PUBLISH with the studio as organiser and no attendee when no reply is wanted (RFC 5546 3.2.1)', () => {
+    const { calendar, vevent } = parse(writeIcs(event({ method: 'PUBLISH' })));
+    expect(calendar.getFirstPropertyValue('method')).toBe('PUBLISH');
+    expect(vevent.getAllProperties('organizer')).toHaveLength(1);
+    expect(vevent.getAllProperties('attendee')).toHaveLength(0);
+    expect(vevent.getFirstPropertyValue('uid')).toBe(
+      '0b7e3f6a-2c1d-4e5f-8a9b-0c1d2e3f4a5b@likeness',
+    );
+  });
+
   it('raises SEQUENCE on a move and cancels with METHOD:CANCEL and the same UID (RFC 5546 2.1.4, 3.2.5)', () => {
     const moved = parse(writeIcs(event({ sequence: 1 })));
     expect(moved.vevent.getFirstPropertyValue('sequence')).toBe(1);

@@ -1,3 +1,4 @@
+import { mailIdentity } from '../../server/config';
 import { createSmtpMailer } from '../../server/adapters/mail/mailer';
 import { runDayJobsOnce } from '../../server/jobs/day-jobs';
 import { createLogger } from '../../server/lib/logger';
@@ -27,7 +28,7 @@ function portraitsOf(t: TestApp, logger: Logger) {
 const portraitsByApp = new WeakMap<TestApp, ReturnType<typeof portraitTasks>>();
 
 export async function runQueuedJobs(t: TestApp): Promise<number> {
-  const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
+  const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, ...mailIdentity(t.config) });
   try {
     const logger = createLogger('silent');
     return await runDayJobsOnce(

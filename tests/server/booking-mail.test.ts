@@ -10,7 +10,9 @@ import { signedInSitter } from './helpers';
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await startTestApp({ env: { RATE_LIMIT_PER_ADDRESS: '10000' } });
+  t = await startTestApp({
+    env: { RATE_LIMIT_PER_ADDRESS: '10000', MAIL_REPLY_TO: 'desk@northlight.example' },
+  });
 });
 afterAll(() => t.close());
 
@@ -65,9 +67,22 @@ describe('the confirmation mail', () => {
     const served = await sitter.get(`/api/bookings/${booked.body.id}/pass.png`).expect(200);
     expect(decodePng(served.body as Buffer).code?.data).toBe(row.passToken);
 
-    // RFC 5546: REQUEST, DTSTART with TZID, stable UID, SEQUENCE 0.
+    // Mail comes from the studio, and replies go to its desk.
+    expect(mail.from).toBe('"Northlight Portrait Co." <bookings@northlight.example>');
+    expect(mail.replyTo).toBe('desk@northlight.example');
+    expect(mail.text).toMatch(/-- \nNorthlight Portrait Co\.\n$/);
+    expect(mail.text).not.toContain('Likeness');
+
+    // RFC 5546: REQUEST, DTSTART with TZID, stable UID, SEQUENCE 0; the studio organises it at
+    // the address that takes replies.
     const first = calendarOf(mail);
     expect(first.calendar.getFirstPropertyValue('method')).toBe('REQUEST');
+    const organizer = first.vevent.getFirstProperty('organizer')!;
+    expect(organizer.getFirstValue()).toBe('mailto:desk@northlight.example');
+    expect(organizer.getParameter('cn')).toBe('Northlight Portrait Co.');
+    const description = String(first.vevent.getFirstPropertyValue('description'));
+    expect(description).toContain('Station A');
+    expect(description).not.toMatch(/Station Station/);
     expect(first.text).toContain('DTSTART;TZID=Europe/Amsterdam:20300704T091500');
     expect(first.vevent.getFirstPropertyValue('uid')).toBe(row.calendarUid);
     expect(first.vevent.getFirstPropertyValue('sequence')).toBe(0);
@@ -94,5 +109,38 @@ describe('the confirmation mail', () => {
     expect(cancelled.vevent.getFirstPropertyValue('uid')).toBe(row.calendarUid);
     expect(cancelled.vevent.getFirstPropertyValue('sequence')).toBe(2);
     await sitter.get(`/api/bookings/${booked.body.id}/pass.png`).expect(404);
+  });
+});
+
+describe('without a reply address', () => {
+  it('publishes the calendar entry (no reply asked) with the studio as organiser', async () => {
+    const quiet = await startTestApp({ env: { RATE_LIMIT_PER_ADDRESS: '10000' } });
+    try {
+      const client = await insertClient(quiet.db, { name: 'Halvorsen & Pike Engineering' });
+      const office = await insertOffice(quiet.db, client.id, 'Leeds');
+      const photographer = await insertStaff(quiet.db, { role: 'photographer' });
+      const day = await insertDay(quiet.db, {
+        clientId: client.id,
+        officeId: office.id,
+        photographerIds: [photographer.id],
+        date: '2030-07-04',
+      });
+      const person = await insertPerson(quiet.db, client.id, { officeId: office.id });
+      const sitter = await signedInSitter(quiet, person.email);
+      await sitter
+        .post('/api/bookings')
+        .send({ dayId: day.id, startsAt: '2030-07-04T08:15:00.000Z' })
+        .expect(201);
+      await runQueuedJobs(quiet);
+      const mail = await quiet.mail.waitFor(person.email, { subjectIncludes: 'is booked' });
+      expect(mail.replyTo).toBe('');
+      const { calendar, vevent } = calendarOf(mail);
+      // RFC 5546 3.2.1: PUBLISH has an ORGANIZER and no ATTENDEE.
+      expect(calendar.getFirstPropertyValue('method')).toBe('PUBLISH');
+      expect(vevent.getFirstPropertyValue('organizer')).toBe('mailto:bookings@northlight.example');
+      expect(vevent.getAllProperties('attendee')).toHaveLength(0);
+    } finally {
+      await quiet.close();
+    }
   });
 });

@@ -269,6 +269,42 @@ describe('idempotent replay', () => {
   });
 });
 
+describe('roster search on the console', () => {
+  it('ignores accents and capitals, matches every word, and finds employee ids', async () => {
+    const zoe = await t.db
+      .insertInto('people')
+      .values({
+        clientId,
+        officeId,
+        givenName: 'Zoë',
+        familyName: 'Müller-Łęcka',
+        email: 'zoe.muller@halvorsen-pike.example',
+        employeeId: 'HP-40917',
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const found = async (q: string) => {
+      const response = await photographer
+        .get(`/api/days/${day.id}/console/roster`)
+        .query({ q })
+        .expect(200);
+      return response.body.people.map((item: { id: string }) => item.id) as string[];
+    };
+    // unaccent's rules (PostgreSQL contrib) fold ë, ü, Ł and ę to e, u, L and e.
+    for (const q of ['Zoe', 'zoë', 'MULLER', 'zoe muller', 'lecka', 'hp-40917', '40917']) {
+      expect(await found(q), q).toContain(zoe.id);
+    }
+    expect(await found('zoe smith')).not.toContain(zoe.id);
+    const response = await photographer
+      .get(`/api/days/${day.id}/console/roster`)
+      .query({ q: '40917' })
+      .expect(200);
+    expect(response.body.people[0]).toMatchObject({ employeeId: 'HP-40917' });
+    // A wildcard typed by the user is a plain character, not a pattern.
+    expect(await found('%%')).toEqual([]);
+  });
+});
+
 describe('walk-ins', () => {
   it('checks in someone on the roster without a booking as a walk-in', async () => {
     const person = await insertPerson(t.db, clientId, { officeId, givenName: 'Ingrid' });

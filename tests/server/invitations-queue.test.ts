@@ -1,3 +1,4 @@
+import { mailIdentity } from '../../server/config';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createSmtpMailer } from '../../server/adapters/mail/mailer';
@@ -23,7 +24,7 @@ const runJobs = () =>
 
 beforeAll(async () => {
   t = await startTestApp({ env: { RATE_LIMIT_PER_ADDRESS: '10000' } });
-  mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
+  mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, ...mailIdentity(t.config) });
 });
 afterAll(async () => {
   mailer.close();

@@ -1,3 +1,4 @@
+import { mailIdentity } from '../../server/config';
 import { makeWorkerUtils } from 'graphile-worker';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
@@ -44,7 +45,7 @@ async function waitingJobs(task: string) {
 
 beforeAll(async () => {
   t = await startTestApp();
-  mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
+  mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, ...mailIdentity(t.config) });
 });
 afterAll(async () => {
   mailer.close();

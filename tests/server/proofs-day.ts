@@ -1,3 +1,4 @@
+import { mailIdentity } from '../../server/config';
 import request from 'supertest';
 import { createSmtpMailer } from '../../server/adapters/mail/mailer';
 import { createLogger } from '../../server/lib/logger';
@@ -72,7 +73,7 @@ export async function setUpProofsDay(
 
 /** Runs the deadline's settling now, as the settle-picks job would at the deadline. */
 export async function settlePicksNow(t: TestApp, dayId: string) {
-  const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, from: t.config.mailFrom });
+  const mailer = createSmtpMailer({ smtpUrl: t.mail.smtpUrl, ...mailIdentity(t.config) });
   try {
     const logger = createLogger('silent');
     const auth = createAuthService({ db: t.db, clock: t.clock, mailer, config: t.config, logger });

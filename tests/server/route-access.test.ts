@@ -37,6 +37,7 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/sitters/me': ['sitter'],
   'GET /api/dev/mailbox': ['studio_admin'],
   'GET /api/dev/mailbox/:messageId': ['studio_admin'],
+  'GET /api/dev/mailbox/:messageId/attachments/:index': ['studio_admin'],
   'POST /api/clients/:clientId/roster/imports': ['studio_admin', 'coordinator'],
   'GET /api/clients/:clientId/roster/imports/:importId': ['studio_admin', 'coordinator'],
   'PUT /api/clients/:clientId/roster/imports/:importId/mapping': ['studio_admin', 'coordinator'],
@@ -110,6 +111,8 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'POST /api/bookings': ['sitter', 'coordinator', 'studio_admin'],
   'PATCH /api/bookings/:bookingId': ['sitter', 'coordinator', 'studio_admin'],
   'DELETE /api/bookings/:bookingId': ['sitter', 'coordinator', 'studio_admin'],
+  'PUT /api/bookings/:bookingId/answers': ['sitter', 'coordinator', 'studio_admin'],
+  'GET /api/bookings/:bookingId/calendar.ics': ['sitter', 'coordinator', 'studio_admin'],
   'GET /api/bookings/:bookingId/pass.png': [
     'sitter',
     'coordinator',
@@ -119,6 +122,7 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/days/:dayId/progress': ['studio_admin', 'coordinator'],
   'GET /api/clients/:clientId/progress': ['studio_admin', 'coordinator'],
   'GET /api/days/:dayId/schedule': ['studio_admin', 'coordinator', 'photographer'],
+  'GET /api/days/:dayId/recorded': ['studio_admin', 'coordinator', 'photographer'],
   'GET /api/days/:dayId/schedule.csv': ['studio_admin', 'coordinator', 'photographer'],
   'POST /api/days/:dayId/invitations': ['studio_admin', 'coordinator'],
   'POST /api/days/:dayId/reminders': ['studio_admin', 'coordinator'],
@@ -201,6 +205,7 @@ beforeAll(async () => {
     token: 'A'.repeat(43),
     fileId: '00000000-0000-4000-8000-000000000003',
     name: 'portrait',
+    index: '0',
   };
 });
 afterAll(() => t.close());

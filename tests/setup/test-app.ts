@@ -8,7 +8,7 @@ import { createPgNotifications } from '../../server/adapters/notifications';
 import { LocalStorage } from '../../server/adapters/storage/local-storage';
 import type { ObjectStorage } from '../../server/adapters/storage/storage';
 import { createApp, type AppDeps } from '../../server/app';
-import { parseEnvironment, toAppConfig, type AppConfig } from '../../server/config';
+import { mailIdentity, parseEnvironment, toAppConfig, type AppConfig } from '../../server/config';
 import { createLogger } from '../../server/lib/logger';
 import { createTestDatabase, type TestDatabase } from './test-database';
 
@@ -53,7 +53,7 @@ export async function startTestApp(
   const config = toAppConfig(
     parseEnvironment({ NODE_ENV: 'test', PUBLIC_URL: 'http://likeness.test', ...options.env }),
   );
-  const mailer = createSmtpMailer({ smtpUrl: mail.smtpUrl, from: config.mailFrom });
+  const mailer = createSmtpMailer({ smtpUrl: mail.smtpUrl, ...mailIdentity(config) });
   const clock = new ManualClock();
   const notifications = await createPgNotifications(database.url);
   const scratch = mkdtempSync(path.join(os.tmpdir(), 'likeness-test-files-'));

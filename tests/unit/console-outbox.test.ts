@@ -86,17 +86,70 @@ describe('offline outbox', () => {
     outbox.stop();
   });
 
-  it('tells the photographer about a refused change and moves on to the next', async () => {
+  it('sets a refused change aside, tells the photographer, and moves on to the next', async () => {
     const { outbox, sent, refused, setNetwork } = harness();
     setNetwork(false);
-    await outbox.submit(checkIn('twice'));
+    const twice = checkIn('twice');
+    await outbox.submit(twice);
     await outbox.submit(checkIn('after'));
     refused.add('twice');
+    const told = new Set<string>();
+    outbox.subscribe(() => outbox.getState().notices.forEach((notice) => told.add(notice.text)));
     setNetwork(true);
     await outbox.flush();
     expect(sent).toEqual(['after']);
-    expect(outbox.getState().notices.map((notice) => notice.text)).toContain(
-      'Not saved — twice: Already in.',
+    expect([...told]).toEqual(['Not saved — twice: Already in.', 'after saved']);
+    // Kept on the tablet (a reload lists it again) but no longer waiting to be sent.
+    expect(outbox.waitingCount()).toBe(0);
+    expect(stored.get(twice.action.idempotencyKey)?.setAside?.reason).toBe('Already in.');
+    const aside = outbox.getState().items.filter((item) => item.setAside);
+    expect(aside.map((item) => item.label)).toEqual(['twice']);
+
+    // Sent again once it can be saved; or discarded.
+    refused.delete('twice');
+    await outbox.sendAgain(twice.action.idempotencyKey);
+    await vi.waitFor(() => expect(sent).toEqual(['after', 'twice']));
+    expect(stored.size).toBe(0);
+    outbox.stop();
+  });
+
+  it('sets aside a change the server keeps failing on (5xx), so the rest are not blocked', async () => {
+    const sent: string[] = [];
+    const outbox = new Outbox(
+      'day',
+      async (item): Promise<ConsoleActionResult> => {
+        if (item.label === 'poisoned') throw new ApiError(500, 'internal', 'Something went wrong.');
+        sent.push(item.label);
+        return {
+          idempotencyKey: item.action.idempotencyKey,
+          kind: item.action.kind,
+          replayed: false,
+          message: `${item.label} saved`,
+        };
+      },
+      async () => undefined,
+    );
+    const poisoned = checkIn('poisoned');
+    await outbox.submit(poisoned);
+    await outbox.submit(checkIn('behind'));
+    // Each flush is one retry; the third server failure sets the change aside.
+    for (let attempt = 0; attempt < 3; attempt += 1) await outbox.flush();
+    expect(sent).toEqual(['behind']);
+    expect(stored.get(poisoned.action.idempotencyKey)?.setAside?.reason).toBe(
+      'the server could not save it (error 500).',
+    );
+    await outbox.discard(poisoned.action.idempotencyKey);
+    expect(stored.size).toBe(0);
+    expect(outbox.getState().items.filter((item) => !item.sent)).toEqual([]);
+    outbox.stop();
+  });
+
+  it('shows one notice at a time: a new one replaces the last', async () => {
+    const { outbox } = harness();
+    await outbox.submit(checkIn('first'));
+    await outbox.submit(checkIn('second'));
+    await vi.waitFor(() =>
+      expect(outbox.getState().notices.map((notice) => notice.text)).toEqual(['second saved']),
     );
     outbox.stop();
   });

@@ -6,6 +6,7 @@ export interface CaughtMail {
   id: string;
   receivedAt: string;
   from: string;
+  replyTo: string;
   to: string[];
   subject: string;
   text: string;
@@ -31,9 +32,25 @@ export interface MailCatcher extends Mailbox {
   close(): Promise<void>;
 }
 
-/** A local stand-in for a real SMTP server: keeps every message in memory, newest first. */
-export async function startMailCatcher(port = 0, keep = 500): Promise<MailCatcher> {
-  const messages: CaughtMail[] = [];
+/** Where caught mail outlives the process (the database under `npm start`). */
+export interface CaughtMailStore {
+  /** The newest `limit` messages, newest first. */
+  load(limit: number): Promise<CaughtMail[]>;
+  /** Keeps one message and forgets all but the newest `keep`. */
+  save(message: CaughtMail, keep: number): Promise<void>;
+}
+
+/**
+ * A local stand-in for a real SMTP server: keeps the newest messages in memory, newest first,
+ * and in the store when one is given, so the Mailbox survives a restart.
+ */
+export async function startMailCatcher(
+  port = 0,
+  options: { keep?: number; store?: CaughtMailStore } = {},
+): Promise<MailCatcher> {
+  const keep = options.keep ?? 500;
+  const store = options.store;
+  const messages: CaughtMail[] = store ? await store.load(keep) : [];
   const waiters = new Set<() => void>();
 
   const server = new SMTPServer({
@@ -42,12 +59,13 @@ export async function startMailCatcher(port = 0, keep = 500): Promise<MailCatche
     logger: false,
     onData(stream, session, callback) {
       simpleParser(stream)
-        .then((parsed) => {
+        .then(async (parsed) => {
           const to = session.envelope.rcptTo.map((recipient) => recipient.address.toLowerCase());
-          messages.unshift({
+          const message: CaughtMail = {
             id: randomUUID(),
             receivedAt: new Date().toISOString(),
             from: parsed.from?.text ?? '',
+            replyTo: parsed.replyTo?.text ?? '',
             to,
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',
@@ -57,7 +75,10 @@ export async function startMailCatcher(port = 0, keep = 500): Promise<MailCatche
               contentType: attachment.contentType,
               content: attachment.content.toString('base64'),
             })),
-          });
+          };
+          // Stored before it is accepted: a refused message is sent again, never lost.
+          await store?.save(message, keep);
+          messages.unshift(message);
           messages.splice(keep);
           for (const wake of waiters) wake();
           callback();

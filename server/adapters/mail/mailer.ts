@@ -1,3 +1,4 @@
+import { escapeHtml } from './render-mail';
 import nodemailer from 'nodemailer';
 
 export interface OutgoingMail {
@@ -13,7 +14,7 @@ export interface OutgoingMail {
     cid?: string;
   }>;
   /** A calendar part (text/calendar; method=...), as RFC 6047 asks for iTIP over e-mail. */
-  calendar?: { method: 'REQUEST' | 'CANCEL'; content: string; filename: string };
+  calendar?: { method: 'REQUEST' | 'PUBLISH' | 'CANCEL'; content: string; filename: string };
 }
 
 /** Sends mail; the real and the local implementation both speak SMTP through nodemailer. */
@@ -22,7 +23,28 @@ export interface Mailer {
   close(): void;
 }
 
-export function createSmtpMailer(options: { smtpUrl: string; from: string }): Mailer {
+export interface MailerOptions {
+  smtpUrl: string;
+  /** Every message comes from the studio: its name and sending address. */
+  from: { name: string; address: string };
+  replyTo?: string | null;
+  /** The sign-off under every message (the studio's name). */
+  signature?: string;
+}
+
+/** Appends the sign-off to both parts, so every message ends with who sent it. */
+export function signMail(
+  mail: Pick<OutgoingMail, 'text' | 'html'>,
+  signature: string,
+): Pick<OutgoingMail, 'text' | 'html'> {
+  const line = `<p style="font-size:12px;color:#8a949c;margin-top:28px">${escapeHtml(signature)}</p>`;
+  const html = mail.html.includes('</body>')
+    ? mail.html.replace('</body>', `${line}</body>`)
+    : mail.html + line;
+  return { text: `${mail.text}\n-- \n${signature}\n`, html };
+}
+
+export function createSmtpMailer(options: MailerOptions): Mailer {
   const url = new URL(options.smtpUrl);
   const local = url.hostname === '127.0.0.1' || url.hostname === 'localhost';
   const transport = nodemailer.createTransport({
@@ -40,7 +62,9 @@ export function createSmtpMailer(options: { smtpUrl: string; from: string }): Ma
       const { calendar, ...rest } = mail;
       await transport.sendMail({
         from: options.from,
+        ...(options.replyTo ? { replyTo: options.replyTo } : {}),
         ...rest,
+        ...(options.signature ? signMail(mail, options.signature) : {}),
         ...(calendar ? { icalEvent: calendar } : {}),
       });
     },

@@ -14,12 +14,14 @@ export function escapeHtml(text: string): string {
     .replaceAll("'", '&#39;');
 }
 
-/** One layout for every message: a plain-text part and an HTML part with the same words. */
+/**
+ * One layout for every message: a plain-text part and an HTML part with the same words. The
+ * mailer adds the studio's sign-off, so no message is signed by the product.
+ */
 export function renderMail(content: MailContent): { text: string; html: string } {
   const textParts = [content.heading, '', ...content.paragraphs.flatMap((p) => [p, ''])];
   if (content.action) textParts.push(`${content.action.label}: ${content.action.url}`, '');
   if (content.footnote) textParts.push(content.footnote, '');
-  textParts.push('-- Sent by Likeness');
 
   const paragraphs = content.paragraphs
     .map((p) => `<p style="margin:0 0 14px;line-height:1.5">${escapeHtml(p)}</p>`)
@@ -30,6 +32,6 @@ export function renderMail(content: MailContent): { text: string; html: string }
   const footnote = content.footnote
     ? `<p style="font-size:13px;color:#55606a">${escapeHtml(content.footnote)}</p>`
     : '';
-  const html = `<!doctype html><html><body style="font-family:'Work Sans',Arial,sans-serif;color:#1b2228;max-width:560px;margin:0 auto;padding:24px"><h1 style="font-size:20px;margin:0 0 16px">${escapeHtml(content.heading)}</h1>${paragraphs}${action}${footnote}<p style="font-size:12px;color:#8a949c;margin-top:28px">Sent by Likeness</p></body></html>`;
+  const html = `<!doctype html><html><body style="font-family:'Work Sans',Arial,sans-serif;color:#1b2228;max-width:560px;margin:0 auto;padding:24px"><h1 style="font-size:20px;margin:0 0 16px">${escapeHtml(content.heading)}</h1>${paragraphs}${action}${footnote}</body></html>`;
   return { text: textParts.join('\n'), html };
 }

@@ -3,9 +3,11 @@ import type { Mailer } from '../../adapters/mail/mailer';
 import type { AppConfig } from '../../config';
 import type { Db } from '../../db/database';
 import * as daysRepo from '../days/days.repository';
+import type { DayRecord } from '../days/days.repository';
 import { bookingMail } from './booking.mails';
 import * as repo from './booking.repository';
-import { writeIcs } from './ics';
+import type { BookingRecord } from './booking.repository';
+import { writeIcs, type SittingEvent } from './ics';
 import { passPng } from './pass';
 
 export type BookingMailKind = 'booked' | 'moved' | 'updated' | 'cancelled' | 'day_before';
@@ -21,7 +23,9 @@ export function createBookingMailSender(deps: {
   config: AppConfig;
 }) {
   const { db, clock, mailer, config } = deps;
-  const organizerEmail = /<([^>]+)>/.exec(config.mailFrom)?.[1] ?? config.mailFrom;
+  // With a reply address the invitation is a REQUEST whose organiser can receive answers;
+  // without one it is PUBLISH, which asks for no reply.
+  const invitationMethod = config.mailReplyTo ? 'REQUEST' : 'PUBLISH';
 
   return async function sendMail(kind: BookingMailKind, bookingId: string): Promise<void> {
     const booking = await repo.findBooking(db, bookingId);
@@ -29,21 +33,13 @@ export function createBookingMailSender(deps: {
     if (!booking || !day) return;
     // A later cancel already replaced this message: do not announce a sitting that is gone.
     if (kind !== 'cancelled' && booking.status === 'cancelled') return;
-    const endsAt = new Date(booking.startsAt.getTime() + day.slotMinutes * 60_000);
-    const ics = writeIcs({
-      method: kind === 'cancelled' ? 'CANCEL' : 'REQUEST',
-      uid: booking.calendarUid,
-      sequence: booking.sequence,
-      stampedAt: clock.now(),
-      startsAt: booking.startsAt,
-      endsAt,
-      timeZone: day.timeZone,
-      summary: `Portrait sitting (${day.clientName})`,
-      location: day.room ? `${day.room}, ${day.address}` : day.address,
-      description: `Station ${booking.stationName}. Show your pass at the station.`,
-      organizer: { name: 'Likeness bookings', email: organizerEmail },
-      attendee: { name: booking.personName, email: booking.personEmail },
-    });
+    const ics = sittingCalendar(
+      booking,
+      day,
+      config,
+      clock.now(),
+      kind === 'cancelled' ? 'CANCEL' : invitationMethod,
+    );
     await mailer.send(
       bookingMail({
         kind,
@@ -53,8 +49,42 @@ export function createBookingMailSender(deps: {
         startsAt: booking.startsAt,
         passPng: kind === 'cancelled' ? null : await passPng(booking.passToken),
         ics,
+        calendarMethod: kind === 'cancelled' ? 'CANCEL' : invitationMethod,
         url: `${config.publicUrl}/`,
       }),
     );
   };
+}
+
+/**
+ * The calendar entry of a sitting as it stands, organised by the studio (at its reply address
+ * when there is one). Also served as a download from the sitter's page (PUBLISH).
+ */
+export function sittingCalendar(
+  booking: BookingRecord,
+  day: DayRecord,
+  config: AppConfig,
+  stampedAt: Date,
+  method: SittingEvent['method'],
+): string {
+  return writeIcs({
+    method,
+    uid: booking.calendarUid,
+    sequence: booking.sequence,
+    stampedAt,
+    startsAt: booking.startsAt,
+    endsAt: new Date(booking.startsAt.getTime() + day.slotMinutes * 60_000),
+    timeZone: day.timeZone,
+    summary: `Portrait sitting (${day.clientName})`,
+    location: day.room ? `${day.room}, ${day.address}` : day.address,
+    description: sittingDescription(booking.stationName, day.room),
+    organizer: { name: config.mailFrom.name, email: config.mailReplyTo ?? config.mailFrom.address },
+    attendee: { name: booking.personName, email: booking.personEmail },
+  });
+}
+
+/** The calendar entry's note: where to go and what to bring, in the sitter's words. */
+export function sittingDescription(stationName: string, room: string | null): string {
+  const where = room ? `${stationName} in ${room}` : stationName;
+  return `Your portrait is taken at ${where}. Bring your pass (in the booking e-mail or on your booking page) and show it at the station.`;
 }

@@ -37,6 +37,7 @@ export function bookingMail(input: {
   startsAt: Date;
   passPng: Buffer | null;
   ics: string;
+  calendarMethod: 'REQUEST' | 'PUBLISH' | 'CANCEL';
   url: string;
 }): OutgoingMail {
   const when = localWhen(input.startsAt, input.day.timeZone);
@@ -89,7 +90,7 @@ export function bookingMail(input: {
         ]
       : [],
     calendar: {
-      method: input.kind === 'cancelled' ? 'CANCEL' : 'REQUEST',
+      method: input.calendarMethod,
       content: input.ics,
       filename: input.kind === 'cancelled' ? 'cancel.ics' : 'invite.ics',
     },

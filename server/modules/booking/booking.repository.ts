@@ -221,6 +221,25 @@ export async function cancelBooking(trx: Transaction<Database>, id: string, now:
     .execute();
 }
 
+/** The answers given at booking (what helps on the day), as the sitter corrects them. */
+export async function updateSittingNeeds(
+  trx: Transaction<Database>,
+  id: string,
+  needs: {
+    preferredName: string | null;
+    glasses: boolean;
+    accessNeeds: string | null;
+    flashSensitive: boolean;
+  },
+  now: Date,
+) {
+  await trx
+    .updateTable('bookings')
+    .set({ ...needs, updatedAt: now })
+    .where('id', '=', id)
+    .execute();
+}
+
 /** Active bookings per slot start, for showing free seats. */
 export async function takenSeatsByStart(db: Executor, dayId: string): Promise<Map<string, number>> {
   const rows = await db

@@ -1,7 +1,11 @@
 import type { RouteTable } from '../../lib/route-table';
 import { viewerOf } from '../../lib/route-table';
 import { parseId, parseInput } from '../../lib/validate';
-import { createBookingRequestSchema, moveBookingRequestSchema } from '../../schemas/booking';
+import {
+  createBookingRequestSchema,
+  moveBookingRequestSchema,
+  sittingNeedsSchema,
+} from '../../schemas/booking';
 import type { BookingService } from './booking.service';
 
 export function registerBookingRoutes(routes: RouteTable, booking: BookingService) {
@@ -34,6 +38,30 @@ export function registerBookingRoutes(routes: RouteTable, booking: BookingServic
     async (req, res) => {
       const id = parseId(req.params.bookingId, 'That booking');
       res.json(await booking.cancel(viewerOf(req), id));
+    },
+  );
+
+  // The answers given at booking (name for files, glasses, flash, access needs).
+  routes.add(
+    'put',
+    '/bookings/:bookingId/answers',
+    ['sitter', 'coordinator', 'studio_admin'],
+    async (req, res) => {
+      const id = parseId(req.params.bookingId, 'That booking');
+      const input = parseInput(sittingNeedsSchema, req.body);
+      res.json(await booking.updateNeeds(viewerOf(req), id, input));
+    },
+  );
+
+  routes.add(
+    'get',
+    '/bookings/:bookingId/calendar.ics',
+    ['sitter', 'coordinator', 'studio_admin'],
+    async (req, res) => {
+      const id = parseId(req.params.bookingId, 'That booking');
+      const ics = await booking.calendarFile(viewerOf(req), id);
+      res.setHeader('Content-Disposition', 'attachment; filename="portrait-sitting.ics"');
+      res.type('text/calendar; charset=utf-8').send(ics);
     },
   );
 

@@ -7,14 +7,19 @@ import { addJob, type JobHandlers } from '../../jobs/job-queue';
 import { AppError, notFound } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
 import type { Viewer } from '../../lib/viewer';
-import type { Booking, CreateBookingInput, SitterDay } from '../../schemas/booking';
+import type {
+  Booking,
+  CreateBookingInput,
+  SitterDay,
+  SittingNeedsInput,
+} from '../../schemas/booking';
 import type { SlotList } from '../../schemas/days';
 import * as daysRepo from '../days/days.repository';
 import { hoursOf, staffMaySee } from '../days/days.service';
 import { generateSlots } from '../days/slots';
 import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
 import * as repo from './booking.repository';
-import { createBookingMailSender } from './booking.confirmation';
+import { createBookingMailSender, sittingCalendar } from './booking.confirmation';
 import { checkSlot, recheckUnderLock, slotBegun } from './booking-checks';
 import { newPassToken, passPng } from './pass';
 
@@ -323,6 +328,29 @@ export function createBookingService(deps: {
       const booking = await repo.findBooking(db, id);
       if (!booking) throw notFound('That booking');
       return toDto(booking, day, viewer);
+    },
+
+    /** The answers given at booking, changed until the sitter checks in (they help the day). */
+    async updateNeeds(viewer: Viewer, id: string, needs: SittingNeedsInput): Promise<Booking> {
+      const { day } = await visibleBooking(viewer, id);
+      await db.transaction().execute(async (trx) => {
+        const locked = await repo.lockBooking(trx, id);
+        if (locked?.status !== 'active') {
+          throw conflict('booking_cancelled', 'That booking was cancelled.');
+        }
+        if ((await repo.findBooking(trx, id))?.checkedIn) throw alreadyCheckedIn();
+        await repo.updateSittingNeeds(trx, id, needs, clock.now());
+      });
+      const booking = await repo.findBooking(db, id);
+      if (!booking) throw notFound('That booking');
+      return toDto(booking, day, viewer);
+    },
+
+    /** The sitting as a calendar file to download (PUBLISH: it asks for no reply). */
+    async calendarFile(viewer: Viewer, id: string): Promise<string> {
+      const { booking, day } = await visibleBooking(viewer, id);
+      if (booking.status !== 'active') throw notFound('That booking');
+      return sittingCalendar(booking, day, config, clock.now(), 'PUBLISH');
     },
 
     async pass(viewer: Viewer, id: string): Promise<Buffer> {

@@ -2,10 +2,11 @@ import { offsetMinutesAt, wallClockAt } from '../days/zoned-time';
 
 /**
  * A calendar invitation for one sitting (RFC 5545 iCalendar, RFC 5546 iTIP): METHOD:REQUEST
- * to book or move (SEQUENCE raised on every move), METHOD:CANCEL with the same UID to cancel.
+ * to book or move (SEQUENCE raised on every move) when the organiser's address takes replies,
+ * METHOD:PUBLISH when no reply is wanted, METHOD:CANCEL with the same UID to cancel.
  */
 export interface SittingEvent {
-  method: 'REQUEST' | 'CANCEL';
+  method: 'REQUEST' | 'PUBLISH' | 'CANCEL';
   uid: string;
   sequence: number;
   stampedAt: Date;
@@ -68,42 +69,45 @@ const offsetText = (minutes: number) => {
 
 /**
  * RFC 5545 3.6.5 wants a VTIMEZONE for every TZID used. We describe the observance in force at
- * the event: it began at the last offset change before it (found by searching Intl's zone data).
+ * the event: it began at the last offset change before it (found by searching Intl's zone data
+ * on whole minutes, so every message for the same season carries the same section).
  */
 export function timeZoneComponent(timeZone: string, at: Date): string[] {
-  const offsetNow = offsetMinutesAt(at.getTime(), timeZone);
-  const hour = 60 * 60_000;
-  let low = at.getTime() - 400 * 24 * hour;
-  let changeFound = offsetMinutesAt(low, timeZone) !== offsetNow;
-  // Walk back in 30-day steps to the last window holding a change, then bisect to the minute.
-  let high = at.getTime();
-  for (let probe = high - 30 * 24 * hour; probe >= low; probe -= 30 * 24 * hour) {
-    if (offsetMinutesAt(probe, timeZone) !== offsetNow) {
+  const minute = 60_000;
+  const offsetAtMinute = (index: number) => offsetMinutesAt(index * minute, timeZone);
+  const atMinute = Math.floor(at.getTime() / minute);
+  const offsetNow = offsetAtMinute(atMinute);
+  const step = 30 * 24 * 60; // 30 days, in minutes
+  const earliest = atMinute - 400 * 24 * 60;
+  // Walk back in 30-day steps to the window holding the last change, then bisect to the minute.
+  let high = atMinute;
+  let low: number | null = null;
+  for (let probe = high - step; probe >= earliest; probe -= step) {
+    if (offsetAtMinute(probe) !== offsetNow) {
       low = probe;
-      changeFound = true;
       break;
     }
     high = probe;
   }
   let from = offsetNow;
-  let since = Date.UTC(1970, 0, 1);
-  if (changeFound) {
-    from = offsetMinutesAt(low, timeZone);
-    while (high - low > 60_000) {
+  let since = Date.UTC(1970, 0, 1) - from * minute; // no change found: local 1970-01-01 00:00
+  if (low !== null) {
+    from = offsetAtMinute(low);
+    while (high - low > 1) {
       const middle = Math.floor((low + high) / 2);
-      if (offsetMinutesAt(middle, timeZone) === offsetNow) high = middle;
+      if (offsetAtMinute(middle) === offsetNow) high = middle;
       else low = middle;
     }
-    since = high;
+    since = high * minute; // the first whole minute under the new offset
   }
   // Standard time is the smaller offset of the two; a zone without changes is standard.
-  const kind = changeFound && offsetNow > from ? 'DAYLIGHT' : 'STANDARD';
+  const kind = low !== null && offsetNow > from ? 'DAYLIGHT' : 'STANDARD';
   return [
     'BEGIN:VTIMEZONE',
     `TZID:${timeZone}`,
     `BEGIN:${kind}`,
     // An observance's DTSTART is local time read with the offset in force before the change.
-    `DTSTART:${utcStamp(new Date(since + from * 60_000)).replace('Z', '')}`,
+    `DTSTART:${utcStamp(new Date(since + from * minute)).replace('Z', '')}`,
     `TZOFFSETFROM:${offsetText(from)}`,
     `TZOFFSETTO:${offsetText(offsetNow)}`,
     `END:${kind}`,
@@ -130,7 +134,12 @@ export function writeIcs(event: SittingEvent): string {
     `LOCATION:${escapeText(event.location)}`,
     `DESCRIPTION:${escapeText(event.description)}`,
     `ORGANIZER;CN=${quoteParam(event.organizer.name)}:mailto:${event.organizer.email}`,
-    `ATTENDEE;CN=${quoteParam(event.attendee.name)};ROLE=REQ-PARTICIPANT;PARTSTAT=${event.method === 'CANCEL' ? 'DECLINED' : 'ACCEPTED'}:mailto:${event.attendee.email}`,
+    // RFC 5546 3.2.1: a PUBLISH names no attendees; REQUEST and CANCEL name the sitter.
+    ...(event.method === 'PUBLISH'
+      ? []
+      : [
+          `ATTENDEE;CN=${quoteParam(event.attendee.name)};ROLE=REQ-PARTICIPANT;PARTSTAT=${event.method === 'CANCEL' ? 'DECLINED' : 'ACCEPTED'};RSVP=FALSE:mailto:${event.attendee.email}`,
+        ]),
     `STATUS:${event.method === 'CANCEL' ? 'CANCELLED' : 'CONFIRMED'}`,
     'TRANSP:OPAQUE',
     'END:VEVENT',

@@ -149,9 +149,14 @@ export function listNoShows(db: Executor, dayId: string) {
     .execute();
 }
 
+/**
+ * Every word typed must appear in the name, preferred name or employee id, ignoring case and
+ * accents ("zoe mul" finds Zoë Müller; "HP-0042" finds that employee id).
+ */
 export function searchRoster(db: Db, clientId: string, dayId: string, text: string) {
-  const pattern = `%${text.replace(/[\\%_]/g, (match) => `\\${match}`)}%`;
-  return db
+  const words = text.split(/\s+/).filter(Boolean).slice(0, 6);
+  const haystack = sql`unaccent(people.given_name || ' ' || people.family_name || ' ' || coalesce(people.preferred_name, '') || ' ' || coalesce(people.employee_id, ''))`;
+  let query = db
     .selectFrom('people')
     .leftJoin('offices', 'offices.id', 'people.officeId')
     .select((eb) => [
@@ -159,6 +164,7 @@ export function searchRoster(db: Db, clientId: string, dayId: string, text: stri
       'people.givenName',
       'people.familyName',
       'people.preferredName',
+      'people.employeeId',
       'people.department',
       'offices.name as officeName',
       eb
@@ -173,12 +179,10 @@ export function searchRoster(db: Db, clientId: string, dayId: string, text: stri
         .as('checkedIn'),
     ])
     .where('people.clientId', '=', clientId)
-    .where('people.active', '=', true)
-    .where(
-      sql<boolean>`(people.given_name || ' ' || people.family_name || ' ' || coalesce(people.preferred_name, '')) ilike ${pattern}`,
-    )
-    .orderBy('people.familyName')
-    .orderBy('people.givenName')
-    .limit(20)
-    .execute();
+    .where('people.active', '=', true);
+  for (const word of words) {
+    const pattern = `%${word.replace(/[\\%_]/g, (match) => `\\${match}`)}%`;
+    query = query.where(sql<boolean>`${haystack} ilike unaccent(${pattern})`);
+  }
+  return query.orderBy('people.familyName').orderBy('people.givenName').limit(20).execute();
 }

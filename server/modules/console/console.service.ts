@@ -104,6 +104,7 @@ export function createConsoleService(deps: { db: Db; clock: Clock }) {
       return rows.map((row) => ({
         id: row.id,
         name: `${row.givenName} ${row.familyName}${row.preferredName ? ` (${row.preferredName})` : ''}`,
+        employeeId: row.employeeId,
         department: row.department,
         officeName: row.officeName,
         checkedIn: Boolean(row.checkedIn),

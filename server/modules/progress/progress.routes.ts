@@ -36,6 +36,15 @@ export function registerProgressRoutes(
 
   routes.add(
     'get',
+    '/days/:dayId/recorded',
+    ['studio_admin', 'coordinator', 'photographer'],
+    async (req, res) => {
+      res.json(await progress.recorded(viewerOf(req), dayId(req.params.dayId)));
+    },
+  );
+
+  routes.add(
+    'get',
     '/days/:dayId/schedule.csv',
     ['studio_admin', 'coordinator', 'photographer'],
     async (req, res) => {

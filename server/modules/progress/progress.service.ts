@@ -17,6 +17,7 @@ import type { DaysService } from '../days/days.service';
 import { wallClockAt } from '../days/zoned-time';
 import { toCsv } from '../../lib/csv';
 import { NO_FLASH_WORDING } from '../../schemas/sitter-wording';
+import { recordedDay } from './day-record';
 
 async function invitationsSent(db: Db, dayId: string): Promise<Set<string>> {
   const rows = await db
@@ -120,6 +121,8 @@ export function createProgressService(deps: { db: Db; days: DaysService }) {
   return {
     schedule,
     progress: dayProgress,
+    /** The day sheet after the day: what the console recorded, station by station. */
+    recorded: (viewer: Viewer, dayId: string) => recordedDay({ db, days }, viewer, dayId),
 
     /** Every day of one client side by side: a coordinator's overview across offices. */
     async clientProgress(viewer: Viewer, clientId: string): Promise<ClientProgress> {

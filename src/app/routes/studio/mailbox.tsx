@@ -6,7 +6,8 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { Notice } from '../../../components/ui/notice';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { mailboxQueryOptions, useMailbox } from '../../../features/dev-mailbox/api/list-messages';
-import { LinkifiedText } from '../../../features/dev-mailbox/components/linkified-text';
+import { useMessage } from '../../../features/dev-mailbox/api/get-message';
+import { MailView } from '../../../features/dev-mailbox/components/mail-view';
 import { formatDateTime } from '../../../lib/format';
 import { requireRole } from '../../guards';
 
@@ -24,12 +25,13 @@ export function MailboxPage() {
   const [openId, setOpenId] = useState<string | null>(null);
   const messages = mailbox.data?.messages ?? [];
   const open = messages.find((message) => message.id === openId) ?? messages[0];
+  const opened = useMessage(open?.id);
 
   return (
     <>
       <PageHeading title="Mailbox">
-        Development only: mail is caught here instead of being delivered, so you can follow every
-        link.
+        Development only: mail is caught here instead of being delivered (and kept across restarts),
+        so you can follow every link.
       </PageHeading>
       {mailbox.isError ? <Notice tone="caution">{mailbox.error.message}</Notice> : null}
       {!mailbox.isError && messages.length === 0 ? (
@@ -61,10 +63,8 @@ export function MailboxPage() {
             ))}
           </ul>
           <Card title={open.subject}>
-            <p className="mb-3 text-sm text-ink-muted">
-              From {open.from} to {open.to.join(', ')}
-            </p>
-            <LinkifiedText text={open.text} />
+            {opened.isError ? <Notice tone="caution">{opened.error.message}</Notice> : null}
+            {opened.data ? <MailView key={opened.data.id} message={opened.data} /> : null}
           </Card>
         </div>
       ) : null}

@@ -1,9 +1,11 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { Booking, SitterDay } from '../../../../server/schemas/booking';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useCancelBooking } from '../api/cancel-booking';
 import { useMoveBooking } from '../api/move-booking';
+import { calendarFileUrl } from '../api/update-answers';
+import { BookingAnswers } from './booking-answers';
 import { SlotPicker } from './slot-picker';
 
 const changesClose = (day: SitterDay) =>
@@ -19,6 +21,15 @@ export function MyBooking({ day, booking }: { day: SitterDay; booking: Booking }
   const [target, setTarget] = useState('');
   const move = useMoveBooking();
   const cancel = useCancelBooking();
+  const moved = useRef<HTMLDivElement>(null);
+  const showMoved = move.isSuccess && mode === 'view';
+  useEffect(() => {
+    // The move form sat lower on the page: bring the confirmation into view (phones).
+    if (showMoved) {
+      moved.current?.scrollIntoView({ block: 'center' });
+      moved.current?.focus({ preventScroll: true });
+    }
+  }, [showMoved]);
 
   return (
     <div className="flex flex-col gap-4">
@@ -26,8 +37,12 @@ export function MyBooking({ day, booking }: { day: SitterDay; booking: Booking }
         Booked for <strong>{booking.localTime}</strong> ({booking.timeZone}, {booking.offset}) at{' '}
         {booking.stationName}.
       </p>
-      {move.isSuccess && mode === 'view' ? (
-        <Notice tone="success">Moved. An updated calendar invitation is on its way.</Notice>
+      {showMoved ? (
+        <div ref={moved} tabIndex={-1} className="outline-none">
+          <Notice tone="success">
+            Moved to {booking.localTime}. An updated calendar invitation is on its way.
+          </Notice>
+        </div>
       ) : null}
       <figure className="flex flex-col items-center gap-2 self-center">
         <img
@@ -41,6 +56,18 @@ export function MyBooking({ day, booking }: { day: SitterDay; booking: Booking }
           Your pass. Show it at the station; it holds no personal details.
         </figcaption>
       </figure>
+      <a
+        href={calendarFileUrl(booking)}
+        download="portrait-sitting.ics"
+        className="inline-flex min-h-touch items-center self-start font-medium text-spruce-700 underline"
+      >
+        Add to my calendar (.ics file)
+      </a>
+      <BookingAnswers
+        key={booking.sequence}
+        booking={booking}
+        canChange={booking.status === 'active'}
+      />
       {!booking.canChange ? (
         <Notice tone="info">
           Changes closed on {changesClose(day)}. Ask your coordinator to change it.

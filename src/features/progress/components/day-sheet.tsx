@@ -2,7 +2,13 @@ import { Notice } from '../../../components/ui/notice';
 import { useSchedule } from '../api/get-schedule';
 import { NO_FLASH_WORDING } from '../../../../server/schemas/sitter-wording';
 
-/** One printable page per station: time, name and what helps (glasses, flash, access). */
+/** Empty rows under the bookings, for walk-ins written in by hand on the day. */
+export const walkInRows = 8;
+
+/**
+ * One printable page per station: time, name, what helps (glasses, flash, access), a column
+ * for the first and last frame written by hand, and blank rows for walk-ins.
+ */
 export function DaySheet({ dayId }: { dayId: string }) {
   const schedule = useSchedule(dayId);
   if (schedule.isPending) return <p role="status">Loading the day sheet…</p>;
@@ -20,41 +26,52 @@ export function DaySheet({ dayId }: { dayId: string }) {
             {sheet.room ? `${sheet.room}, ` : ''}
             {sheet.address}
           </p>
-          {station.entries.length === 0 ? (
-            <p>No bookings at this station yet.</p>
-          ) : (
-            <table className="w-full border-collapse text-left text-sm">
-              <thead>
-                <tr className="border-b-2 border-ink">
-                  <th className="py-1.5 pr-3">Time</th>
-                  <th className="py-1.5 pr-3">Name</th>
-                  <th className="py-1.5 pr-3">Notes</th>
-                  <th className="py-1.5">Done</th>
+          {station.entries.length === 0 ? <p>No bookings at this station yet.</p> : null}
+          <table
+            aria-label={`${station.name} day sheet`}
+            className="w-full border-collapse text-left text-sm"
+          >
+            <thead>
+              <tr className="border-b-2 border-ink">
+                <th className="py-1.5 pr-3">Time</th>
+                <th className="py-1.5 pr-3">Name</th>
+                <th className="py-1.5 pr-3">Notes</th>
+                <th className="py-1.5 pr-3">Frames (first – last)</th>
+                <th className="py-1.5">Done</th>
+              </tr>
+            </thead>
+            <tbody>
+              {station.entries.map((entry) => (
+                <tr key={entry.bookingId} className="border-b border-line">
+                  <td className="py-1.5 pr-3 tabular-nums">{entry.localTime}</td>
+                  <td className="py-1.5 pr-3">
+                    {entry.name}
+                    {entry.preferredName ? ` (files: ${entry.preferredName})` : ''}
+                  </td>
+                  <td className="py-1.5 pr-3">
+                    {[
+                      entry.flashSensitive ? NO_FLASH_WORDING : null,
+                      entry.glasses ? 'Glasses' : null,
+                      entry.accessNeeds,
+                    ]
+                      .filter(Boolean)
+                      .join(' · ')}
+                  </td>
+                  <td className="py-1.5 pr-3 text-ink-muted">____ – ____</td>
+                  <td className="py-1.5">☐</td>
                 </tr>
-              </thead>
-              <tbody>
-                {station.entries.map((entry) => (
-                  <tr key={entry.bookingId} className="border-b border-line">
-                    <td className="py-1.5 pr-3 tabular-nums">{entry.localTime}</td>
-                    <td className="py-1.5 pr-3">
-                      {entry.name}
-                      {entry.preferredName ? ` (files: ${entry.preferredName})` : ''}
-                    </td>
-                    <td className="py-1.5 pr-3">
-                      {[
-                        entry.flashSensitive ? NO_FLASH_WORDING : null,
-                        entry.glasses ? 'Glasses' : null,
-                        entry.accessNeeds,
-                      ]
-                        .filter(Boolean)
-                        .join(' · ')}
-                    </td>
-                    <td className="py-1.5">☐</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          )}
+              ))}
+              {Array.from({ length: walkInRows }, (_, index) => (
+                <tr key={`walk-in-${index}`} className="h-9 border-b border-line">
+                  <td className="py-1.5 pr-3 text-ink-muted">__:__</td>
+                  <td className="py-1.5 pr-3 text-ink-muted">Walk-in:</td>
+                  <td className="py-1.5 pr-3" />
+                  <td className="py-1.5 pr-3 text-ink-muted">____ – ____</td>
+                  <td className="py-1.5">☐</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
         </section>
       ))}
     </div>

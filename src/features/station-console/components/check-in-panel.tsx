@@ -66,11 +66,15 @@ export function CheckInPanel({
       {mode === 'search' ? (
         <div className="flex flex-col gap-3">
           <TextField
-            label="Name"
+            label="Name or employee id"
             value={text}
             onChange={setText}
             autoComplete="off"
-            hint={online ? 'Type at least two letters.' : 'Searching the roster needs the network.'}
+            hint={
+              online
+                ? 'Type at least two characters; accents and capitals do not matter.'
+                : 'Searching the roster needs the network.'
+            }
           />
           {search.isError ? (
             <p role="alert" className="text-base text-danger-600">
@@ -86,7 +90,9 @@ export function CheckInPanel({
                 <div className="flex-1">
                   <p className="text-lg font-semibold">{person.name}</p>
                   <p className="text-sm text-ink-muted">
-                    {[person.department, person.officeName].filter(Boolean).join(' · ')}
+                    {[person.employeeId, person.department, person.officeName]
+                      .filter(Boolean)
+                      .join(' · ')}
                   </p>
                 </div>
                 {person.checkedIn ? (

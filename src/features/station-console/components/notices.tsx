@@ -1,7 +1,10 @@
 import { Button } from '../../../components/ui/button';
 import type { OutboxNotice } from '../offline/outbox';
 
-/** Answers from the server, newest last; refusals stay until the photographer dismisses them. */
+/**
+ * The latest answer from the server, over the page so the queue never moves: each notice
+ * replaces the one before and fades (one that offers a fix stays until replaced or dismissed).
+ */
 export function Notices({
   notices,
   onDismiss,
@@ -12,12 +15,17 @@ export function Notices({
   onFix: (noticeId: string, fix: NonNullable<OutboxNotice['fix']>) => void;
 }) {
   return (
-    <div aria-live="polite" className="flex flex-col gap-2">
+    <div
+      aria-live="polite"
+      aria-label="Notices"
+      role="region"
+      className="pointer-events-none fixed inset-x-0 top-20 z-20 flex flex-col items-center gap-2 px-4"
+    >
       {notices.map((notice) => (
         <div
           key={notice.id}
           role={notice.tone === 'danger' ? 'alert' : 'status'}
-          className={`flex flex-wrap items-center gap-3 rounded-control border-l-4 px-4 py-2 text-lg ${
+          className={`pointer-events-auto flex w-full max-w-2xl flex-wrap items-center gap-3 rounded-control border-l-4 px-4 py-2 text-lg shadow-card ${
             notice.tone === 'danger'
               ? 'border-danger-600 bg-danger-50 text-danger-700'
               : 'border-success-600 bg-success-50 text-ink'

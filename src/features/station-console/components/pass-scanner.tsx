@@ -13,8 +13,11 @@ prepareZXingModule({
 
 /** How often a camera frame is decoded: often enough to feel instant, light on the battery. */
 const scanIntervalMs = 200;
-/** The same pass held in view is read once, not five times a second. */
-const sameCodePauseMs = 4000;
+/**
+ * A pass held in view is read once: the same code is offered again only after it has been out
+ * of view this long (the pause restarts each time it is seen).
+ */
+const sameCodePauseMs = 3000;
 
 /**
  * Reads a pass with the tablet's rear camera (facingMode "environment") and zxing-wasm. Nothing here
@@ -53,9 +56,9 @@ export function PassScanner({ onCode }: { onCode: (text: string) => void }) {
         const [code] = await readBarcodes(image, { formats: ['QRCode'], maxNumberOfSymbols: 1 });
         if (!code?.isValid || !code.text) return;
         const now = Date.now();
-        if (code.text === last.text && now - last.at < sameCodePauseMs) return;
+        const repeat = code.text === last.text && now - last.at < sameCodePauseMs;
         last = { text: code.text, at: now };
-        onCodeRef.current(code.text);
+        if (!repeat) onCodeRef.current(code.text);
       } finally {
         busy = false;
       }

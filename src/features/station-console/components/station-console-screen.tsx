@@ -15,6 +15,7 @@ import { CorrectFrames } from './correct-frames';
 import { FinishSitting } from './finish-sitting';
 import { Notices } from './notices';
 import { QueueEntryCard } from './queue-entry';
+import { SetAsideList } from './set-aside-list';
 import { Slate } from './slate';
 import { StationFrames } from './station-frames';
 import { SyncIndicator } from './sync-indicator';
@@ -53,13 +54,16 @@ export function StationConsoleScreen({
   }, []);
 
   const data = snapshot.data;
+  // A set-aside change will not happen unless sent again: the screen does not show it as done.
+  const pending = useMemo(() => state.items.filter((item) => !item.setAside), [state.items]);
+  const setAside = useMemo(() => state.items.filter((item) => item.setAside), [state.items]);
   const shown = useMemo(
-    () => applyPending(data ?? { entries: [], sittings: [] }, state.items),
-    [data, state.items],
+    () => applyPending(data ?? { entries: [], sittings: [] }, pending),
+    [data, pending],
   );
   const commands = useConsoleCommands(outbox, stationId, shown);
   const online = browserOnline && state.reachable;
-  const waiting = state.items.filter((item) => !item.sent).length;
+  const waiting = pending.filter((item) => !item.sent).length;
 
   if (snapshot.isPending) return <p className="p-6 text-xl">Loading the console…</p>;
   if (!data) {
@@ -74,7 +78,7 @@ export function StationConsoleScreen({
     return (
       <div className="flex flex-col gap-4 p-6">
         <Notice tone="danger">This station is not part of the day any more.</Notice>
-        <Link className="text-lg text-spruce-700 underline" to="/console?change=1">
+        <Link className="text-lg text-spruce-700 underline" to="/console">
           Choose a station
         </Link>
       </div>
@@ -146,7 +150,7 @@ export function StationConsoleScreen({
           </Button>
         ) : null}
         <Link
-          to="/console?change=1"
+          to="/console"
           className="inline-flex min-h-touch items-center rounded-control px-3 font-medium text-spruce-700 underline"
         >
           Change station
@@ -164,10 +168,10 @@ export function StationConsoleScreen({
       </header>
       <main className="flex flex-1 flex-wrap gap-4 p-4">
         <section aria-label="Queue" className="flex min-w-80 flex-1 flex-col gap-3">
-          <Notices
-            notices={state.notices}
-            onDismiss={(id) => outbox.dismiss(id)}
-            onFix={fixRefusedFinish}
+          <SetAsideList
+            items={setAside}
+            onSendAgain={(key) => void outbox.sendAgain(key)}
+            onDiscard={(key) => void outbox.discard(key)}
           />
           {!data.canAct ? (
             <Notice>You can follow the console; only the studio can change it.</Notice>
@@ -298,6 +302,11 @@ export function StationConsoleScreen({
           onCancel={() => setCorrecting(null)}
         />
       ) : null}
+      <Notices
+        notices={state.notices}
+        onDismiss={(id) => outbox.dismiss(id)}
+        onFix={fixRefusedFinish}
+      />
       {commands.undo ? (
         <UndoBar label={commands.undo.label} onUndo={() => void commands.takeBack()} />
       ) : null}

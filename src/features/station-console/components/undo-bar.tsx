@@ -1,6 +1,6 @@
 import { Button } from '../../../components/ui/button';
 
-/** The last change, reversible for a few seconds. */
+/** The last change, reversible until the next one is made. */
 export function UndoBar({ label, onUndo }: { label: string; onUndo: () => void }) {
   return (
     <div className="pointer-events-none fixed inset-x-0 bottom-4 z-30 flex justify-center px-4">

@@ -13,14 +13,16 @@ type Body = ConsoleAction extends infer A
     : never
   : never;
 
-const undoSeconds = 8;
+const samePassMs = 5000;
 
 /** Every change the console can make, each recorded through the outbox with its own key. */
 export function useConsoleCommands(outbox: Outbox, stationId: string, shown: ShownConsole) {
   const [undo, setUndo] = useState<{ key: string; label: string; target: ConsoleAction } | null>(
     null,
   );
-  const undoTimer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
+
+  // The same pass shown again within a few seconds is one scan (one check-in, one notice).
+  const lastPass = useRef({ token: '', at: 0 });
 
   async function record(
     body: Body,
@@ -41,10 +43,12 @@ export function useConsoleCommands(outbox: Outbox, stationId: string, shown: Sho
       outbox.note('danger', `Not saved — ${label}: this tablet could not store the change.`);
       return;
     }
-    if (action.kind === 'undo' || !undoable) return;
-    clearTimeout(undoTimer.current);
+    // Undo stays offered until the next change: the photographer's hands may be full.
+    if (action.kind === 'undo' || !undoable) {
+      setUndo(null);
+      return;
+    }
     setUndo({ key: action.idempotencyKey, label, target: action });
-    undoTimer.current = setTimeout(() => setUndo(null), undoSeconds * 1000);
   }
 
   return {
@@ -83,6 +87,10 @@ export function useConsoleCommands(outbox: Outbox, stationId: string, shown: Sho
     },
     async checkInPass(text: string) {
       const passToken = text.trim().toUpperCase();
+      const now = Date.now();
+      const repeat = lastPass.current.token === passToken && now - lastPass.current.at < samePassMs;
+      lastPass.current = { token: passToken, at: now };
+      if (repeat) return;
       // crypto.subtle exists only on https (and localhost); without it the server decides alone.
       const passHash = crypto.subtle ? await sha256Hex(passToken) : undefined;
       const known = passHash ? shown.entries.find((entry) => entry.passHash === passHash) : null;

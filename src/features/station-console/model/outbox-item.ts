@@ -14,4 +14,9 @@ export interface OutboxItem {
   target?: ConsoleAction;
   /** Order of recording; changes are sent strictly in this order. */
   sequence: number;
+  /**
+   * The server refused it (or kept failing on it): kept on the tablet and shown, but no longer
+   * sent, so the changes behind it still go out. Sending it again clears this.
+   */
+  setAside?: { reason: string; at: string };
 }

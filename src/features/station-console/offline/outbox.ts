@@ -12,7 +12,10 @@ export interface OutboxNotice {
 }
 
 export interface OutboxState {
-  /** Recorded on the tablet; `sent` ones wait only for the next snapshot to show them. */
+  /**
+   * Recorded on the tablet; `sent` ones wait only for the next snapshot to show them; set-aside
+   * ones were refused and wait for the photographer to send them again or discard them.
+   */
   items: Array<OutboxItem & { sent?: boolean }>;
   /** False once a send failed for want of network, until one succeeds again. */
   reachable: boolean;
@@ -23,10 +26,18 @@ export interface OutboxState {
 
 type Send = (item: OutboxItem) => Promise<ConsoleActionResult>;
 
+/** How long a notice stays before it fades; one that offers a fix stays until replaced. */
+const noticeMs = { success: 5000, danger: 10000 };
+/** Server errors (5xx) on one change before it is set aside so the rest can go out. */
+const serverFailuresBeforeSetAside = 3;
+/** Answers that mean "not now" rather than "never": the change is kept in line and retried. */
+const retryLater = new Set([0, 408, 425, 429]);
+
 /**
  * The tablet's queue of changes. Each is written to IndexedDB before anything else happens,
- * then sent strictly in order; a network failure stops the line and retries later, a refusal
- * from the server is shown to the photographer and the line moves on.
+ * then sent strictly in order; a network failure stops the line and retries later. A change the
+ * server refuses (4xx), or keeps failing on (5xx), is set aside: kept on the tablet and listed
+ * for the photographer, while the changes behind it keep going out.
  */
 export class Outbox {
   private state: OutboxState = { items: [], reachable: true, signedOut: false, notices: [] };
@@ -35,6 +46,8 @@ export class Outbox {
   private retry: ReturnType<typeof setTimeout> | undefined;
   private inFlight: string | null = null;
   private counter = 0;
+  private serverFailures = new Map<string, number>();
+  private fadeTimer: ReturnType<typeof setTimeout> | undefined;
 
   constructor(
     private readonly dayId: string,
@@ -60,10 +73,16 @@ export class Outbox {
     this.notify(tone, text);
   }
 
+  /**
+   * One notice at a time: a new one replaces the last and fades on its own. A notice that
+   * offers a fix (correct the first frame) stays until used or dismissed.
+   */
   private notify(tone: OutboxNotice['tone'], text: string, fix?: OutboxNotice['fix']) {
     const notice: OutboxNotice = { id: crypto.randomUUID(), tone, text, ...(fix ? { fix } : {}) };
-    this.set({ notices: [...this.state.notices, notice].slice(-4) });
-    if (tone === 'success') setTimeout(() => this.dismiss(notice.id), 6000);
+    clearTimeout(this.fadeTimer);
+    const offers = this.state.notices.filter((item) => item.fix).slice(-2);
+    this.set({ notices: [...offers, notice] });
+    if (!fix) this.fadeTimer = setTimeout(() => this.dismiss(notice.id), noticeMs[tone]);
   }
 
   dismiss(id: string) {
@@ -105,7 +124,39 @@ export class Outbox {
   }
 
   waitingCount() {
-    return this.state.items.filter((item) => !item.sent).length;
+    return this.state.items.filter((item) => !item.sent && !item.setAside).length;
+  }
+
+  /** A set-aside change goes to the back of the line and is sent again. */
+  async sendAgain(idempotencyKey: string) {
+    const item = this.state.items.find((entry) => entry.action.idempotencyKey === idempotencyKey);
+    if (!item?.setAside) return;
+    const { setAside: _cleared, ...rest } = item;
+    const again: OutboxItem = { ...rest, sequence: Date.now() * 1000 + (this.counter++ % 1000) };
+    await outboxStore.add(again);
+    this.serverFailures.delete(idempotencyKey);
+    this.set({
+      items: [...this.state.items.filter((entry) => entry !== item), again],
+    });
+    void this.flush();
+  }
+
+  /** The photographer gives up on a set-aside change: it leaves the tablet. */
+  async discard(idempotencyKey: string) {
+    const item = this.state.items.find((entry) => entry.action.idempotencyKey === idempotencyKey);
+    if (!item?.setAside) return;
+    await outboxStore.remove(idempotencyKey);
+    this.set({ items: this.state.items.filter((entry) => entry !== item) });
+  }
+
+  private async setAside(item: OutboxItem, reason: string) {
+    const aside: OutboxItem = { ...item, setAside: { reason, at: new Date().toISOString() } };
+    // Kept on the tablet (a reload still lists it), never sent again on its own.
+    await outboxStore.add(aside);
+    this.serverFailures.delete(item.action.idempotencyKey);
+    this.set({
+      items: this.state.items.map((entry) => (entry === item ? aside : entry)),
+    });
   }
 
   async flush(): Promise<void> {
@@ -114,12 +165,13 @@ export class Outbox {
     clearTimeout(this.retry);
     try {
       for (;;) {
-        const next = this.state.items.find((item) => !item.sent);
+        const next = this.state.items.find((item) => !item.sent && !item.setAside);
         if (!next) break;
         this.inFlight = next.action.idempotencyKey;
         try {
           const result = await this.send(next);
           await outboxStore.remove(next.action.idempotencyKey);
+          this.serverFailures.delete(next.action.idempotencyKey);
           this.mark(next, 'sent');
           this.set({ reachable: true, signedOut: false });
           if (!result.replayed) this.notify('success', result.message);
@@ -129,22 +181,39 @@ export class Outbox {
             this.set({ signedOut: true });
             break;
           }
-          if (!(error instanceof ApiError) || error.status === 0 || error.status >= 500) {
-            // No network, or the server is in trouble: keep everything, try again soon.
-            this.set({ reachable: false });
+          const key = next.action.idempotencyKey;
+          const status = error instanceof ApiError ? error.status : 0;
+          const failures = status >= 500 ? (this.serverFailures.get(key) ?? 0) + 1 : 0;
+          if (status >= 500) this.serverFailures.set(key, failures);
+          if (
+            retryLater.has(status) ||
+            (status >= 500 && failures < serverFailuresBeforeSetAside)
+          ) {
+            // No network, or the server is busy or in trouble: keep everything, try again soon.
+            this.set({ reachable: status !== 0 && status < 500 });
             this.retry = setTimeout(() => void this.flush(), 3000);
             break;
           }
-          await outboxStore.remove(next.action.idempotencyKey);
-          this.mark(next, 'refused');
+          const message =
+            status >= 500
+              ? `the server could not save it (error ${status}).`
+              : (error as ApiError).message;
           const { action } = next;
           const fix =
+            error instanceof ApiError &&
             error.code === 'implausible_last_frame' &&
             action.kind === 'finish_sitting' &&
             action.lastFrame !== null
               ? { sittingId: action.sittingId, lastFrame: action.lastFrame }
               : undefined;
-          this.notify('danger', `Not saved — ${next.label}: ${error.message}`, fix);
+          if (fix) {
+            // Put right from the notice (correct the first frame), not sent again as it was.
+            await outboxStore.remove(key);
+            this.mark(next, 'refused');
+          } else {
+            await this.setAside(next, message);
+          }
+          this.notify('danger', `Not saved — ${next.label}: ${message}`, fix);
         } finally {
           this.inFlight = null;
         }
