@@ -65,7 +65,7 @@ export async function loadDemoPhotographedDay(deps: {
         officeId: client.officeId,
         dayDate: yesterday,
         timeZone: zone,
-        address: '7 Tanner Gate, York',
+        address: '5 Osterby Row, York',
         room: 'Meeting room 1',
         opensAt: '09:30',
         closesAt: '12:00',

@@ -61,7 +61,7 @@ async function dayWithTwoBookings() {
   t.mail.clear();
   const changes = {
     date: day.date,
-    address: '1 Wharf Street, Leeds',
+    address: '4 Quillfield Row, Leeds',
     room: 'Meeting room 3',
     opensAt: '09:00',
     closesAt: '12:00',

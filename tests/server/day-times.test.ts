@@ -126,7 +126,7 @@ describe('day sanity', () => {
       clientId: client.id,
       officeId: office.id,
       date: '2030-10-27',
-      address: 'Weena 70, Rotterdam',
+      address: 'Brugmeesterkade 9, Rotterdam',
       opensAt: '09:00',
       closesAt: '12:00',
       slotMinutes: 5,
