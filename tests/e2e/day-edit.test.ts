@@ -74,8 +74,9 @@ describe('editing a day in the browser', () => {
     const calendar = new ICAL.Component(
       ICAL.parse(Buffer.from(part!.content, 'base64').toString('utf8')),
     );
-    // RFC 5546 3.2.2: the updated REQUEST keeps the UID and raises SEQUENCE (0 at booking).
-    expect(calendar.getFirstPropertyValue('method')).toBe('REQUEST');
+    // No reply address is set here, so the update is published (RFC 5546 3.2.1) rather than
+    // requested; either way it keeps the UID and raises SEQUENCE (0 at booking).
+    expect(calendar.getFirstPropertyValue('method')).toBe('PUBLISH');
     const event = calendar.getFirstSubcomponent('vevent')!;
     expect(event.getFirstPropertyValue('sequence')).toBe(1);
     expect(mail.text).toContain('10:55 (Europe/London');

@@ -9,7 +9,10 @@ import { signedInAgent, signedInSitter } from './helpers';
 
 let t: TestApp;
 beforeAll(async () => {
-  t = await startTestApp({ env: { RATE_LIMIT_PER_ADDRESS: '10000' } });
+  // With a reply address the studio organises the event, so updates are REQUESTs (RFC 5546).
+  t = await startTestApp({
+    env: { RATE_LIMIT_PER_ADDRESS: '10000', MAIL_REPLY_TO: 'desk@northlight.example' },
+  });
 });
 afterAll(() => t.close());
 

@@ -84,7 +84,25 @@ export function victimBodies(
   otherStationId: string,
 ): Record<string, object> {
   const person = { givenName: 'Ines', familyName: 'Okafor', email: 'ines.okafor@x.example' };
+  const dayChanges = {
+    date: '2027-03-04',
+    address: '4 Quillfield Row, Leeds',
+    opensAt: '09:00',
+    closesAt: '13:00',
+    breaks: [],
+    slotMinutes: 5,
+    bookingOpensAt: '2027-02-01T09:00:00Z',
+    bookingClosesAt: '2027-03-03T17:00:00Z',
+    changesCloseAt: '2027-03-03T17:00:00Z',
+    stations: [{ id: v.stationId, name: 'Station A', photographerId: null }],
+  };
   return {
+    'POST /api/days/:dayId/changes/preview': dayChanges,
+    'POST /api/days/:dayId/proposals': {
+      kind: 'edit',
+      changes: dayChanges,
+      note: 'Later, please.',
+    },
     'POST /api/bookings': {
       dayId: v.dayId,
       startsAt: '2027-03-04T10:00:00Z',
@@ -95,7 +113,7 @@ export function victimBodies(
       clientId: v.clientId,
       officeId: v.officeId,
       date: '2027-05-05',
-      address: '4 Quay Lane',
+      address: '4 Quillfield Row, Leeds',
       opensAt: '09:00',
       closesAt: '12:00',
       bookingOpensAt: '2027-04-01T09:00:00Z',
