@@ -45,7 +45,21 @@ beforeAll(async () => {
   const photographed = await person(rotterdam.id, 'Design');
   const noShow = await person(rotterdam.id, 'Design');
   const bookedOnly = await person(rotterdam.id, 'Finance');
-  await person(rotterdam.id, 'Finance');
+  const notBooked = await person(rotterdam.id, 'Finance');
+  // Invited means mailed: each of the four had their invitation sent.
+  await db
+    .insertInto('dayMailings')
+    .values(
+      [photographed, noShow, bookedOnly, notBooked].map((each) => ({
+        dayId,
+        personId: each.id,
+        kind: 'invitation' as const,
+        status: 'sent' as const,
+        reason: null,
+        sentAt: at('07:00'),
+      })),
+    )
+    .execute();
   await insertBooking(db, { dayId, stationId, personId: photographed.id, startsAt: at('08:00') });
   const missed = await insertBooking(db, {
     dayId,

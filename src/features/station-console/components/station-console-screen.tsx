@@ -62,7 +62,9 @@ export function StationConsoleScreen({
     [data, pending],
   );
   const commands = useConsoleCommands(outbox, stationId, shown);
-  const online = browserOnline && state.reachable;
+  // A stored copy is shown only when the server could not be reached: that is offline too, even
+  // where the browser still believes it has a network (a venue's Wi-Fi without a way out).
+  const online = browserOnline && state.reachable && !data?.fromTablet;
   const waiting = pending.filter((item) => !item.sent).length;
 
   if (snapshot.isPending) return <p className="p-6 text-xl">Loading the console…</p>;
