@@ -158,6 +158,11 @@ export function createApp(deps: AppDeps) {
   });
 
   const api = express.Router();
+  // Health comes before the cookie is resolved: it must answer while the database is down.
+  const health = express.Router();
+  const healthRoutes = new RouteTable(health);
+  registerHealthRoutes(healthRoutes, db, mailbox ? 'local catcher' : 'smtp', deps.notifications);
+  api.use(health);
   api.use(express.json({ limit: '1mb' }));
   api.use(cookieParser());
   api.use(requireJsonForMutations);
@@ -168,7 +173,6 @@ export function createApp(deps: AppDeps) {
   });
 
   const routes = new RouteTable(api);
-  registerHealthRoutes(routes, db, mailbox ? 'local catcher' : 'smtp');
   registerAuthRoutes(routes, auth, db, config);
   registerUsersRoutes(routes, users);
   registerClientsRoutes(routes, clients);
@@ -228,5 +232,5 @@ export function createApp(deps: AppDeps) {
   }
   app.use(errorHandler(logger));
 
-  return { app, routeTable: routes.entries };
+  return { app, routeTable: [...healthRoutes.entries, ...routes.entries] };
 }
