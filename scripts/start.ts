@@ -73,7 +73,18 @@ async function openDatabase(): Promise<string> {
     `/var/lib/likeness/${projectKey}/postgres`,
   );
   const cluster: RunningCluster = await startCluster({ dataFolder, port: raw.PG_PORT, log: say });
-  if (cluster.startedHere) cleanups.push(() => cluster.stop());
+  if (cluster.startedHere) {
+    cleanups.push(() => {
+      cluster.stop();
+      say(`Stopped PostgreSQL on ${cluster.dataFolder}.`);
+    });
+  } else {
+    // Said plainly at exit too: "stopped cleanly" must not suggest the database stopped.
+    const owner = cluster.ownedBy;
+    cleanups.push(() => {
+      say(`PostgreSQL keeps running: it belongs to the Likeness process with pid ${owner}.`);
+    });
+  }
   say(`PostgreSQL data lives in ${cluster.dataFolder} (127.0.0.1:${cluster.port}).`);
   return ensureDatabase(cluster, 'likeness');
 }
