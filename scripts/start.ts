@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { Server } from 'node:http';
+import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { systemClock } from '../server/adapters/clock';
@@ -24,6 +25,14 @@ import {
   firstDemoSitterEmail,
   loadDemoScenario,
 } from './lib/demo-scenario';
+import {
+  createLocalHttpsServer,
+  ensureLocalCertificate,
+  lanAddresses,
+  servesLocalHttps,
+  trustInstructions,
+  type LocalCertificate,
+} from './lib/local-certificate';
 import {
   chooseDataFolder,
   ensureDatabase,
@@ -110,6 +119,21 @@ async function main() {
   const applied = await migrateToLatest(databaseUrl);
   if (applied.length > 0) say(`Applied migrations: ${applied.join(', ')}`);
 
+  // On the studio network tablets need a secure page for the camera and the offline console.
+  let certificate: LocalCertificate | null = null;
+  if (servesLocalHttps(raw.HOST, raw.TRUST_PROXY)) {
+    const addresses = lanAddresses();
+    certificate = await ensureLocalCertificate(path.resolve(root, raw.LIKENESS_DATA_DIR, 'tls'), {
+      names: [os.hostname()],
+      ips: raw.HOST === '0.0.0.0' || raw.HOST === '::' ? addresses : [raw.HOST],
+    });
+    if (certificate.created) say(`Made a local HTTPS certificate in ${certificate.certPath}.`);
+    if (!raw.PUBLIC_URL) {
+      const host = raw.HOST === '0.0.0.0' || raw.HOST === '::' ? addresses[0] : raw.HOST;
+      config.publicUrl = `https://${host ?? 'localhost'}:${raw.PORT}`;
+    }
+  }
+
   const db = createDatabase(databaseUrl);
   cleanups.push(() => db.destroy());
 
@@ -158,7 +182,11 @@ async function main() {
     uploads: config.uploads,
   });
   const server: Server = await new Promise((resolve, reject) => {
-    const listening = app.listen(raw.PORT, raw.HOST, () => resolve(listening));
+    const listening = certificate
+      ? createLocalHttpsServer(app, certificate).listen(raw.PORT, raw.HOST, () =>
+          resolve(listening),
+        )
+      : app.listen(raw.PORT, raw.HOST, () => resolve(listening));
     listening.once('error', reject);
   });
   const portraits = portraitTasks({ db, storage, logger, studioName: config.studioName });
@@ -195,6 +223,10 @@ async function main() {
       `  sitter        ${firstDemoSitterEmail()}  (no password: ask for a link on the sign-in page,`,
     );
     say("                then open it from the studio admin's mailbox)");
+  }
+  if (certificate) {
+    say('');
+    for (const line of trustInstructions(config.publicUrl, certificate)) say(line);
   }
   say('Press Ctrl-C to stop.');
 }
