@@ -161,7 +161,13 @@ export function createApp(deps: AppDeps) {
   // Health comes before the cookie is resolved: it must answer while the database is down.
   const health = express.Router();
   const healthRoutes = new RouteTable(health);
-  registerHealthRoutes(healthRoutes, db, mailbox ? 'local catcher' : 'smtp', deps.notifications);
+  registerHealthRoutes(
+    healthRoutes,
+    db,
+    mailbox ? 'local catcher' : 'smtp',
+    deps.notifications,
+    deps.storage,
+  );
   api.use(health);
   api.use(express.json({ limit: '1mb' }));
   api.use(cookieParser());

@@ -13,3 +13,11 @@ export const healthSchema = z.object({
   time: z.string(),
 });
 export type Health = z.infer<typeof healthSchema>;
+
+/** Readiness: whether this process can do its work now (a load balancer sends it traffic). */
+export const readinessSchema = z.object({
+  ready: z.boolean(),
+  database: z.enum(['up', 'down']),
+  storage: z.enum(['up', 'down']),
+});
+export type Readiness = z.infer<typeof readinessSchema>;

@@ -115,6 +115,9 @@ describe('the database stopped mid-request and started again', () => {
     expect(down.body.database.state).toBe('down');
     expect(down.body.listener.state).toBe('reconnecting');
     expect(down.body.status).toBe('degraded');
+    const notReady = await request(t.app).get('/api/ready');
+    expect(notReady.status).toBe(503);
+    expect(notReady.body).toMatchObject({ ready: false, database: 'down' });
 
     // Several reconnection attempts fail while it stays down; the listener keeps trying.
     await expect.poll(() => t.notifications.status().failedAttempts).toBeGreaterThanOrEqual(3);
