@@ -155,12 +155,6 @@ async function main() {
   const mailer = createSmtpMailer({ smtpUrl, from: config.mailFrom });
   cleanups.push(() => mailer.close());
 
-  // One dedicated connection LISTENs for station console changes from every app process.
-  const notifications = await createPgNotifications(databaseUrl, (error) =>
-    logger.warn({ err: error }, 'console notifications connection failed; reconnecting'),
-  );
-  cleanups.push(() => notifications.close());
-
   const storage = createStorage(config.storage);
   cleanups.push(() => storage.close());
   say(
@@ -169,46 +163,64 @@ async function main() {
       : `Frames are stored in the S3 bucket ${config.storage.bucket}.`,
   );
 
-  const { app } = createApp({
-    db,
-    config,
-    mailer,
-    mailbox: catcher,
-    clock: systemClock,
-    logger,
-    frontend: await frontend(),
-    notifications,
-    storage,
-    uploads: config.uploads,
-  });
-  const server: Server = await new Promise((resolve, reject) => {
-    const listening = certificate
-      ? createLocalHttpsServer(app, certificate).listen(raw.PORT, raw.HOST, () =>
-          resolve(listening),
-        )
-      : app.listen(raw.PORT, raw.HOST, () => resolve(listening));
-    listening.once('error', reject);
-  });
-  const portraits = portraitTasks({ db, storage, logger, studioName: config.studioName });
-  // Invitations, reminders, day-before mail, reading frames and rendering portraits run on graphile-worker.
-  const worker = await startDayJobsWorker(
-    { db, databaseUrl, clock: systemClock, mailer, config, logger },
-    {
-      ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
-      ...matchingTasks({ db, logger }),
-      ...portraits.handlers,
-      ...createDeliveryService({ db, clock: systemClock, storage }).handlers(),
-    },
-  );
-  cleanups.push(() => portraits.close());
-  cleanups.push(() => worker.stop());
-  cleanups.push(
-    () =>
-      new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        server.closeAllConnections();
-      }),
-  );
+  // PROCESS_ROLE splits one studio over several processes: web (HTTP and console events) and
+  // worker (graphile-worker jobs). Everything they share lives in PostgreSQL or the storage.
+  if (raw.PROCESS_ROLE !== 'worker') {
+    // One dedicated connection LISTENs for station console changes from every app process.
+    const notifications = await createPgNotifications(databaseUrl, (error) =>
+      logger.warn({ err: error }, 'console notifications connection failed; reconnecting'),
+    );
+    cleanups.push(() => notifications.close());
+    const { app } = createApp({
+      db,
+      config,
+      mailer,
+      mailbox: catcher,
+      clock: systemClock,
+      logger,
+      frontend: await frontend(),
+      notifications,
+      storage,
+      uploads: config.uploads,
+    });
+    const server: Server = await new Promise((resolve, reject) => {
+      const listening = certificate
+        ? createLocalHttpsServer(app, certificate).listen(raw.PORT, raw.HOST, () =>
+            resolve(listening),
+          )
+        : app.listen(raw.PORT, raw.HOST, () => resolve(listening));
+      listening.once('error', reject);
+    });
+    cleanups.push(
+      () =>
+        new Promise<void>((resolve) => {
+          server.close(() => resolve());
+          server.closeAllConnections();
+        }),
+    );
+  }
+  if (raw.PROCESS_ROLE !== 'web') {
+    const portraits = portraitTasks({ db, storage, logger, studioName: config.studioName });
+    // Invitations, reminders, day-before mail, reading frames and rendering portraits run on graphile-worker.
+    const worker = await startDayJobsWorker(
+      { db, databaseUrl, clock: systemClock, mailer, config, logger },
+      {
+        ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
+        ...matchingTasks({ db, logger }),
+        ...portraits.handlers,
+        ...createDeliveryService({ db, clock: systemClock, storage }).handlers(),
+      },
+    );
+    cleanups.push(() => portraits.close());
+    // Cleanups run in reverse: the worker stops (finishing its jobs) before the pool closes.
+    cleanups.push(() => worker.stop());
+  }
+  if (raw.PROCESS_ROLE === 'worker') {
+    say('Running as a worker: background jobs only, no web server in this process.');
+    say('Press Ctrl-C to stop.');
+    return;
+  }
+  if (raw.PROCESS_ROLE === 'web') say('Running as a web process: jobs run in worker processes.');
 
   say('');
   say(
