@@ -4,7 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { systemClock } from '../server/adapters/clock';
-import { startMailCatcher, type MailCatcher } from '../server/adapters/mail/mail-catcher';
+import type { MailCatcher } from '../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../server/adapters/mail/mailer';
 import { createPgNotifications } from '../server/adapters/notifications';
 import { createStorage } from '../server/adapters/storage/create-storage';
@@ -25,6 +25,7 @@ import {
   firstDemoSitterEmail,
   loadDemoScenario,
 } from './lib/demo-scenario';
+import { browserBuildIsCurrent } from './lib/build-freshness';
 import {
   createLocalHttpsServer,
   ensureLocalCertificate,
@@ -98,9 +99,10 @@ async function openDatabase(): Promise<string> {
   return ensureDatabase(cluster, 'likeness');
 }
 
+// Vite is a development dependency: it is imported only when there is something to build.
 async function frontend(): Promise<AppDeps['frontend']> {
-  const vite = await import('vite');
   if (mode === 'dev') {
+    const vite = await import('vite');
     const server = await vite.createServer({
       root,
       server: { middlewareMode: true },
@@ -109,8 +111,13 @@ async function frontend(): Promise<AppDeps['frontend']> {
     cleanups.push(() => server.close());
     return { kind: 'middleware', handler: server.middlewares };
   }
-  say('Building the browser app...');
-  await vite.build({ root, logLevel: 'warn' });
+  if (browserBuildIsCurrent(root)) {
+    say('The browser app in dist/ is up to date: serving it without building.');
+  } else {
+    say('Building the browser app...');
+    const vite = await import('vite');
+    await vite.build({ root, logLevel: 'warn' });
+  }
   return { kind: 'static', folder: path.join(root, 'dist') };
 }
 
@@ -144,6 +151,8 @@ async function main() {
   let catcher: MailCatcher | null = null;
   let smtpUrl = raw.SMTP_URL;
   if (!smtpUrl) {
+    // The catcher's SMTP server and parser are development dependencies: loaded only here.
+    const { startMailCatcher } = await import('../server/adapters/mail/mail-catcher');
     catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT);
     const started = catcher;
     cleanups.push(() => started.close());
