@@ -1,9 +1,10 @@
 import { createHash } from 'node:crypto';
 import type { Server } from 'node:http';
+import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { systemClock } from '../server/adapters/clock';
-import { startMailCatcher, type MailCatcher } from '../server/adapters/mail/mail-catcher';
+import type { MailCatcher } from '../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../server/adapters/mail/mailer';
 import { createCaughtMailStore } from '../server/modules/dev-mailbox/dev-mailbox.repository';
 import { createPgNotifications } from '../server/adapters/notifications';
@@ -26,6 +27,15 @@ import {
   loadDemoScenario,
 } from './lib/demo-scenario';
 import { loadDemoPhotographedDay } from './lib/demo-photographed-day';
+import { browserBuildIsCurrent } from './lib/build-freshness';
+import {
+  createLocalHttpsServer,
+  ensureLocalCertificate,
+  lanAddresses,
+  servesLocalHttps,
+  trustInstructions,
+  type LocalCertificate,
+} from './lib/local-certificate';
 import {
   chooseDataFolder,
   ensureDatabase,
@@ -75,14 +85,26 @@ async function openDatabase(): Promise<string> {
     `/var/lib/likeness/${projectKey}/postgres`,
   );
   const cluster: RunningCluster = await startCluster({ dataFolder, port: raw.PG_PORT, log: say });
-  if (cluster.startedHere) cleanups.push(() => cluster.stop());
+  if (cluster.startedHere) {
+    cleanups.push(() => {
+      cluster.stop();
+      say(`Stopped PostgreSQL on ${cluster.dataFolder}.`);
+    });
+  } else {
+    // Said plainly at exit too: "stopped cleanly" must not suggest the database stopped.
+    const owner = cluster.ownedBy;
+    cleanups.push(() => {
+      say(`PostgreSQL keeps running: it belongs to the Likeness process with pid ${owner}.`);
+    });
+  }
   say(`PostgreSQL data lives in ${cluster.dataFolder} (127.0.0.1:${cluster.port}).`);
   return ensureDatabase(cluster, 'likeness');
 }
 
+// Vite is a development dependency: it is imported only when there is something to build.
 async function frontend(): Promise<AppDeps['frontend']> {
-  const vite = await import('vite');
   if (mode === 'dev') {
+    const vite = await import('vite');
     const server = await vite.createServer({
       root,
       server: { middlewareMode: true },
@@ -91,8 +113,13 @@ async function frontend(): Promise<AppDeps['frontend']> {
     cleanups.push(() => server.close());
     return { kind: 'middleware', handler: server.middlewares };
   }
-  say('Building the browser app...');
-  await vite.build({ root, logLevel: 'warn' });
+  if (browserBuildIsCurrent(root)) {
+    say('The browser app in dist/ is up to date: serving it without building.');
+  } else {
+    say('Building the browser app...');
+    const vite = await import('vite');
+    await vite.build({ root, logLevel: 'warn' });
+  }
   return { kind: 'static', folder: path.join(root, 'dist') };
 }
 
@@ -100,6 +127,21 @@ async function main() {
   const databaseUrl = await openDatabase();
   const applied = await migrateToLatest(databaseUrl);
   if (applied.length > 0) say(`Applied migrations: ${applied.join(', ')}`);
+
+  // On the studio network tablets need a secure page for the camera and the offline console.
+  let certificate: LocalCertificate | null = null;
+  if (servesLocalHttps(raw.HOST, raw.TRUST_PROXY)) {
+    const addresses = lanAddresses();
+    certificate = await ensureLocalCertificate(path.resolve(root, raw.LIKENESS_DATA_DIR, 'tls'), {
+      names: [os.hostname()],
+      ips: raw.HOST === '0.0.0.0' || raw.HOST === '::' ? addresses : [raw.HOST],
+    });
+    if (certificate.created) say(`Made a local HTTPS certificate in ${certificate.certPath}.`);
+    if (!raw.PUBLIC_URL) {
+      const host = raw.HOST === '0.0.0.0' || raw.HOST === '::' ? addresses[0] : raw.HOST;
+      config.publicUrl = `https://${host ?? 'localhost'}:${raw.PORT}`;
+    }
+  }
 
   const db = createDatabase(databaseUrl);
   cleanups.push(() => db.destroy());
@@ -112,6 +154,8 @@ async function main() {
   let catcher: MailCatcher | null = null;
   let smtpUrl = raw.SMTP_URL;
   if (!smtpUrl) {
+    // The catcher's SMTP server and parser are development dependencies: loaded only here.
+    const { startMailCatcher } = await import('../server/adapters/mail/mail-catcher');
     // Caught mail is kept in the database, so the Mailbox survives a restart.
     catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT, { store: createCaughtMailStore(db) });
     const started = catcher;
@@ -123,12 +167,6 @@ async function main() {
   }
   const mailer = createSmtpMailer({ smtpUrl, ...mailIdentity(config) });
   cleanups.push(() => mailer.close());
-
-  // One dedicated connection LISTENs for station console changes from every app process.
-  const notifications = await createPgNotifications(databaseUrl, (error) =>
-    logger.warn({ err: error }, 'console notifications connection failed; reconnecting'),
-  );
-  cleanups.push(() => notifications.close());
 
   const storage = createStorage(config.storage);
   cleanups.push(() => storage.close());
@@ -150,42 +188,64 @@ async function main() {
       );
   }
 
-  const { app } = createApp({
-    db,
-    config,
-    mailer,
-    mailbox: catcher,
-    clock: systemClock,
-    logger,
-    frontend: await frontend(),
-    notifications,
-    storage,
-    uploads: config.uploads,
-  });
-  const server: Server = await new Promise((resolve, reject) => {
-    const listening = app.listen(raw.PORT, raw.HOST, () => resolve(listening));
-    listening.once('error', reject);
-  });
-  const portraits = portraitTasks({ db, storage, logger, studioName: config.studioName });
-  // Invitations, reminders, day-before mail, reading frames and rendering portraits run on graphile-worker.
-  const worker = await startDayJobsWorker(
-    { db, databaseUrl, clock: systemClock, mailer, config, logger },
-    {
-      ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
-      ...matchingTasks({ db, logger }),
-      ...portraits.handlers,
-      ...createDeliveryService({ db, clock: systemClock, storage }).handlers(),
-    },
-  );
-  cleanups.push(() => portraits.close());
-  cleanups.push(() => worker.stop());
-  cleanups.push(
-    () =>
-      new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        server.closeAllConnections();
-      }),
-  );
+  // PROCESS_ROLE splits one studio over several processes: web (HTTP and console events) and
+  // worker (graphile-worker jobs). Everything they share lives in PostgreSQL or the storage.
+  if (raw.PROCESS_ROLE !== 'worker') {
+    // One dedicated connection LISTENs for station console changes from every app process.
+    const notifications = await createPgNotifications(databaseUrl, (error) =>
+      logger.warn({ err: error }, 'console notifications connection failed; reconnecting'),
+    );
+    cleanups.push(() => notifications.close());
+    const { app } = createApp({
+      db,
+      config,
+      mailer,
+      mailbox: catcher,
+      clock: systemClock,
+      logger,
+      frontend: await frontend(),
+      notifications,
+      storage,
+      uploads: config.uploads,
+    });
+    const server: Server = await new Promise((resolve, reject) => {
+      const listening = certificate
+        ? createLocalHttpsServer(app, certificate).listen(raw.PORT, raw.HOST, () =>
+            resolve(listening),
+          )
+        : app.listen(raw.PORT, raw.HOST, () => resolve(listening));
+      listening.once('error', reject);
+    });
+    cleanups.push(
+      () =>
+        new Promise<void>((resolve) => {
+          server.close(() => resolve());
+          server.closeAllConnections();
+        }),
+    );
+  }
+  if (raw.PROCESS_ROLE !== 'web') {
+    const portraits = portraitTasks({ db, storage, logger, studioName: config.studioName });
+    // Invitations, reminders, day-before mail, reading frames and rendering portraits run on graphile-worker.
+    const worker = await startDayJobsWorker(
+      { db, databaseUrl, clock: systemClock, mailer, config, logger },
+      {
+        ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
+        ...matchingTasks({ db, logger }),
+        ...portraits.handlers,
+        ...createDeliveryService({ db, clock: systemClock, storage }).handlers(),
+      },
+    );
+    cleanups.push(() => portraits.close());
+    // Cleanups run in reverse: the worker stops (finishing its jobs) before the pool closes.
+    cleanups.push(() => worker.stop());
+  }
+  if (raw.PROCESS_ROLE === 'worker') {
+    say('Running as a worker: background jobs only, no web server in this process.');
+    say('Press Ctrl-C to stop.');
+    return;
+  }
+  if (raw.PROCESS_ROLE === 'web') say('Running as a web process: jobs run in worker processes.');
 
   say('');
   say(
@@ -200,6 +260,10 @@ async function main() {
       `  sitter        ${firstDemoSitterEmail()}  (no password: ask for a link on the sign-in page,`,
     );
     say("                then open it from the studio admin's mailbox)");
+  }
+  if (certificate) {
+    say('');
+    for (const line of trustInstructions(config.publicUrl, certificate)) say(line);
   }
   say('Press Ctrl-C to stop.');
 }

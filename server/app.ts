@@ -174,6 +174,17 @@ export function createApp(deps: AppDeps) {
   });
 
   const api = express.Router();
+  // Health comes before the cookie is resolved: it must answer while the database is down.
+  const health = express.Router();
+  const healthRoutes = new RouteTable(health);
+  registerHealthRoutes(
+    healthRoutes,
+    db,
+    mailbox ? 'local catcher' : 'smtp',
+    deps.notifications,
+    deps.storage,
+  );
+  api.use(health);
   // Before the body is read: a cross-site change is refused whatever it carries.
   api.use(refuseCrossSiteChanges);
   api.use(express.json({ limit: '1mb' }));
@@ -187,7 +198,6 @@ export function createApp(deps: AppDeps) {
   });
 
   const routes = new RouteTable(api);
-  registerHealthRoutes(routes, db, mailbox ? 'local catcher' : 'smtp');
   registerAuthRoutes(routes, auth, db, config, clock);
   registerUsersRoutes(routes, users);
   registerClientsRoutes(routes, clients);
@@ -248,5 +258,5 @@ export function createApp(deps: AppDeps) {
   }
   app.use(errorHandler(logger));
 
-  return { app, routeTable: routes.entries };
+  return { app, routeTable: [...healthRoutes.entries, ...routes.entries] };
 }

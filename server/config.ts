@@ -72,6 +72,8 @@ export const configSchema = z.object({
   LIKENESS_DATA_DIR: z.string().min(1).default('.data'),
   PG_PORT: z.coerce.number().int().min(1024).max(65535).default(54329),
   LOAD_DEMO: booleanFromEnv.default(true),
+  /** all: web and jobs in one process (npm start); web: HTTP and console events; worker: jobs. */
+  PROCESS_ROLE: z.enum(['all', 'web', 'worker']).default('all'),
   MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   STORAGE: z.enum(['local', 's3']).default('local'),
   STORAGE_LOCAL_ROOT: z.string().min(1).optional(),

@@ -1,5 +1,5 @@
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import pg from 'pg';
@@ -88,8 +88,12 @@ export interface ClusterOptions {
 export interface RunningCluster {
   port: number;
   dataFolder: string;
-  /** True when this process started the server (and so must stop it). */
+  /** True when this process started the server, or took it over, and so must stop it. */
   startedHere: boolean;
+  /** True when the server was left running by a process that is gone, and this one took it over. */
+  takenOver: boolean;
+  /** When another live process runs the server: its pid (it stays running after this one stops). */
+  ownedBy: number | null;
   urlFor(database: string): string;
   stop(): void;
 }
@@ -119,15 +123,51 @@ export async function startCluster(options: ClusterOptions): Promise<RunningClus
   const urlFor = (database: string) =>
     `postgres://${CLUSTER_SUPERUSER}@127.0.0.1:${port}/${database}`;
 
+  const stopServer = () => {
+    runAsOwner(pgCtl, ['-D', dataFolder, '-m', 'fast', '-w', 'stop']);
+    forgetOwner(dataFolder);
+  };
+
   if (runAsOwner(pgCtl, ['-D', dataFolder, 'status']).status === 0) {
-    log(`PostgreSQL is already running on ${dataFolder}; reusing it.`);
-    const running = await readRunningPort(dataFolder);
+    const running = readPostmasterFile(dataFolder);
+    const owner = readOwner(dataFolder);
+    const runningUrl = (database: string) =>
+      `postgres://${CLUSTER_SUPERUSER}@127.0.0.1:${running.port}/${database}`;
+    if (owner !== null && owner !== process.pid && isAlive(owner)) {
+      log(
+        `PostgreSQL is already running on ${dataFolder}, started by another Likeness process ` +
+          `(pid ${owner}); using it. It keeps running when this process stops.`,
+      );
+      return {
+        port: running.port,
+        dataFolder,
+        startedHere: false,
+        takenOver: false,
+        ownedBy: owner,
+        urlFor: runningUrl,
+        stop: () => undefined,
+      };
+    }
+    // The process that started it was killed without stopping it (kill -9, a crash): this
+    // process becomes its owner, so Ctrl-C really stops it.
+    log(
+      `PostgreSQL was left running on ${dataFolder} (server pid ${running.pid}) by a process ` +
+        'that is gone; taking it over. It will be stopped when this process stops.',
+    );
+    writeOwner(dataFolder);
+    let stoppedTakenOver = false;
     return {
-      port: running,
+      port: running.port,
       dataFolder,
-      startedHere: false,
-      urlFor: (database) => `postgres://${CLUSTER_SUPERUSER}@127.0.0.1:${running}/${database}`,
-      stop: () => undefined,
+      startedHere: true,
+      takenOver: true,
+      ownedBy: null,
+      urlFor: runningUrl,
+      stop() {
+        if (stoppedTakenOver) return;
+        stoppedTakenOver = true;
+        stopServer();
+      },
     };
   }
 
@@ -161,25 +201,60 @@ export async function startCluster(options: ClusterOptions): Promise<RunningClus
       `PostgreSQL did not start (see ${path.join(dataFolder, 'server.log')}):\n${start.output}`,
     );
   }
+  writeOwner(dataFolder);
   let stopped = false;
   return {
     port,
     dataFolder,
     startedHere: true,
+    takenOver: false,
+    ownedBy: null,
     urlFor,
     stop() {
       if (stopped) return;
       stopped = true;
-      runAsOwner(pgCtl, ['-D', dataFolder, '-m', 'fast', '-w', 'stop']);
+      stopServer();
     },
   };
 }
 
-async function readRunningPort(dataFolder: string): Promise<number> {
-  const { readFileSync } = await import('node:fs');
-  // postmaster.pid line 4 holds the port (PostgreSQL's documented file layout).
+/** postmaster.pid: line 1 the server's pid, line 4 its port (PostgreSQL's documented layout). */
+function readPostmasterFile(dataFolder: string): { pid: number; port: number } {
   const lines = readFileSync(path.join(dataFolder, 'postmaster.pid'), 'utf8').split('\n');
-  return Number(lines[3]);
+  return { pid: Number(lines[0]), port: Number(lines[3]) };
+}
+
+/** Beside the data folder: the pid of the process that started (and will stop) the server. */
+export function ownerFileOf(dataFolder: string): string {
+  return `${path.resolve(dataFolder)}.owner.json`;
+}
+
+function readOwner(dataFolder: string): number | null {
+  try {
+    const parsed: unknown = JSON.parse(readFileSync(ownerFileOf(dataFolder), 'utf8'));
+    const pid = (parsed as { pid?: unknown }).pid;
+    return typeof pid === 'number' && Number.isInteger(pid) && pid > 0 ? pid : null;
+  } catch {
+    return null;
+  }
+}
+
+function writeOwner(dataFolder: string) {
+  writeFileSync(ownerFileOf(dataFolder), JSON.stringify({ pid: process.pid }));
+}
+
+function forgetOwner(dataFolder: string) {
+  if (readOwner(dataFolder) === process.pid) rmSync(ownerFileOf(dataFolder), { force: true });
+}
+
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (error) {
+    // EPERM: the process exists but belongs to someone else.
+    return (error as NodeJS.ErrnoException).code === 'EPERM';
+  }
 }
 
 export async function ensureDatabase(cluster: RunningCluster, name: string): Promise<string> {

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { DATABASE_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from './database-unavailable';
 import { AppError } from './errors';
 import type { Logger } from './logger';
 
@@ -20,6 +21,23 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     if (isBodyParserError(error)) {
       res.status(error.status).json({
         error: { code: 'invalid_body', message: 'The request body could not be read as JSON.' },
+      });
+      return;
+    }
+    if (isDatabaseUnavailable(error)) {
+      // An outage, not a bug: the client waits and tries again (Retry-After, RFC 9110 §10.2.3).
+      logger.warn({ err: error, requestId: req.requestId, path: req.path }, 'database unavailable');
+      if (res.headersSent) {
+        res.end();
+        return;
+      }
+      res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
+      res.status(503).json({
+        error: {
+          code: 'database_unavailable',
+          message: 'The server cannot reach its database, retrying.',
+          details: { retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS },
+        },
       });
       return;
     }

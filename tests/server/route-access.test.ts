@@ -18,6 +18,7 @@ import {
  */
 const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/health': 'public',
+  'GET /api/ready': 'public',
   'POST /api/session': 'public',
   'GET /api/session': ['studio_admin', 'photographer', 'coordinator', 'sitter'],
   'DELETE /api/session': 'public',

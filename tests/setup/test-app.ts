@@ -4,7 +4,11 @@ import path from 'node:path';
 import type { Clock } from '../../server/adapters/clock';
 import { startMailCatcher, type MailCatcher } from '../../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../../server/adapters/mail/mailer';
-import { createPgNotifications } from '../../server/adapters/notifications';
+import {
+  createPgNotifications,
+  type Notifications,
+  type ReconnectOptions,
+} from '../../server/adapters/notifications';
 import { LocalStorage } from '../../server/adapters/storage/local-storage';
 import type { ObjectStorage } from '../../server/adapters/storage/storage';
 import { createApp, type AppDeps } from '../../server/app';
@@ -37,6 +41,7 @@ export interface TestApp {
   storage: ObjectStorage;
   /** Where tus keeps files still arriving. */
   uploadFolder: string;
+  notifications: Notifications;
   close(): Promise<void>;
 }
 
@@ -46,16 +51,23 @@ export async function startTestApp(
     frontend?: AppDeps['frontend'];
     storage?: ObjectStorage;
     uploads?: Partial<AppDeps['uploads']>;
+    /** A database of the test's own (a private cluster it can stop) instead of a clone. */
+    database?: TestDatabase;
+    reconnect?: ReconnectOptions;
   } = {},
 ): Promise<TestApp> {
-  const database = await createTestDatabase();
+  const database = options.database ?? (await createTestDatabase());
   const mail = await startMailCatcher(0);
   const config = toAppConfig(
     parseEnvironment({ NODE_ENV: 'test', PUBLIC_URL: 'http://likeness.test', ...options.env }),
   );
   const mailer = createSmtpMailer({ smtpUrl: mail.smtpUrl, ...mailIdentity(config) });
   const clock = new ManualClock();
-  const notifications = await createPgNotifications(database.url);
+  const notifications = await createPgNotifications(
+    database.url,
+    () => undefined,
+    options.reconnect,
+  );
   const scratch = mkdtempSync(path.join(os.tmpdir(), 'likeness-test-files-'));
   const storage = options.storage ?? new LocalStorage(path.join(scratch, 'storage'));
   const uploadFolder = path.join(scratch, 'uploads');
@@ -86,6 +98,7 @@ export async function startTestApp(
     config,
     storage,
     uploadFolder,
+    notifications,
     async close() {
       mailer.close();
       await notifications.close();

@@ -50,8 +50,11 @@ export function registerConsoleRoutes(
       'X-Accel-Buffering': 'no',
     });
     res.write('retry: 1000\n\nevent: ready\ndata: {}\n\n');
-    const unsubscribe = notifications?.subscribe(dayId, () => {
-      res.write(`event: changed\ndata: ${JSON.stringify({ dayId })}\n\n`);
+    // A refresh (the listener was reconnected, changes may have been missed) is sent as a
+    // `changed` too: the tablet reloads the whole day either way.
+    const unsubscribe = notifications?.subscribe(dayId, (event) => {
+      const data = event === 'refresh' ? { dayId, refresh: true } : { dayId };
+      res.write(`event: changed\ndata: ${JSON.stringify(data)}\n\n`);
     });
     // A comment line now and then keeps proxies from closing a quiet stream.
     const heartbeat = setInterval(() => res.write(': still here\n\n'), 15_000);

@@ -1,4 +1,5 @@
 import { Outlet, useNavigation } from 'react-router-dom';
+import { DatabaseOutageNotice } from '../../components/ui/database-outage-notice';
 
 export function RootLayout() {
   const navigation = useNavigation();
@@ -11,6 +12,7 @@ export function RootLayout() {
           className="fixed inset-x-0 top-0 h-1 animate-pulse bg-clay-500"
         />
       ) : null}
+      <DatabaseOutageNotice />
       <Outlet />
     </div>
   );

@@ -27,9 +27,16 @@ export const chromiumArgs = [
 ];
 
 /** The built app on a real HTTP port, a database of its own, and Debian's Chromium. */
-export async function startE2e(options: { chromiumArgs?: string[] } = {}): Promise<E2eEnvironment> {
+export async function startE2e(
+  options: { chromiumArgs?: string[] } & Pick<
+    NonNullable<Parameters<typeof startTestApp>[0]>,
+    'database' | 'reconnect'
+  > = {},
+): Promise<E2eEnvironment> {
   const testApp = await startTestApp({
     frontend: { kind: 'static', folder: path.join(root, 'dist') },
+    database: options.database,
+    reconnect: options.reconnect,
   });
   const server: Server = await new Promise((resolve) => {
     const listening = testApp.app.listen(0, '127.0.0.1', () => resolve(listening));
