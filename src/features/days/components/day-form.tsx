@@ -1,9 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import {
-  createDayRequestSchema,
-  slotMinuteChoices,
-  type CreateDayRequest,
-} from '../../../../server/schemas/days';
+import { createDayRequestSchema, type CreateDayRequest } from '../../../../server/schemas/days';
 import { officeLocalToInstant } from '../../../../server/schemas/office-time';
 import type { Client } from '../../../../server/schemas/clients';
 import { Button } from '../../../components/ui/button';
@@ -12,6 +8,7 @@ import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useCreateDay } from '../api/create-day';
 import { InviteePicker } from './invitee-picker';
+import { DayScheduleFields } from './day-schedule-fields';
 import { StationFields, type StationDraft } from './station-fields';
 import { ThroughputPlanner } from './throughput-planner';
 
@@ -175,82 +172,12 @@ export function DayForm({
         }))}
       />
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Date"
-          type="date"
-          value={fields.date}
-          onChange={set('date')}
-          error={errors.date}
-        />
-        <SelectField
-          label="Slot length (minutes)"
-          value={fields.slotMinutes}
-          onChange={set('slotMinutes')}
-          error={errors.slotMinutes}
-          options={slotMinuteChoices.map((choice) => ({
-            value: String(choice),
-            label: `${choice} minutes`,
-          }))}
-        />
-        <TextField
-          label="Address"
-          value={fields.address}
-          onChange={set('address')}
-          error={errors.address}
-          autoComplete="street-address"
-        />
-        <TextField label="Room" value={fields.room} onChange={set('room')} error={errors.room} />
-        <TextField
-          label="Opens"
-          type="time"
-          value={fields.opensAt}
-          onChange={set('opensAt')}
-          error={errors.opensAt}
-        />
-        <TextField
-          label="Closes"
-          type="time"
-          value={fields.closesAt}
-          onChange={set('closesAt')}
-          error={errors.closesAt}
-        />
-        <TextField
-          label="Break starts"
-          type="time"
-          value={fields.breakStart}
-          onChange={set('breakStart')}
-          hint="Clear both to have no break."
-        />
-        <TextField
-          label="Break ends"
-          type="time"
-          value={fields.breakEnd}
-          onChange={set('breakEnd')}
-          error={errors.breakEnd}
-        />
-        <TextField
-          label={`Booking opens (${zone})`}
-          type="datetime-local"
-          hint={zoneHint}
-          value={fields.bookingOpensAt}
-          onChange={set('bookingOpensAt')}
-          error={errors.bookingOpensAt}
-        />
-        <TextField
-          label={`Booking closes (${zone})`}
-          type="datetime-local"
-          hint={zoneHint}
-          value={fields.bookingClosesAt}
-          onChange={set('bookingClosesAt')}
-          error={errors.bookingClosesAt}
-        />
-        <TextField
-          label={`Sitters can change until (${zone})`}
-          type="datetime-local"
-          value={fields.changesCloseAt}
-          onChange={set('changesCloseAt')}
-          error={errors.changesCloseAt}
-          hint={zoneHint}
+        <DayScheduleFields
+          fields={fields}
+          set={set}
+          errors={errors}
+          zone={zone}
+          zoneHint={zoneHint}
         />
         <SelectField
           label="Who is invited"

@@ -4,16 +4,17 @@ import {
   type DayChanges,
   type DayChangesRequest,
 } from '../../../../server/schemas/day-changes';
-import { slotMinuteChoices, type Day } from '../../../../server/schemas/days';
+import type { Day } from '../../../../server/schemas/days';
 import { instantToOfficeLocal, officeLocalToInstant } from '../../../../server/schemas/office-time';
 import { Button } from '../../../components/ui/button';
-import { SelectField, TextField } from '../../../components/ui/field';
+import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useEditDay } from '../api/edit-day';
 import { usePreviewDayChanges } from '../api/preview-day-changes';
 import { useProposeDayChange } from '../api/propose-day-change';
 import { DayChangePreviewList } from './day-change-preview';
+import { DayScheduleFields } from './day-schedule-fields';
 import { StationFields, type StationDraft } from './station-fields';
 
 type Errors = Record<string, string | undefined>;
@@ -164,79 +165,7 @@ export function EditDayForm({
       {formError ? <Notice tone="danger">{formError}</Notice> : null}
       <p className="text-sm text-ink-muted">Every time here is {zone} time, the office’s zone.</p>
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Date"
-          type="date"
-          value={fields.date}
-          onChange={set('date')}
-          error={errors.date}
-        />
-        <SelectField
-          label="Slot length (minutes)"
-          value={fields.slotMinutes}
-          onChange={set('slotMinutes')}
-          error={errors.slotMinutes}
-          options={slotMinuteChoices.map((choice) => ({
-            value: String(choice),
-            label: `${choice} minutes`,
-          }))}
-        />
-        <TextField
-          label="Address"
-          value={fields.address}
-          onChange={set('address')}
-          error={errors.address}
-        />
-        <TextField label="Room" value={fields.room} onChange={set('room')} error={errors.room} />
-        <TextField
-          label="Opens"
-          type="time"
-          value={fields.opensAt}
-          onChange={set('opensAt')}
-          error={errors.opensAt}
-        />
-        <TextField
-          label="Closes"
-          type="time"
-          value={fields.closesAt}
-          onChange={set('closesAt')}
-          error={errors.closesAt}
-        />
-        <TextField
-          label="Break starts"
-          type="time"
-          value={fields.breakStart}
-          onChange={set('breakStart')}
-          hint="Clear both to have no break."
-        />
-        <TextField
-          label="Break ends"
-          type="time"
-          value={fields.breakEnd}
-          onChange={set('breakEnd')}
-          error={errors.breakEnd}
-        />
-        <TextField
-          label={`Booking opens (${zone})`}
-          type="datetime-local"
-          value={fields.bookingOpensAt}
-          onChange={set('bookingOpensAt')}
-          error={errors.bookingOpensAt}
-        />
-        <TextField
-          label={`Booking closes (${zone})`}
-          type="datetime-local"
-          value={fields.bookingClosesAt}
-          onChange={set('bookingClosesAt')}
-          error={errors.bookingClosesAt}
-        />
-        <TextField
-          label={`Sitters can change until (${zone})`}
-          type="datetime-local"
-          value={fields.changesCloseAt}
-          onChange={set('changesCloseAt')}
-          error={errors.changesCloseAt}
-        />
+        <DayScheduleFields fields={fields} set={set} errors={errors} zone={zone} />
       </div>
       <StationFields
         stations={stations}
