@@ -1,24 +1,20 @@
 import { createHash } from 'node:crypto';
+import type { Express } from 'express';
 import type { Server } from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { systemClock } from '../server/adapters/clock';
 import type { MailCatcher } from '../server/adapters/mail/mail-catcher';
 import { createSmtpMailer } from '../server/adapters/mail/mailer';
 import { createCaughtMailStore } from '../server/modules/dev-mailbox/dev-mailbox.repository';
-import { createPgNotifications } from '../server/adapters/notifications';
 import { createStorage } from '../server/adapters/storage/create-storage';
-import { createApp, type AppDeps } from '../server/app';
 import { mailIdentity, parseEnvironment, toAppConfig } from '../server/config';
 import { createDatabase } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
-import { startDayJobsWorker } from '../server/jobs/day-jobs';
-import { frameTasks } from '../server/modules/frames/frame-tasks';
-import { matchingTasks } from '../server/modules/matching/matching-tasks';
-import { portraitTasks } from '../server/modules/looks/portrait-tasks';
-import { createDeliveryService } from '../server/modules/delivery/delivery.service';
 import { createLogger } from '../server/lib/logger';
+import type { AppDeps } from '../server/app';
+import { startRoles } from '../server/runtime/run-roles';
+import { createShutdown } from '../server/runtime/shutdown';
 import {
   DEMO_PASSWORD,
   demoCoordinators,
@@ -27,7 +23,7 @@ import {
   loadDemoScenario,
 } from './lib/demo-scenario';
 import { loadDemoPhotographedDay } from './lib/demo-photographed-day';
-import { browserBuildIsCurrent } from './lib/build-freshness';
+import { browserBuildIsCurrent, serverBuildIsCurrent } from './lib/build-freshness';
 import {
   createLocalHttpsServer,
   ensureLocalCertificate,
@@ -54,25 +50,7 @@ const raw = parseEnvironment({
 const config = toAppConfig(raw);
 const logger = createLogger(raw.LOG_LEVEL);
 
-const cleanups: Array<() => Promise<void> | void> = [];
-let shuttingDown = false;
-
-async function shutDown(signal: string, code = 0) {
-  if (shuttingDown) return;
-  shuttingDown = true;
-  say(`${signal}: shutting down...`);
-  for (const cleanup of cleanups.reverse()) {
-    try {
-      await cleanup();
-    } catch (error) {
-      logger.error({ err: error }, 'cleanup step failed');
-    }
-  }
-  say('stopped cleanly.');
-  process.exit(code);
-}
-process.on('SIGINT', () => void shutDown('SIGINT'));
-process.on('SIGTERM', () => void shutDown('SIGTERM'));
+const shutdown = createShutdown(say, logger);
 
 async function openDatabase(): Promise<string> {
   if (raw.DATABASE_URL) {
@@ -86,14 +64,14 @@ async function openDatabase(): Promise<string> {
   );
   const cluster: RunningCluster = await startCluster({ dataFolder, port: raw.PG_PORT, log: say });
   if (cluster.startedHere) {
-    cleanups.push(() => {
+    shutdown.add(() => {
       cluster.stop();
       say(`Stopped PostgreSQL on ${cluster.dataFolder}.`);
     });
   } else {
     // Said plainly at exit too: "stopped cleanly" must not suggest the database stopped.
     const owner = cluster.ownedBy;
-    cleanups.push(() => {
+    shutdown.add(() => {
       say(`PostgreSQL keeps running: it belongs to the Likeness process with pid ${owner}.`);
     });
   }
@@ -110,15 +88,21 @@ async function frontend(): Promise<AppDeps['frontend']> {
       server: { middlewareMode: true },
       appType: 'spa',
     });
-    cleanups.push(() => server.close());
+    shutdown.add(() => server.close());
     return { kind: 'middleware', handler: server.middlewares };
   }
-  if (browserBuildIsCurrent(root)) {
+  // The browser build empties dist/, so the server is compiled again after it.
+  const browserCurrent = browserBuildIsCurrent(root);
+  if (browserCurrent) {
     say('The browser app in dist/ is up to date: serving it without building.');
   } else {
     say('Building the browser app...');
     const vite = await import('vite');
     await vite.build({ root, logLevel: 'warn' });
+  }
+  if (!browserCurrent || !serverBuildIsCurrent(root)) {
+    const { buildServer } = await import('./build-server.mjs');
+    await buildServer(root);
   }
   return { kind: 'static', folder: path.join(root, 'dist') };
 }
@@ -144,7 +128,7 @@ async function main() {
   }
 
   const db = createDatabase(databaseUrl);
-  cleanups.push(() => db.destroy());
+  shutdown.add(() => db.destroy());
 
   const demoLoaded = raw.LOAD_DEMO && (await loadDemoScenario(db));
   if (demoLoaded) {
@@ -159,17 +143,17 @@ async function main() {
     // Caught mail is kept in the database, so the Mailbox survives a restart.
     catcher = await startMailCatcher(raw.MAIL_CATCHER_PORT, { store: createCaughtMailStore(db) });
     const started = catcher;
-    cleanups.push(() => started.close());
+    shutdown.add(() => started.close());
     smtpUrl = catcher.smtpUrl;
     say(
       `Local mail catcher listening on ${catcher.smtpUrl}: read it at ${config.publicUrl}/studio/mailbox`,
     );
   }
   const mailer = createSmtpMailer({ smtpUrl, ...mailIdentity(config) });
-  cleanups.push(() => mailer.close());
+  shutdown.add(() => mailer.close());
 
   const storage = createStorage(config.storage);
-  cleanups.push(() => storage.close());
+  shutdown.add(() => storage.close());
   say(
     config.storage.kind === 'local'
       ? `Frames are stored in ${config.storage.root}.`
@@ -188,58 +172,21 @@ async function main() {
       );
   }
 
-  // PROCESS_ROLE splits one studio over several processes: web (HTTP and console events) and
-  // worker (graphile-worker jobs). Everything they share lives in PostgreSQL or the storage.
-  if (raw.PROCESS_ROLE !== 'worker') {
-    // One dedicated connection LISTENs for station console changes from every app process.
-    const notifications = await createPgNotifications(databaseUrl, (error) =>
-      logger.warn({ err: error }, 'console notifications connection failed; reconnecting'),
-    );
-    cleanups.push(() => notifications.close());
-    const { app } = createApp({
-      db,
-      config,
-      mailer,
-      mailbox: catcher,
-      clock: systemClock,
-      logger,
-      frontend: await frontend(),
-      notifications,
-      storage,
-      uploads: config.uploads,
-    });
-    const server: Server = await new Promise((resolve, reject) => {
-      const listening = certificate
-        ? createLocalHttpsServer(app, certificate).listen(raw.PORT, raw.HOST, () =>
-            resolve(listening),
-          )
-        : app.listen(raw.PORT, raw.HOST, () => resolve(listening));
-      listening.once('error', reject);
-    });
-    cleanups.push(
-      () =>
-        new Promise<void>((resolve) => {
-          server.close(() => resolve());
-          server.closeAllConnections();
-        }),
-    );
-  }
-  if (raw.PROCESS_ROLE !== 'web') {
-    const portraits = portraitTasks({ db, storage, logger, studioName: config.studioName });
-    // Invitations, reminders, day-before mail, reading frames and rendering portraits run on graphile-worker.
-    const worker = await startDayJobsWorker(
-      { db, databaseUrl, clock: systemClock, mailer, config, logger },
-      {
-        ...frameTasks({ db, storage, maxPixels: config.uploads.maxPixels, logger }),
-        ...matchingTasks({ db, logger }),
-        ...portraits.handlers,
-        ...createDeliveryService({ db, clock: systemClock, storage }).handlers(),
-      },
-    );
-    cleanups.push(() => portraits.close());
-    // Cleanups run in reverse: the worker stops (finishing its jobs) before the pool closes.
-    cleanups.push(() => worker.stop());
-  }
+  await startRoles({
+    raw,
+    config,
+    databaseUrl,
+    db,
+    mailer,
+    mailbox: catcher,
+    storage,
+    logger,
+    frontend,
+    addCleanup: shutdown.add,
+    say,
+    // On the studio network tablets need a secure page for the camera and the offline console.
+    ...(certificate ? { listen: listenSecure(certificate) } : {}),
+  });
   if (raw.PROCESS_ROLE === 'worker') {
     say('Running as a worker: background jobs only, no web server in this process.');
     say('Press Ctrl-C to stop.');
@@ -268,7 +215,17 @@ async function main() {
   say('Press Ctrl-C to stop.');
 }
 
+function listenSecure(certificate: LocalCertificate) {
+  return (app: Express) =>
+    new Promise<Server>((resolve, reject) => {
+      const listening = createLocalHttpsServer(app, certificate).listen(raw.PORT, raw.HOST, () =>
+        resolve(listening),
+      );
+      listening.once('error', reject);
+    });
+}
+
 main().catch((error: unknown) => {
   say(error instanceof Error ? error.message : String(error));
-  void shutDown('error', 1);
+  void shutdown.shutDown('error', 1);
 });

@@ -74,8 +74,10 @@ async function main() {
   if (!(await run('lint', bin('eslint'), ['.', '--max-warnings=0']))) failedSteps.push('lint');
   if (!(await run('format check', bin('prettier'), ['--check', '.', '--log-level', 'warn'])))
     failedSteps.push('format');
-  if (!(await run('build', bin('vite'), ['build', '--logLevel', 'warn'])))
-    failedSteps.push('build');
+  const built =
+    (await run('build', bin('vite'), ['build', '--logLevel', 'warn'])) &&
+    (await run('server build', process.execPath, ['scripts/build-server.mjs']));
+  if (!built) failedSteps.push('build');
 
   say('starting a throw-away PostgreSQL for the tests...');
   const cluster = await startTestCluster();

@@ -8,6 +8,7 @@ import type { Mailbox } from './adapters/mail/mail-catcher';
 import type { Mailer } from './adapters/mail/mailer';
 import type { Notifications } from './adapters/notifications';
 import type { ObjectStorage } from './adapters/storage/storage';
+import type { Locker } from '@tus/server';
 import type { AppConfig } from './config';
 import type { Db } from './db/database';
 import { refuseControlCharacters } from './lib/control-characters';
@@ -16,6 +17,7 @@ import { AppError } from './lib/errors';
 import { errorHandler, notFoundHandler } from './lib/error-handler';
 import type { Logger } from './lib/logger';
 import { RouteTable } from './lib/route-table';
+import type { Lifecycle } from './runtime/lifecycle';
 import { loadViewer } from './lib/session-cookie';
 import { registerAuthRoutes } from './modules/auth/auth.routes';
 import { registerBookingRoutes } from './modules/booking/booking.routes';
@@ -78,6 +80,12 @@ export interface AppDeps {
   storage: ObjectStorage;
   /** Where tus keeps files still arriving, and the limits every upload is held to. */
   uploads: { folder: string; maxBytes: number; maxPixels: number };
+  /** Locks an upload while a request writes to it; across processes in production. */
+  uploadLocker?: Locker;
+  /** Stopping: readiness turns 503, event streams end, kept-alive connections are closed. */
+  lifecycle?: Lifecycle;
+  /** This process also runs the job queue (PROCESS_ROLE=all): readiness checks it too. */
+  runsJobs?: boolean;
 }
 
 /**
@@ -106,6 +114,8 @@ export function createApp(deps: AppDeps) {
   app.disable('x-powered-by');
 
   app.use((req, res, next) => {
+    // A stopping process asks each client to open its next request elsewhere.
+    if (deps.lifecycle?.draining) res.setHeader('Connection', 'close');
     req.requestId = randomUUID();
     res.setHeader('X-Request-Id', req.requestId);
     next();
@@ -171,19 +181,21 @@ export function createApp(deps: AppDeps) {
     maxBytes: deps.uploads.maxBytes,
     resolveViewer: (token) => auth.resolveViewer(token),
     logger,
+    locker: deps.uploadLocker,
   });
 
   const api = express.Router();
   // Health comes before the cookie is resolved: it must answer while the database is down.
   const health = express.Router();
   const healthRoutes = new RouteTable(health);
-  registerHealthRoutes(
-    healthRoutes,
+  registerHealthRoutes(healthRoutes, {
     db,
-    mailbox ? 'local catcher' : 'smtp',
-    deps.notifications,
-    deps.storage,
-  );
+    mail: mailbox ? 'local catcher' : 'smtp',
+    notifications: deps.notifications,
+    storage: deps.storage,
+    runsJobs: deps.runsJobs,
+    lifecycle: deps.lifecycle,
+  });
   api.use(health);
   // Before the body is read: a cross-site change is refused whatever it carries.
   api.use(refuseCrossSiteChanges);
@@ -238,7 +250,12 @@ export function createApp(deps: AppDeps) {
       urls: createProofUrls(config.proofUrls),
     }),
   );
-  registerConsoleRoutes(routes, createConsoleService({ db, clock }), deps.notifications);
+  registerConsoleRoutes(
+    routes,
+    createConsoleService({ db, clock }),
+    deps.notifications,
+    deps.lifecycle,
+  );
   registerDevMailboxRoutes(routes, mailbox);
   api.use(notFoundHandler());
   api.use(errorHandler(logger));

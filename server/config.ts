@@ -74,6 +74,14 @@ export const configSchema = z.object({
   LOAD_DEMO: booleanFromEnv.default(true),
   /** all: web and jobs in one process (npm start); web: HTTP and console events; worker: jobs. */
   PROCESS_ROLE: z.enum(['all', 'web', 'worker']).default('all'),
+  /** How long a stopping process lets open requests finish before it cuts them. */
+  DRAIN_SECONDS: z.coerce.number().min(0).max(600).default(25),
+  /** A worker answers /api/health and /api/ready on this port when it is set. */
+  HEALTH_PORT: z.coerce.number().int().min(0).max(65535).optional(),
+  /** Where tus keeps files still arriving; every web process of one site must share it. */
+  UPLOAD_SPOOL_DIR: z.string().min(1).optional(),
+  /** `npm run serve` applies pending migrations first (under PostgreSQL's advisory lock). */
+  MIGRATE_ON_START: booleanFromEnv.default(true),
   MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   STORAGE: z.enum(['local', 's3']).default('local'),
   STORAGE_LOCAL_ROOT: z.string().min(1).optional(),
@@ -166,7 +174,9 @@ export function toAppConfig(raw: RawConfig): AppConfig {
     },
     storage: toStorageSettings(raw),
     uploads: {
-      folder: path.resolve(raw.LIKENESS_DATA_DIR, 'uploads-in-flight'),
+      folder: path.resolve(
+        raw.UPLOAD_SPOOL_DIR ?? path.join(raw.LIKENESS_DATA_DIR, 'uploads-in-flight'),
+      ),
       maxBytes: raw.UPLOAD_MAX_MB * 1_000_000,
       maxPixels: raw.UPLOAD_MAX_MEGAPIXELS * 1_000_000,
     },

@@ -3,6 +3,8 @@ import path from 'node:path';
 
 /** What the browser build is made from: a change to any of these makes dist/ out of date. */
 const BUILD_INPUTS = ['src', 'public', 'index.html', 'vite.config.ts', 'tailwind.config.ts'];
+/** What the compiled server in dist/server is made from. */
+const SERVER_INPUTS = ['server', 'migrations', 'scripts/build-server.mjs'];
 
 function newestChange(target: string): number {
   if (!existsSync(target)) return 0;
@@ -20,8 +22,16 @@ function newestChange(target: string): number {
  * serve it as it is (and a production install without Vite can start at all).
  */
 export function browserBuildIsCurrent(root: string): boolean {
-  const built = path.join(root, 'dist', 'index.html');
+  return isNewerThanAll(path.join(root, 'dist', 'index.html'), root, BUILD_INPUTS);
+}
+
+/** True when dist/server (what `npm run serve` runs) is newer than the server's sources. */
+export function serverBuildIsCurrent(root: string): boolean {
+  return isNewerThanAll(path.join(root, 'dist', 'server', 'main.js'), root, SERVER_INPUTS);
+}
+
+function isNewerThanAll(built: string, root: string, inputs: string[]): boolean {
   if (!existsSync(built)) return false;
   const builtAt = statSync(built).mtimeMs;
-  return BUILD_INPUTS.every((input) => newestChange(path.join(root, input)) <= builtAt);
+  return inputs.every((input) => newestChange(path.join(root, input)) <= builtAt);
 }

@@ -1,21 +1,33 @@
-import { promises as fs } from 'node:fs';
+import { existsSync, promises as fs } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { runMigrations } from 'graphile-worker';
 import { FileMigrationProvider, Kysely, Migrator, PostgresDialect } from 'kysely';
 import pg from 'pg';
 
-const migrationFolder = path.resolve(
+const sourceMigrations = path.resolve(
   path.dirname(fileURLToPath(import.meta.url)),
   '../../migrations',
 );
+
+/**
+ * The migrations an entry runs: compiled ones beside a built entry (dist/server/migrations,
+ * as `npm run build` lays them out), else the TypeScript sources (run through tsx).
+ */
+export function migrationFolderFor(entryUrl: string): string {
+  const beside = path.join(path.dirname(fileURLToPath(entryUrl)), 'migrations');
+  return existsSync(beside) ? beside : sourceMigrations;
+}
 
 /**
  * Runs every pending migration; throws with the failing migration's name. graphile-worker's
  * own schema comes first: every transaction that adds a job needs graphile_worker.add_job, and
  * the migration that retired the old job table moves its waiting jobs over with it.
  */
-export async function migrateToLatest(connectionString: string): Promise<string[]> {
+export async function migrateToLatest(
+  connectionString: string,
+  migrationFolder = sourceMigrations,
+): Promise<string[]> {
   await runMigrations({ connectionString });
   // Migrations get a plain Kysely (no camel-case plugin): they speak the database's own names.
   const db = new Kysely<unknown>({

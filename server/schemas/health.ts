@@ -19,5 +19,9 @@ export const readinessSchema = z.object({
   ready: z.boolean(),
   database: z.enum(['up', 'down']),
   storage: z.enum(['up', 'down']),
+  /** A worker's job queue (graphile-worker's schema); `off` in a process that runs no jobs. */
+  queue: z.enum(['up', 'down', 'off']),
+  /** True once the process has been told to stop: it finishes what it has and takes no more. */
+  draining: z.boolean(),
 });
 export type Readiness = z.infer<typeof readinessSchema>;

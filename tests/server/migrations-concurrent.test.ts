@@ -55,7 +55,7 @@ describe('migrations started by several processes at once', () => {
 describe('npm run migrate', () => {
   const root = path.resolve(import.meta.dirname, '../..');
   const migrate = (env: Record<string, string>) =>
-    spawnSync(process.execPath, ['--import', 'tsx', 'scripts/migrate.ts'], {
+    spawnSync(process.execPath, ['--import', 'tsx', 'server/migrate.ts'], {
       cwd: root,
       encoding: 'utf8',
       env: { ...process.env, ...env },

@@ -21,12 +21,24 @@ afterAll(async () => {
 describe('readiness', () => {
   it('is ready while database and storage answer, and not while storage is unreachable', async () => {
     const ready = await request(t.app).get('/api/ready').expect(200);
-    expect(ready.body).toEqual({ ready: true, database: 'up', storage: 'up' });
+    expect(ready.body).toEqual({
+      ready: true,
+      database: 'up',
+      storage: 'up',
+      queue: 'off',
+      draining: false,
+    });
     expect(ready.headers['cache-control']).toBe('no-store');
 
     await fake.stop();
     const notReady = await request(t.app).get('/api/ready').expect(503);
-    expect(notReady.body).toEqual({ ready: false, database: 'up', storage: 'down' });
+    expect(notReady.body).toEqual({
+      ready: false,
+      database: 'up',
+      storage: 'down',
+      queue: 'off',
+      draining: false,
+    });
     expect(notReady.headers['retry-after']).toBe('5');
     // Liveness stays about the process and its database.
     await request(t.app).get('/api/health').expect(200);

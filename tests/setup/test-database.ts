@@ -33,3 +33,24 @@ export async function createTestDatabase(): Promise<TestDatabase> {
     },
   };
 }
+
+/** An empty database with no migrations applied: for tests of migrating itself. */
+export async function createEmptyDatabase(): Promise<{ url: string; drop(): Promise<void> }> {
+  const adminUrl = inject('pgAdminUrl');
+  const name = `empty_${randomBytes(6).toString('hex')}`;
+  const admin = new pg.Client({ connectionString: adminUrl });
+  await admin.connect();
+  await admin.query(`create database ${name} template template0`);
+  await admin.end();
+  const url = new URL(adminUrl);
+  url.pathname = `/${name}`;
+  return {
+    url: url.toString(),
+    async drop() {
+      const cleanup = new pg.Client({ connectionString: adminUrl });
+      await cleanup.connect();
+      await cleanup.query(`drop database if exists ${name} with (force)`);
+      await cleanup.end();
+    },
+  };
+}

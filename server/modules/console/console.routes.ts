@@ -2,6 +2,7 @@ import type { Notifications } from '../../adapters/notifications';
 import type { RouteTable } from '../../lib/route-table';
 import { viewerOf } from '../../lib/route-table';
 import { parseId, parseInput } from '../../lib/validate';
+import type { Lifecycle } from '../../runtime/lifecycle';
 import {
   consoleActionSchema,
   consoleEventsQuerySchema,
@@ -16,6 +17,7 @@ export function registerConsoleRoutes(
   routes: RouteTable,
   service: ConsoleService,
   notifications: Notifications | undefined,
+  lifecycle?: Lifecycle,
 ) {
   routes.add('get', '/console/days', viewers, async (req, res) => {
     res.json({ days: await service.days(viewerOf(req)) });
@@ -58,10 +60,14 @@ export function registerConsoleRoutes(
     });
     // A comment line now and then keeps proxies from closing a quiet stream.
     const heartbeat = setInterval(() => res.write(': still here\n\n'), 15_000);
+    // A stopping process ends its streams: the tablet's EventSource reconnects (retry above),
+    // through the load balancer, to a process that stays.
+    const stopOnDrain = lifecycle?.onDrain(() => res.end());
     // The response closes when the tablet goes away (tab closed, network lost).
     res.on('close', () => {
       clearInterval(heartbeat);
       unsubscribe?.();
+      stopOnDrain?.();
     });
   });
 }

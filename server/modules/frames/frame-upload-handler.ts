@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { FileStore } from '@tus/file-store';
-import { Metadata, Server, type Upload } from '@tus/server';
+import { Metadata, Server, type Locker, type Upload } from '@tus/server';
 import cookieParser from 'cookie-parser';
 import type { Express, NextFunction, Request, RequestHandler, Response } from 'express';
 import { assertSameSite } from '../../lib/cross-site';
@@ -44,6 +44,8 @@ export function mountFrameUploads(
     maxBytes: number;
     resolveViewer: (token: string) => Promise<Viewer | null>;
     logger: Logger;
+    /** Across processes in production (upload-locker.ts); tus's in-memory one otherwise. */
+    locker?: Locker;
   },
 ) {
   const { frames, folder, logger } = deps;
@@ -52,6 +54,7 @@ export function mountFrameUploads(
   const tus = new Server({
     path: UPLOAD_PATH,
     datastore: store,
+    ...(deps.locker ? { locker: deps.locker } : {}),
     maxSize: deps.maxBytes,
     relativeLocation: true,
     namingFunction: (req) => {

@@ -1,6 +1,7 @@
 // `npm run migrate`: applies pending migrations to DATABASE_URL and exits. Several processes may
 // run it at once: the migrator takes PostgreSQL advisory locks, so one applies, the rest wait.
-import { migrateToLatest } from '../server/db/migrator';
+// Built to dist/server/migrate.js, it runs with production dependencies only.
+import { migrateToLatest, migrationFolderFor } from './db/migrator';
 
 const url = process.env.DATABASE_URL;
 if (!url) {
@@ -10,7 +11,7 @@ if (!url) {
   process.exit(2);
 }
 try {
-  const applied = await migrateToLatest(url);
+  const applied = await migrateToLatest(url, migrationFolderFor(import.meta.url));
   process.stdout.write(
     applied.length > 0 ? `Applied migrations: ${applied.join(', ')}\n` : 'Nothing to migrate.\n',
   );
