@@ -1,5 +1,4 @@
 import { spawn, type ChildProcessWithoutNullStreams } from 'node:child_process';
-import { expect } from 'vitest';
 
 /** A Likeness process started from the build (`node dist/server/main.js` or `npm run serve`). */
 export interface BuiltProcess {
@@ -29,7 +28,11 @@ export function startBuiltProcess(options: {
   return {
     output: () => text,
     async waitFor(pattern, timeoutMs = 60_000) {
-      await expect.poll(() => text, { timeout: timeoutMs, interval: 200 }).toMatch(pattern);
+      await pollUntil(
+        () => pattern.test(text),
+        timeoutMs,
+        () => `no ${pattern} in:\n${text}`,
+      );
     },
     async stop(signal = 'SIGTERM') {
       if (child.exitCode === null) child.kill(signal);
@@ -43,16 +46,22 @@ export function startBuiltProcess(options: {
 
 /** Polls a URL until it answers 200 (a process is ready once /api/ready says so). */
 export async function waitUntilReady(baseUrl: string, timeoutMs = 60_000) {
-  await expect
-    .poll(
-      async () => {
-        try {
-          return (await fetch(`${baseUrl}/api/ready`)).status;
-        } catch {
-          return 0;
-        }
-      },
-      { timeout: timeoutMs, interval: 250 },
-    )
-    .toBe(200);
+  await pollUntil(
+    async () => (await fetch(`${baseUrl}/api/ready`).catch(() => null))?.status === 200,
+    timeoutMs,
+    () => `${baseUrl}/api/ready did not answer 200`,
+  );
+}
+
+// Plain polling rather than expect.poll: these also run in beforeAll, outside any test.
+async function pollUntil(
+  check: () => boolean | Promise<boolean>,
+  timeoutMs: number,
+  failure: () => string,
+) {
+  const deadline = Date.now() + timeoutMs;
+  while (!(await check())) {
+    if (Date.now() > deadline) throw new Error(failure());
+    await new Promise((resolve) => setTimeout(resolve, 200));
+  }
 }
