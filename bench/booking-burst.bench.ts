@@ -5,14 +5,15 @@ import { Worker } from 'node:worker_threads';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { CamelCasePlugin, Kysely, PostgresDialect } from 'kysely';
+import cookieParser from 'cookie-parser';
+import express from 'express';
 import pg from 'pg';
 import { systemClock } from '../server/adapters/clock';
 import { LocalStorage } from '../server/adapters/storage/local-storage';
 import type { Mailer } from '../server/adapters/mail/mailer';
 import { createApp } from '../server/app';
 import { parseEnvironment, toAppConfig } from '../server/config';
-import type { Database } from '../server/db/types';
+import { createDatabase, DEFAULT_POOL_SIZE } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrator';
 import { createLogger } from '../server/lib/logger';
 import { hashToken, newOpaqueToken } from '../server/lib/secrets';
@@ -31,6 +32,8 @@ const sitters = Number(process.env.BOOKING_BENCH_SITTERS ?? 2000);
 const stations = 4;
 // In-flight requests, and pgbench's client count; override to explore.
 const concurrency = Number(process.env.BOOKING_BENCH_CONCURRENCY ?? 32);
+// Connections of the app (and of the bare handler): the app's default unless asked.
+const poolSize = Number(process.env.BOOKING_BENCH_POOL ?? DEFAULT_POOL_SIZE);
 const pgbenchSeconds = Number(process.env.BOOKING_BENCH_PGBENCH_SECONDS ?? 10);
 const date = '2030-03-14';
 const hours = { opensAt: '09:00', closesAt: '17:00', slotMinutes: 5 };
@@ -101,6 +104,82 @@ async function prepareDay(url: string) {
   }
 }
 
+/**
+ * The bare handler: an Express route in this process that does the least a claim can do —
+ * read the JSON body and the session cookie, find the session in its table (by the token's
+ * SHA-256, as the app does) and run one INSERT ... ON CONFLICT DO NOTHING — with no rules, no
+ * transaction and no confirmation. It is the same HTTP, Node and pg stack the app runs on.
+ */
+async function startBareHandler(pool: pg.Pool): Promise<{ url: string; server: Server }> {
+  await pool.query(
+    `create table bare_claims (
+       person_id uuid primary key, day_id uuid not null, starts_at timestamptz not null)`,
+  );
+  const app = express();
+  app.use(express.json());
+  app.use(cookieParser());
+  // The warm-up's read: the session lookup and a one-row answer.
+  app.get('/claims', async (req, res) => {
+    const token = String((req.cookies as Record<string, unknown>).likeness_session ?? '');
+    const session = await pool.query<{ personId: string }>(
+      'select person_id as "personId" from sessions where token_hash = $1 and expires_at > now()',
+      [hashToken(token)],
+    );
+    res.status(session.rows[0] ? 200 : 401).json(session.rows[0] ?? {});
+  });
+  app.post('/claims', async (req, res) => {
+    const token = String((req.cookies as Record<string, unknown>).likeness_session ?? '');
+    const session = await pool.query<{ personId: string }>(
+      'select person_id as "personId" from sessions where token_hash = $1 and expires_at > now()',
+      [hashToken(token)],
+    );
+    const personId = session.rows[0]?.personId;
+    if (!personId) {
+      res.status(401).end();
+      return;
+    }
+    const body = req.body as { dayId: string; startsAt: string };
+    const inserted = await pool.query(
+      `insert into bare_claims (person_id, day_id, starts_at) values ($1, $2, $3)
+       on conflict do nothing`,
+      [personId, body.dayId, body.startsAt],
+    );
+    res.status(inserted.rowCount ? 201 : 409).json({ personId, startsAt: body.startsAt });
+  });
+  const server = app.listen(0, '127.0.0.1');
+  await new Promise((resolve) => server.once('listening', resolve));
+  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}/claims`, server };
+}
+
+/**
+ * Where the claims' database time went (pg_stat_statements, planning included): the share of
+ * the burst's wall time spent in PostgreSQL, and the statements that took most of it.
+ */
+async function databaseTimeOfClaims(client: pg.Client, seconds: number) {
+  const { rows } = await client.query<{
+    calls: string;
+    ms: number;
+    planMs: number;
+    query: string;
+  }>(
+    `select calls, total_exec_time + total_plan_time as ms, total_plan_time as "planMs", query
+     from pg_stat_statements
+     where query not like '%pg_stat_statements%' and dbid = (select oid from pg_database where datname = current_database())
+     order by ms desc limit 6`,
+  );
+  const totalMs = rows.reduce((sum, row) => sum + row.ms, 0);
+  return {
+    db_ms_per_claim_wall_ms: round(totalMs / (seconds * 1000), 2),
+    top: rows.map((row) => ({
+      calls: Number(row.calls),
+      mean_ms: round(row.ms / Number(row.calls), 3),
+      mean_plan_ms: round(row.planMs / Number(row.calls), 3),
+      total_ms: Math.round(row.ms),
+      query: row.query.replace(/\s+/g, ' ').slice(0, 90),
+    })),
+  };
+}
+
 function runPgbench(url: string): number {
   const folder = mkdtempSync(path.join(tmpdir(), 'booking-pgbench-'));
   try {
@@ -153,15 +232,26 @@ function runPgbench(url: string): number {
  */
 const claimLoop = `
 const { parentPort, workerData } = require('node:worker_threads');
-const { base, dayId, tokens, wanted, concurrency } = workerData;
+const { url, warmUrl, dayId, tokens, wanted, concurrency } = workerData;
 const latencies = [];
 const outcomes = {};
 let next = 0;
+// Untimed: two authenticated reads per request in flight, so the server's pool has opened its
+// connections and its code is compiled, as in a process that has been serving for a while.
+async function warmUp() {
+  for (let index = 0; index < 2 * concurrency; index += 1) {
+    const response = await fetch(warmUrl, {
+      headers: { Cookie: 'likeness_session=' + tokens[index % tokens.length] },
+    });
+    if (response.status !== 200) throw new Error('warm-up answered ' + response.status);
+    await response.arrayBuffer();
+  }
+}
 async function sitter() {
   while (next < tokens.length) {
     const index = next++;
     const begin = performance.now();
-    const response = await fetch(base + '/api/bookings', {
+    const response = await fetch(url, {
       method: 'POST',
       headers: { 'Content-Type': 'application/json', Cookie: 'likeness_session=' + tokens[index] },
       body: JSON.stringify({ dayId, startsAt: wanted[index] }),
@@ -171,14 +261,20 @@ async function sitter() {
     outcomes[response.status] = (outcomes[response.status] || 0) + 1;
   }
 }
-const started = performance.now();
-Promise.all(Array.from({ length: concurrency }, sitter)).then(() =>
-  parentPort.postMessage({ latencies, outcomes, seconds: (performance.now() - started) / 1000 }),
-);
+let started;
+Promise.all(Array.from({ length: concurrency }, warmUp))
+  .then(() => {
+    started = performance.now();
+    return Promise.all(Array.from({ length: concurrency }, sitter));
+  })
+  .then(() =>
+    parentPort.postMessage({ latencies, outcomes, seconds: (performance.now() - started) / 1000 }),
+  );
 `;
 
 function fireClaims(input: {
-  base: string;
+  url: string;
+  warmUrl: string;
   dayId: string;
   tokens: string[];
   wanted: string[];
@@ -202,14 +298,12 @@ const benchmark: Benchmark = {
     await admin.connect();
     await admin.query(`create database ${name}`);
     const url = adminUrl.replace(/\/[^/]*$/, `/${name}`);
-    // The app's own pool setup, plus an error listener: the throw-away cluster ends idle
-    // connections when it stops, which is not a failure of the run.
-    const pool = new pg.Pool({ connectionString: url, max: concurrency });
+    // The app's own database setup (its pool size, prepared statements); the bare handler
+    // gets a plain pg pool of the same size, with an error listener: the throw-away cluster
+    // ends idle connections when it stops, which is not a failure of the run.
+    const db = createDatabase(url, { maxConnections: poolSize });
+    const pool = new pg.Pool({ connectionString: url, max: poolSize });
     pool.on('error', () => undefined);
-    const db = new Kysely<Database>({
-      dialect: new PostgresDialect({ pool }),
-      plugins: [new CamelCasePlugin()],
-    });
     let server: Server | undefined;
     try {
       await migrateToLatest(url);
@@ -235,8 +329,24 @@ const benchmark: Benchmark = {
       const random = repeatableRandom(2030);
       const wanted = tokens.map(() => slots[Math.floor(random() * slots.length)]!.startsAt);
 
+      // The bare handler first, on the same sessions and the same slots.
+      const bare = await startBareHandler(pool);
+      const bareRun = await fireClaims({
+        url: bare.url,
+        warmUrl: bare.url,
+        dayId,
+        tokens,
+        wanted,
+        concurrency,
+      });
+      await new Promise((resolve) => bare.server.close(resolve));
+
+      await pool.query('create extension if not exists pg_stat_statements');
+      await pool.query('select pg_stat_statements_reset()');
       const { latencies, outcomes, seconds } = await fireClaims({
-        base,
+        url: `${base}/api/bookings`,
+        // The sitter's own page of the day: the session and the day, read as a claim reads them.
+        warmUrl: `${base}/api/days/${dayId}/slots`,
         dayId,
         tokens,
         wanted,
@@ -245,6 +355,7 @@ const benchmark: Benchmark = {
 
       const audit = new pg.Client({ connectionString: url });
       await audit.connect();
+      const statements = await databaseTimeOfClaims(audit, seconds);
       const { rows } = await audit.query<{ oversold: string; doubled: string; booked: string }>(
         `select
            (select count(*) from (select starts_at from bookings where day_id = $1 and status = 'active'
@@ -262,6 +373,8 @@ const benchmark: Benchmark = {
 
       latencies.sort((a, b) => a - b);
       const claimsPerSecond = tokens.length / seconds;
+      const bareClaimsPerSecond = tokens.length / bareRun.seconds;
+      const bareLatencies = [...bareRun.latencies].sort((a, b) => a - b);
       print({
         bench: 'booking-burst',
         claims: tokens.length,
@@ -277,13 +390,20 @@ const benchmark: Benchmark = {
         p95_ms: round(percentile(latencies, 95)),
         p99_ms: round(percentile(latencies, 99)),
         oversold: Number(rows[0]?.oversold) + Number(rows[0]?.doubled),
+        bare_claims_per_s: round(bareClaimsPerSecond),
+        bare_p99_ms: round(percentile(bareLatencies, 99)),
+        ratio_bare: round(claimsPerSecond / bareClaimsPerSecond, 3),
+        goal_ratio_bare: '>= 0.5',
+        goal_p99_ms: '< 250',
         baseline: 'pgbench',
         baseline_tps: round(baselineTps),
-        ratio: round(claimsPerSecond / baselineTps, 3),
+        ratio_pgbench: round(claimsPerSecond / baselineTps, 3),
       });
+      print({ bench: 'booking-burst-statements', ...statements });
     } finally {
       if (server) await new Promise((resolve) => server!.close(resolve));
       await db.destroy();
+      await pool.end();
       await admin.query(`drop database if exists ${name} with (force)`);
       await admin.end();
     }

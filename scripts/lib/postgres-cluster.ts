@@ -82,6 +82,8 @@ export interface ClusterOptions {
   port: number;
   /** Throw-away clusters for tests trade durability for speed. */
   disposable?: boolean;
+  /** More server settings (`name=value`), e.g. pg_stat_statements for the benchmarks. */
+  settings?: string[];
   log?: (line: string) => void;
 }
 
@@ -183,6 +185,7 @@ export async function startCluster(options: ClusterOptions): Promise<RunningClus
           '-c max_connections=300',
         ]
       : []),
+    ...(options.settings ?? []).map((setting) => `-c ${setting}`),
   ].join(' ');
   const start = runAsOwner(pgCtl, [
     '-D',

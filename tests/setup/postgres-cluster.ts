@@ -14,14 +14,21 @@ export interface TestCluster {
 }
 
 /** A throw-away cluster with a migrated template database that each test file clones. */
-export async function startTestCluster(): Promise<TestCluster> {
+export async function startTestCluster(
+  options: { settings?: string[] } = {},
+): Promise<TestCluster> {
   const folder = mkdtempSync(path.join(os.tmpdir(), 'likeness-test-pg-'));
   // The cluster's owner (the postgres user, when tests run as root) must be able to enter it.
   chmodSync(folder, 0o755);
   const dataFolder = path.join(folder, 'data');
   let cluster: RunningCluster;
   try {
-    cluster = await startCluster({ dataFolder, port: await freePort(), disposable: true });
+    cluster = await startCluster({
+      dataFolder,
+      port: await freePort(),
+      disposable: true,
+      settings: options.settings,
+    });
   } catch (error) {
     rmSync(folder, { recursive: true, force: true });
     throw error;
