@@ -1,8 +1,12 @@
 import { CamelCasePlugin, Kysely, PostgresDialect } from 'kysely';
 import pg from 'pg';
+import { preparingPool } from './prepared-statements';
 import type { Database } from './types';
 
 export type Db = Kysely<Database>;
+
+/** Connections per process for requests (README: size max_connections for every process). */
+export const DEFAULT_POOL_SIZE = 10;
 
 // A timestamp without zone (a camera's unzoned wall clock) stays the text it is: parsing it
 // into a Date would silently place it in this process's time zone.
@@ -13,14 +17,14 @@ export function createDatabase(
   connectionString: string,
   options: { maxConnections?: number } = {},
 ): Db {
-  const pool = new pg.Pool({ connectionString, max: options.maxConnections ?? 10 });
+  const pool = new pg.Pool({ connectionString, max: options.maxConnections ?? DEFAULT_POOL_SIZE });
   // An idle connection the server drops (restart, test database removed) must not crash the
   // process: the pool discards it and the next query opens a fresh one.
   pool.on('error', (error) => {
     process.emitWarning(`PostgreSQL connection lost: ${error.message}`);
   });
   return new Kysely<Database>({
-    dialect: new PostgresDialect({ pool }),
+    dialect: new PostgresDialect({ pool: preparingPool(pool) }),
     plugins: [new CamelCasePlugin()],
   });
 }

@@ -1,0 +1,77 @@
+import type { PostgresPool, PostgresPoolClient } from 'kysely';
+import type pg from 'pg';
+
+/**
+ * Kysely's view of a pg pool in which the statements a process runs again and again become
+ * named (prepared) statements. PostgreSQL then plans each once per connection, and after a few
+ * runs keeps a generic plan, instead of planning it anew on every call: for the short queries
+ * of a request (the session, a day, a claim) planning was most of their database time.
+ *
+ * Only statement texts seen `after` times are named (a one-off report is not worth a plan kept
+ * per connection), at most `maxNames` of them per process, and only plain SELECT / INSERT /
+ * UPDATE / DELETE / WITH statements (transaction control and DDL run as they are).
+ */
+export function preparingPool(
+  pool: pg.Pool,
+  options: { after?: number; maxNames?: number } = {},
+): PostgresPool {
+  const after = options.after ?? 3;
+  const maxNames = options.maxNames ?? 1000;
+  const seen = new Map<string, number>();
+  const names = new Map<string, string>();
+  let counter = 0;
+
+  function nameFor(text: string): string | undefined {
+    const known = names.get(text);
+    if (known) return known;
+    if (names.size >= maxNames || !/^\s*(select|insert|update|delete|with)\b/i.test(text)) {
+      return undefined;
+    }
+    const count = (seen.get(text) ?? 0) + 1;
+    if (count < after) {
+      // Texts that never repeat (long IN lists, say) must not fill the memory either.
+      if (seen.size > 10 * maxNames) seen.clear();
+      seen.set(text, count);
+      return undefined;
+    }
+    seen.delete(text);
+    counter += 1;
+    const name = `likeness_q${counter}`;
+    names.set(text, name);
+    return name;
+  }
+
+  function wrap(client: pg.PoolClient): PostgresPoolClient {
+    async function run(text: string, values: ReadonlyArray<unknown>) {
+      const name = nameFor(text);
+      if (!name) return client.query(text, values as unknown[]);
+      try {
+        return await client.query({ name, text, values: values as unknown[] });
+      } catch (error) {
+        // A migration changed a table under a prepared `select *`: PostgreSQL refuses the old
+        // statement's result shape. Forget the name (every connection prepares anew) and run
+        // the text once more unnamed; inside a transaction the retry fails as the first did.
+        if (!changedResultType(error)) throw error;
+        names.delete(text);
+        return client.query(text, values as unknown[]);
+      }
+    }
+    return {
+      query: ((text: unknown, values?: ReadonlyArray<unknown>) =>
+        typeof text === 'string'
+          ? run(text, values ?? [])
+          : client.query(text as never)) as unknown as PostgresPoolClient['query'],
+      release: (destroy?: boolean) => client.release(destroy),
+    };
+  }
+
+  return {
+    connect: async () => wrap(await pool.connect()),
+    end: () => pool.end(),
+  };
+}
+
+function changedResultType(error: unknown): boolean {
+  const { code, message } = (error ?? {}) as { code?: unknown; message?: unknown };
+  return code === '0A000' && typeof message === 'string' && message.includes('result type');
+}
