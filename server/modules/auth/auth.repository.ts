@@ -1,4 +1,5 @@
 import type { Db } from '../../db/database';
+import { reusableQuery } from '../../db/reusable-query';
 import type { LinkPurpose } from '../../db/types';
 
 type Executor = Db;
@@ -144,13 +145,68 @@ export async function insertSession(
     .executeTakeFirstOrThrow();
 }
 
-export async function findLiveSession(db: Executor, tokenHash: string, now: Date) {
-  return db
-    .selectFrom('sessions')
-    .select(['id', 'expiresAt', 'userId', 'personId'])
-    .where('tokenHash', '=', tokenHash)
-    .where('expiresAt', '>', now)
-    .executeTakeFirst();
+/**
+ * A live session with the account behind it, in one round trip: every API request resolves
+ * its cookie, so this is the one query each request pays before its own work.
+ */
+const sessionAccountQuery = reusableQuery(
+  (db: Executor, tokenHash: string, now: Date) =>
+    db
+      .selectFrom('sessions')
+      .leftJoin('users', 'users.id', 'sessions.userId')
+      .leftJoin('people', 'people.id', 'sessions.personId')
+      .select((eb) => [
+        'sessions.id',
+        'sessions.expiresAt',
+        'sessions.userId',
+        'sessions.personId',
+        'users.email as staffEmail',
+        'users.displayName',
+        'users.role',
+        'users.clientId as staffClientId',
+        'users.active as staffActive',
+        'people.email as sitterEmail',
+        eb.fn.coalesce('people.preferredName', 'people.givenName').as('firstName'),
+        'people.familyName',
+        'people.clientId as sitterClientId',
+        'people.active as sitterActive',
+      ])
+      .where('sessions.tokenHash', '=', tokenHash)
+      .where('sessions.expiresAt', '>', now),
+  2,
+);
+
+export async function findSessionAccount(db: Executor, tokenHash: string, now: Date) {
+  const [row] = await sessionAccountQuery(db, tokenHash, now);
+  if (!row) return undefined;
+  const session: SessionRecord = {
+    id: row.id,
+    expiresAt: row.expiresAt,
+    userId: row.userId,
+    personId: row.personId,
+  };
+  if (row.userId && row.staffEmail && row.role && row.displayName !== null) {
+    const staff = {
+      id: row.userId,
+      email: row.staffEmail,
+      displayName: row.displayName,
+      role: row.role,
+      clientId: row.staffClientId,
+      active: row.staffActive === true,
+    };
+    return { session, staff, sitter: null };
+  }
+  if (row.personId && row.sitterEmail && row.sitterClientId && row.familyName !== null) {
+    const sitter = {
+      id: row.personId,
+      email: row.sitterEmail,
+      displayName: `${row.firstName} ${row.familyName}`,
+      clientId: row.sitterClientId,
+      active: row.sitterActive === true,
+    };
+    return { session, staff: null, sitter };
+  }
+  return { session, staff: null, sitter: null };
 }
 
 export async function deleteSession(db: Executor, id: string): Promise<void> {

@@ -61,7 +61,10 @@ const subjectOf = (viewer: Viewer) =>
 export function createAuthService(deps: AuthDeps) {
   const { db, clock, mailer, config } = deps;
 
-  const staffViewer = (account: repo.StaffAccount, session: repo.SessionRecord): Viewer => ({
+  const staffViewer = (
+    account: Omit<repo.StaffAccount, 'clientName' | 'passwordHash'>,
+    session: repo.SessionRecord,
+  ): Viewer => ({
     kind: 'staff',
     id: account.id,
     role: account.role,
@@ -72,7 +75,10 @@ export function createAuthService(deps: AuthDeps) {
     sessionExpiresAt: new Date(session.expiresAt),
   });
 
-  const sitterViewer = (account: repo.SitterAccount, session: repo.SessionRecord): Viewer => ({
+  const sitterViewer = (
+    account: Omit<repo.SitterAccount, 'clientName' | 'officeName'>,
+    session: repo.SessionRecord,
+  ): Viewer => ({
     kind: 'sitter',
     id: account.id,
     role: 'sitter',
@@ -127,15 +133,10 @@ export function createAuthService(deps: AuthDeps) {
 
     /** The viewer behind a session cookie, or null when it is unknown, expired or disabled. */
     async resolveViewer(token: string): Promise<Viewer | null> {
-      const session = await repo.findLiveSession(db, hashToken(token), clock.now());
-      if (!session) return null;
-      if (session.userId) {
-        const account = await repo.findStaffById(db, session.userId);
-        return account?.active ? staffViewer(account, session) : null;
-      }
-      if (session.personId) {
-        const account = await repo.findSitterById(db, session.personId);
-        return account?.active ? sitterViewer(account, session) : null;
+      const found = await repo.findSessionAccount(db, hashToken(token), clock.now());
+      if (found?.staff) return found.staff.active ? staffViewer(found.staff, found.session) : null;
+      if (found?.sitter) {
+        return found.sitter.active ? sitterViewer(found.sitter, found.session) : null;
       }
       return null;
     },

@@ -1,6 +1,7 @@
 import { sql, type Transaction } from 'kysely';
 import type { Db } from '../../db/database';
 import type { Database } from '../../db/types';
+import { personIsInvited } from '../days/days.repository';
 
 type Executor = Db | Transaction<Database>;
 
@@ -82,45 +83,34 @@ export function activeBookingOf(
     .executeTakeFirst();
 }
 
-/**
- * Locks the person and reads their active booking that day, in one round trip. The lock
- * serialises one person's booking changes: a double click becomes two turns, not a race.
- */
-export async function lockPersonForDay(
-  trx: Transaction<Database>,
-  personId: string,
-  dayId: string,
-) {
-  return trx
-    .selectFrom('people')
-    .leftJoin('bookings', (join) =>
-      join
-        .onRef('bookings.personId', '=', 'people.id')
-        .on('bookings.dayId', '=', dayId)
-        .on('bookings.status', '=', 'active'),
-    )
-    .select([
-      'people.id',
-      'people.clientId',
-      'people.active',
-      'bookings.id as bookingId',
-      'bookings.startsAt',
-    ])
-    .where('people.id', '=', personId)
-    .forUpdate('people')
-    .executeTakeFirst();
-}
+export type ClaimOutcome =
+  | { kind: 'booked'; booking: BookingRecord }
+  | { kind: 'day_changed' }
+  | { kind: 'no_person' }
+  | { kind: 'has_booking'; bookingId: string; startsAt: Date }
+  | { kind: 'seat_lost' }
+  | { kind: 'full' };
 
 /**
- * Claims a free seat of the slot in one statement (the caller queues the confirmation). A free
- * station is picked at random so that people claiming the same slot at once rarely aim at the
- * same seat; when two do, the unique index decides and the loser gets null with candidates > 0
- * (try again). candidates = 0 means the slot is full.
+ * A booking claimed in one statement, the whole rule in one round trip:
+ * - the day row under a shared lock (a day edit locks it for update, so it cannot change the
+ *   day between the request's checks and this insert), still confirmed and still the version
+ *   the request checked (xmin: any update of the row makes a new one);
+ * - the person under a row lock, active, on the day's client and invited to the day (so one
+ *   person's claims take turns), and their active booking that day if they have one;
+ * - a free station of the slot, picked at random so that people claiming the same slot at
+ *   once rarely aim at the same seat (or the one staff asked for);
+ * - the insert, with the unique indexes (one booking per seat, one per sitter and day)
+ *   deciding any race: a lost one inserts nothing;
+ * - the confirmation mail queued with the booking (an outbox), for the worker to render.
  */
-export async function claimSeat(
-  trx: Transaction<Database>,
+export async function claimBooking(
+  db: Executor,
   values: {
     dayId: string;
+    clientId: string;
+    /** The day row's version (xmin) the request's checks were made on. */
+    dayVersion: string;
     personId: string;
     startsAt: Date;
     passToken: string;
@@ -131,14 +121,51 @@ export async function claimSeat(
     flashSensitive: boolean;
     bookedByUserId: string | null;
     /** The station staff asked for; null lets the database pick any free one. */
-    stationId?: string | null;
+    stationId: string | null;
+    mailTask: string;
   },
-): Promise<{ bookingId: string | null; candidates: number }> {
-  const result = await sql<{ bookingId: string | null; candidates: string }>`
-    with chosen as (
-      select stations.id from stations
-      where stations.day_id = ${values.dayId}::uuid
-        and (${values.stationId ?? null}::uuid is null or stations.id = ${values.stationId ?? null}::uuid)
+): Promise<ClaimOutcome> {
+  const result = await sql<{
+    dayHolds: boolean;
+    personFound: boolean;
+    existingId: string | null;
+    existingStartsAt: Date | null;
+    candidates: number;
+    id: string | null;
+    stationId: string;
+    stationName: string;
+    personName: string;
+    personEmail: string;
+    sequence: number;
+  }>`
+    with day as (
+      select shoot_days.id from shoot_days
+      where shoot_days.id = ${values.dayId}::uuid
+        and shoot_days.status = 'confirmed'
+        and shoot_days.xmin::text = ${values.dayVersion}
+      for share
+    ), person as (
+      select people.id, people.email,
+        coalesce(people.preferred_name, people.given_name) || ' ' || people.family_name as name
+      from people
+      where people.id = ${values.personId}::uuid
+        and people.active
+        and people.client_id = ${values.clientId}::uuid
+        and exists (
+          select 1 from shoot_days
+          where shoot_days.id = ${values.dayId}::uuid and ${personIsInvited(values.personId)})
+      for update of people
+    ), existing as (
+      select bookings.id, bookings.starts_at from bookings
+      where bookings.day_id = ${values.dayId}::uuid
+        and bookings.person_id = ${values.personId}::uuid
+        and bookings.status = 'active'
+    ), chosen as (
+      select stations.id, stations.name from stations
+      where stations.day_id = (select day.id from day)
+        and exists (select 1 from person)
+        and not exists (select 1 from existing)
+        and (${values.stationId}::uuid is null or stations.id = ${values.stationId}::uuid)
         and not exists (
           select 1 from bookings
           where bookings.station_id = stations.id
@@ -155,12 +182,58 @@ export async function claimSeat(
         ${values.flashSensitive}::boolean, ${values.bookedByUserId}::uuid
       from chosen
       on conflict do nothing
-      returning id
+      returning bookings.id, bookings.station_id, bookings.sequence
+    ), queued as (
+      select graphile_worker.add_job(${values.mailTask}::text,
+        json_build_object('bookingId', inserted.id, 'kind', 'booked')) as job
+      from inserted
     )
-    select (select id from inserted) as "bookingId", (select count(*) from chosen) as candidates
-  `.execute(trx);
-  const row = result.rows[0];
-  return { bookingId: row?.bookingId ?? null, candidates: Number(row?.candidates ?? 0) };
+    select
+      exists (select 1 from day) as "dayHolds",
+      exists (select 1 from person) as "personFound",
+      (select existing.id from existing) as "existingId",
+      (select existing.starts_at from existing) as "existingStartsAt",
+      (select count(*)::int from chosen) as candidates,
+      (select count(*)::int from queued) as queued,
+      inserted.id, inserted.station_id as "stationId", inserted.sequence,
+      chosen.name as "stationName", person.name as "personName", person.email as "personEmail"
+    from (select 1) as one
+      left join inserted on true
+      left join chosen on chosen.id = inserted.station_id
+      left join person on true
+  `.execute(db);
+  const row = result.rows[0]!;
+  if (row.id) {
+    return {
+      kind: 'booked',
+      booking: {
+        id: row.id,
+        dayId: values.dayId,
+        clientId: values.clientId,
+        stationId: row.stationId,
+        stationName: row.stationName,
+        personId: values.personId,
+        personName: row.personName,
+        personEmail: row.personEmail,
+        startsAt: values.startsAt,
+        status: 'active',
+        passToken: values.passToken,
+        calendarUid: values.calendarUid,
+        sequence: row.sequence,
+        preferredName: values.preferredName,
+        glasses: values.glasses,
+        accessNeeds: values.accessNeeds,
+        flashSensitive: values.flashSensitive,
+        checkedIn: false,
+      },
+    };
+  }
+  if (!row.dayHolds) return { kind: 'day_changed' };
+  if (!row.personFound) return { kind: 'no_person' };
+  if (row.existingId && row.existingStartsAt) {
+    return { kind: 'has_booking', bookingId: row.existingId, startsAt: row.existingStartsAt };
+  }
+  return row.candidates > 0 ? { kind: 'seat_lost' } : { kind: 'full' };
 }
 
 export async function lockBooking(trx: Transaction<Database>, id: string) {

@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import type { Clock } from '../../adapters/clock';
 import type { Mailer } from '../../adapters/mail/mailer';
 import type { AppConfig } from '../../config';
@@ -7,21 +6,17 @@ import { addJob, type JobHandlers } from '../../jobs/job-queue';
 import { AppError, notFound } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
 import type { Viewer } from '../../lib/viewer';
-import type {
-  Booking,
-  CreateBookingInput,
-  SitterDay,
-  SittingNeedsInput,
-} from '../../schemas/booking';
+import type { Booking, SitterDay, SittingNeedsInput } from '../../schemas/booking';
 import type { SlotList } from '../../schemas/days';
 import * as daysRepo from '../days/days.repository';
 import { hoursOf, staffMaySee } from '../days/days.service';
 import { generateSlots } from '../days/slots';
 import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
 import * as repo from './booking.repository';
+import { createBookingClaims } from './booking-claim';
 import { createBookingMailSender, sittingCalendar } from './booking.confirmation';
 import { checkSlot, recheckUnderLock, slotBegun } from './booking-checks';
-import { newPassToken, passPng } from './pass';
+import { passPng } from './pass';
 
 const alreadyCheckedIn = () =>
   new AppError(
@@ -57,10 +52,8 @@ export function createBookingService(deps: {
 
   /** A day as a sitter may see it: confirmed and inviting them; anything else is 404. */
   async function sitterDay(viewer: Viewer, dayId: string): Promise<daysRepo.DayRecord> {
-    const day = await daysRepo.findDay(db, dayId);
-    if (!day || day.status !== 'confirmed' || !(await isInvited(day, viewer.id))) {
-      throw notFound('That shoot day');
-    }
+    const day = await daysRepo.findDayForPerson(db, dayId, viewer.id);
+    if (!day || day.status !== 'confirmed' || !day.invited) throw notFound('That shoot day');
     return day;
   }
 
@@ -183,89 +176,8 @@ export function createBookingService(deps: {
       };
     },
 
-    async create(
-      viewer: Viewer,
-      input: CreateBookingInput,
-    ): Promise<{ booking: Booking; created: boolean }> {
-      const personId = viewer.role === 'sitter' ? viewer.id : input.personId;
-      if (!personId) {
-        throw new AppError('invalid_input', 400, 'Say who the booking is for.', {
-          fieldErrors: { personId: ['Pick the person to book.'] },
-        });
-      }
-      const day = await dayFor(viewer, input.dayId);
-      if (day.status !== 'confirmed')
-        throw conflict('day_not_confirmed', 'This day is not confirmed yet.');
-      if (viewer.role !== 'sitter' && !(await isInvited(day, personId))) {
-        throw notFound('That person');
-      }
-      const now = clock.now();
-      if (viewer.role === 'sitter' && (now < day.bookingOpensAt || now >= day.bookingClosesAt)) {
-        throw conflict('booking_closed', 'Booking for this day is not open right now.');
-      }
-      const startsAt = new Date(input.startsAt);
-      checkSlot(hoursOf(day), startsAt);
-      if (startsAt <= now) throw slotBegun(day, startsAt);
-      if (input.stationId && viewer.role === 'sitter') {
-        throw new AppError('invalid_input', 400, 'The studio places sitters at stations.', {
-          fieldErrors: { stationId: ['Leave the station to the studio.'] },
-        });
-      }
-      if (input.stationId && !day.stations.some((station) => station.id === input.stationId)) {
-        throw new AppError('invalid_input', 400, 'That station is not one of this day’s.', {
-          fieldErrors: { stationId: ['Pick one of the day’s stations.'] },
-        });
-      }
-
-      const outcome = await db.transaction().execute(async (trx) => {
-        await recheckUnderLock(trx, day.id, startsAt);
-        const person = await repo.lockPersonForDay(trx, personId, day.id);
-        if (!person?.active || person.clientId !== day.clientId) throw notFound('That person');
-        if (person.bookingId && person.startsAt) {
-          // A second click on the same slot is the same booking, not an error.
-          if (person.startsAt.getTime() === startsAt.getTime()) {
-            return { id: person.bookingId, created: false };
-          }
-          throw conflict('already_booked', 'You already have a slot that day: move it instead.');
-        }
-        // Each try sees the seats committed so far; a lost race on one seat tries another.
-        for (let attempt = 0; attempt < day.stations.length; attempt += 1) {
-          const claim = await repo.claimSeat(trx, {
-            dayId: day.id,
-            personId,
-            startsAt,
-            passToken: newPassToken(),
-            calendarUid: `${randomUUID()}@likeness`,
-            preferredName: input.preferredName,
-            glasses: input.glasses,
-            accessNeeds: input.accessNeeds,
-            flashSensitive: input.flashSensitive,
-            bookedByUserId: viewer.kind === 'staff' ? viewer.id : null,
-            stationId: input.stationId ?? null,
-          });
-          if (claim.bookingId) {
-            await addJob(trx, bookingMailJob, { bookingId: claim.bookingId, kind: 'booked' });
-            return { id: claim.bookingId, created: true };
-          }
-          if (claim.candidates === 0) break;
-          // The lock read above saw the snapshot from before it waited: a double click's first
-          // booking may have landed meanwhile, so look again before trying another seat.
-          const landed = await repo.activeBookingOf(trx, day.id, personId);
-          if (landed?.startsAt.getTime() === startsAt.getTime()) {
-            return { id: landed.id, created: false };
-          }
-          if (landed) {
-            throw conflict('already_booked', 'You already have a slot that day: move it instead.');
-          }
-        }
-        throw input.stationId
-          ? conflict('station_taken', 'That station is taken at that time: pick another.')
-          : conflict('slot_taken', 'That slot has just been taken. Please pick another.');
-      });
-      const booking = await repo.findBooking(db, outcome.id);
-      if (!booking) throw notFound('That booking');
-      return { booking: toDto(booking, day, viewer), created: outcome.created };
-    },
+    /** A seat claimed for a sitter (booking-claim.ts: the hot path of a booking burst). */
+    create: createBookingClaims({ db, clock, mailTask: bookingMailJob, toDto }),
 
     async move(viewer: Viewer, id: string, startsAtText: string): Promise<Booking> {
       const { day } = await visibleBooking(viewer, id);

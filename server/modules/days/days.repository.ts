@@ -3,6 +3,7 @@ import type { Db } from '../../db/database';
 import type { Database } from '../../db/types';
 import type { CreateDayInput } from '../../schemas/days';
 import { staffedBy } from '../../db/day-scope';
+import { reusableQuery } from '../../db/reusable-query';
 
 type Executor = Db | Transaction<Database>;
 
@@ -93,6 +94,50 @@ export async function findDay(db: Executor, id: string): Promise<DayRecord | und
   const [day] = await listDays(db, { dayIds: [id] });
   return day;
 }
+
+/**
+ * invitedPeopleQuery's rule for one person, correlated to the shoot_days row of the query it
+ * sits in, so a sitter's day and their invitation come back in one round trip. The two must
+ * agree; tests/server/invited-rule.test.ts holds them side by side for every way of inviting.
+ */
+export function personIsInvited(personId: string) {
+  return sql<boolean>`exists (
+    select 1 from people
+    where people.id = ${personId}::uuid
+      and people.client_id = shoot_days.client_id
+      and people.active
+      and case shoot_days.invite_by
+        when 'office' then people.office_id = shoot_days.office_id
+        when 'department' then shoot_days.invite_departments ? people.department
+        else exists (
+          select 1 from day_invitees
+          where day_invitees.day_id = shoot_days.id and day_invitees.person_id = people.id)
+      end)`;
+}
+
+/**
+ * A day with whether this person is invited to it, and the version of its row (PostgreSQL's
+ * xmin, new with every update): what a booking reads first, and checks again as it books.
+ */
+export async function findDayForPerson(
+  db: Executor,
+  id: string,
+  personId: string,
+): Promise<(DayRecord & { invited: boolean; version: string }) | undefined> {
+  const [day] = await dayForPersonQuery(db, id, personId);
+  return day;
+}
+
+const dayForPersonQuery = reusableQuery(
+  (db: Db, id: string, personId: string) =>
+    dayQuery(db)
+      .select([
+        personIsInvited(personId).as('invited'),
+        sql<string>`shoot_days.xmin::text`.as('version'),
+      ])
+      .where('shootDays.id', '=', id),
+  2,
+);
 
 /** Locks the day row: used when a change must not race with another change to the day. */
 export async function lockDay(trx: Transaction<Database>, id: string): Promise<void> {
