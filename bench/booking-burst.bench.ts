@@ -36,6 +36,7 @@ const concurrency = Number(process.env.BOOKING_BENCH_CONCURRENCY ?? 32);
 const poolSize = Number(process.env.BOOKING_BENCH_POOL ?? DEFAULT_POOL_SIZE);
 const pgbenchSeconds = Number(process.env.BOOKING_BENCH_PGBENCH_SECONDS ?? 10);
 const date = '2030-03-14';
+const nextDate = '2030-03-15';
 const hours = { opensAt: '09:00', closesAt: '17:00', slotMinutes: 5 };
 
 /** A small deterministic generator (mulberry32), so every run asks for the same slots. */
@@ -86,6 +87,21 @@ async function prepareDay(url: string) {
         [day.id, index + 1, `Station ${String.fromCharCode(65 + index)}`, photographer.id],
       );
     }
+    // A second day of the same office, one station, for the untimed warm-up's claims.
+    const warmDay = await one(
+      `insert into shoot_days (client_id, office_id, day_date, time_zone, address, room, opens_at,
+         closes_at, slot_minutes, booking_opens_at, booking_closes_at, changes_close_at, invite_by, status)
+       values ($1, $2, $3::date + 1, 'Europe/London', '4 Quillfield Row, Leeds', 'Studio', $4, $5, $6,
+         now() - interval '1 day', $3::date, $3::date, 'office', 'confirmed') returning id`,
+      [company.id, office.id, date, hours.opensAt, hours.closesAt, hours.slotMinutes],
+    );
+    const warmPhotographer = await one(
+      `insert into users (email, display_name, role) values ('warm-up@northlight.example', 'Warm-up', 'photographer') returning id`,
+    );
+    await client.query(
+      `insert into stations (day_id, position, name, photographer_id) values ($1, 1, 'Station A', $2)`,
+      [warmDay.id, warmPhotographer.id],
+    );
     // Invented sitters and a session each (what redeeming an invitation link would leave).
     const tokens = Array.from({ length: sitters }, () => newOpaqueToken());
     await client.query(
@@ -98,7 +114,7 @@ async function prepareDay(url: string) {
        from people_rows`,
       [company.id, office.id, sitters, tokens.map(hashToken)],
     );
-    return { dayId: day.id, tokens };
+    return { dayId: day.id, warmDayId: warmDay.id, tokens };
   } finally {
     await client.end();
   }
@@ -113,20 +129,12 @@ async function prepareDay(url: string) {
 async function startBareHandler(pool: pg.Pool): Promise<{ url: string; server: Server }> {
   await pool.query(
     `create table bare_claims (
-       person_id uuid primary key, day_id uuid not null, starts_at timestamptz not null)`,
+       person_id uuid not null, day_id uuid not null, starts_at timestamptz not null,
+       primary key (person_id, day_id))`,
   );
   const app = express();
   app.use(express.json());
   app.use(cookieParser());
-  // The warm-up's read: the session lookup and a one-row answer.
-  app.get('/claims', async (req, res) => {
-    const token = String((req.cookies as Record<string, unknown>).likeness_session ?? '');
-    const session = await pool.query<{ personId: string }>(
-      'select person_id as "personId" from sessions where token_hash = $1 and expires_at > now()',
-      [hashToken(token)],
-    );
-    res.status(session.rows[0] ? 200 : 401).json(session.rows[0] ?? {});
-  });
   app.post('/claims', async (req, res) => {
     const token = String((req.cookies as Record<string, unknown>).likeness_session ?? '');
     const session = await pool.query<{ personId: string }>(
@@ -232,18 +240,25 @@ function runPgbench(url: string): number {
  */
 const claimLoop = `
 const { parentPort, workerData } = require('node:worker_threads');
-const { url, warmUrl, dayId, tokens, wanted, concurrency } = workerData;
+const { url, dayId, warmDayId, tokens, wanted, warmWanted, concurrency } = workerData;
 const latencies = [];
 const outcomes = {};
 let next = 0;
 // Untimed: two authenticated reads per request in flight, so the server's pool has opened its
 // connections and its code is compiled, as in a process that has been serving for a while.
+// Untimed: one claim per request in flight, twice over, on another day (warmWanted holds its
+// slots), so the server's pool has opened its connections and the claim's code is compiled, as
+// in a process that has been serving for a while.
+let warmed = 0;
 async function warmUp() {
-  for (let index = 0; index < 2 * concurrency; index += 1) {
-    const response = await fetch(warmUrl, {
-      headers: { Cookie: 'likeness_session=' + tokens[index % tokens.length] },
+  while (warmed < 2 * concurrency) {
+    const index = warmed++;
+    const response = await fetch(url, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', Cookie: 'likeness_session=' + tokens[index] },
+      body: JSON.stringify({ dayId: warmDayId, startsAt: warmWanted[index] }),
     });
-    if (response.status !== 200) throw new Error('warm-up answered ' + response.status);
+    if (response.status !== 201) throw new Error('warm-up answered ' + response.status);
     await response.arrayBuffer();
   }
 }
@@ -274,8 +289,9 @@ Promise.all(Array.from({ length: concurrency }, warmUp))
 
 function fireClaims(input: {
   url: string;
-  warmUrl: string;
   dayId: string;
+  warmDayId: string;
+  warmWanted: string[];
   tokens: string[];
   wanted: string[];
   concurrency: number;
@@ -307,7 +323,7 @@ const benchmark: Benchmark = {
     let server: Server | undefined;
     try {
       await migrateToLatest(url);
-      const { dayId, tokens } = await prepareDay(url);
+      const { dayId, warmDayId, tokens } = await prepareDay(url);
       const config = toAppConfig(
         parseEnvironment({ NODE_ENV: 'production', PUBLIC_URL: 'http://127.0.0.1' }),
       );
@@ -328,13 +344,23 @@ const benchmark: Benchmark = {
       const slots = generateSlots({ date, timeZone: 'Europe/London', breaks: [], ...hours });
       const random = repeatableRandom(2030);
       const wanted = tokens.map(() => slots[Math.floor(random() * slots.length)]!.startsAt);
+      // The warm-up's claims: each its own slot of the next day (one station), all granted.
+      const warmWanted = generateSlots({
+        date: nextDate,
+        timeZone: 'Europe/London',
+        breaks: [],
+        ...hours,
+      })
+        .slice(0, 2 * concurrency)
+        .map((slot) => slot.startsAt);
 
       // The bare handler first, on the same sessions and the same slots.
       const bare = await startBareHandler(pool);
       const bareRun = await fireClaims({
         url: bare.url,
-        warmUrl: bare.url,
         dayId,
+        warmDayId,
+        warmWanted,
         tokens,
         wanted,
         concurrency,
@@ -345,9 +371,9 @@ const benchmark: Benchmark = {
       await pool.query('select pg_stat_statements_reset()');
       const { latencies, outcomes, seconds } = await fireClaims({
         url: `${base}/api/bookings`,
-        // The sitter's own page of the day: the session and the day, read as a claim reads them.
-        warmUrl: `${base}/api/days/${dayId}/slots`,
         dayId,
+        warmDayId,
+        warmWanted,
         tokens,
         wanted,
         concurrency,
