@@ -23,10 +23,11 @@ import type { Benchmark } from './run';
 /**
  * booking-burst: 2,000 invented sitters, each signed in, claim a slot over HTTP on loopback
  * against one day with 4 stations (96 five-minute slots, 384 seats), CONCURRENCY requests in
- * flight. pgbench then runs a one-row insert transaction with the same unique-seat rule at the
- * same concurrency. Claims are real: session lookup, day and invitation checks, a transaction
- * with a locking read and an INSERT ... ON CONFLICT DO NOTHING, and the confirmation work
- * (pass PNG, .ics) into a mailer that discards the message.
+ * flight. The same claims go first to a bare Express + pg handler in this process (the session
+ * by its hash, one INSERT ... ON CONFLICT DO NOTHING), then to the app; pgbench then runs a
+ * one-row insert with the same unique-seat rule at the same concurrency. The app's claims are
+ * real: the session, the day and invitation checks, the claim statement with its locks and the
+ * confirmation job queued (the worker that would send it does not run here).
  */
 const sitters = Number(process.env.BOOKING_BENCH_SITTERS ?? 2000);
 const stations = 4;
