@@ -127,7 +127,9 @@ async function main() {
     }
   }
 
-  const db = createDatabase(databaseUrl);
+  const db = createDatabase(databaseUrl, {
+    prepareStatements: raw.DATABASE_PREPARED_STATEMENTS,
+  });
   shutdown.add(() => db.destroy());
 
   const demoLoaded = raw.LOAD_DEMO && (await loadDemoScenario(db));

@@ -80,6 +80,8 @@ export const configSchema = z.object({
   HEALTH_PORT: z.coerce.number().int().min(0).max(65535).optional(),
   /** Where tus keeps files still arriving; every web process of one site must share it. */
   UPLOAD_SPOOL_DIR: z.string().min(1).optional(),
+  /** Statements run often are prepared per connection; off behind a pooler that cannot. */
+  DATABASE_PREPARED_STATEMENTS: booleanFromEnv.default(true),
   /** `npm run serve` applies pending migrations first (under PostgreSQL's advisory lock). */
   MIGRATE_ON_START: booleanFromEnv.default(true),
   MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),

@@ -53,7 +53,9 @@ async function main() {
     const applied = await migrateToLatest(databaseUrl, migrationFolderFor(import.meta.url));
     if (applied.length > 0) say(`Applied migrations: ${applied.join(', ')}`);
   }
-  const db = createDatabase(databaseUrl);
+  const db = createDatabase(databaseUrl, {
+    prepareStatements: raw.DATABASE_PREPARED_STATEMENTS,
+  });
   shutdown.add(() => db.destroy());
   const mailer = createSmtpMailer({ smtpUrl: raw.SMTP_URL!, ...mailIdentity(config) });
   shutdown.add(() => mailer.close());

@@ -15,7 +15,11 @@ pg.types.setTypeParser(TIMESTAMP_WITHOUT_ZONE_OID, (value) => value);
 
 export function createDatabase(
   connectionString: string,
-  options: { maxConnections?: number } = {},
+  options: {
+    maxConnections?: number;
+    /** Off behind a connection pooler that cannot keep prepared statements (README). */
+    prepareStatements?: boolean;
+  } = {},
 ): Db {
   const pool = new pg.Pool({ connectionString, max: options.maxConnections ?? DEFAULT_POOL_SIZE });
   // An idle connection the server drops (restart, test database removed) must not crash the
@@ -24,7 +28,9 @@ export function createDatabase(
     process.emitWarning(`PostgreSQL connection lost: ${error.message}`);
   });
   return new Kysely<Database>({
-    dialect: new PostgresDialect({ pool: preparingPool(pool) }),
+    dialect: new PostgresDialect({
+      pool: options.prepareStatements === false ? pool : preparingPool(pool),
+    }),
     plugins: [new CamelCasePlugin()],
   });
 }

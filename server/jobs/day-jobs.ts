@@ -96,6 +96,7 @@ export async function runDayJobsOnce(deps: JobDeps, extraTasks: JobHandlers = {}
 export async function startDayJobsWorker(
   deps: JobDeps,
   extraTasks: JobHandlers = {},
+  options: { preparedStatements?: boolean } = {},
 ): Promise<{ stop(): Promise<void> }> {
   const runner = await run({
     connectionString: deps.databaseUrl,
@@ -113,6 +114,8 @@ export async function startDayJobsWorker(
     // New jobs arrive by LISTEN/NOTIFY at once; polling only finds retries that came due.
     pollInterval: 2000,
     noHandleSignals: true,
+    // graphile-worker prepares its statements too; the same setting turns that off (README).
+    noPreparedStatements: options.preparedStatements === false,
     logger: workerLogger(deps.logger),
   });
   return {

@@ -67,6 +67,7 @@ export async function startRoles(deps: RoleDeps): Promise<void> {
         ...portraits.handlers,
         ...createDeliveryService({ db, clock: systemClock, storage }).handlers(),
       },
+      { preparedStatements: raw.DATABASE_PREPARED_STATEMENTS },
     );
     addCleanup(() => portraits.close());
     // graphile-worker's stop lets running jobs finish before it resolves.

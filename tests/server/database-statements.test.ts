@@ -52,6 +52,24 @@ describe('statements prepared on the connection', () => {
     expect(await all()).toEqual([{ id: 1, label: 'lamp', weightKg: null }]);
   });
 
+  it('prepares nothing when told not to (behind a pooler that cannot keep them)', async () => {
+    const plain = createDatabase(database.url, {
+      maxConnections: 1,
+      prepareStatements: false,
+    }) as unknown as Db;
+    try {
+      for (let run = 0; run < 4; run += 1) {
+        await plain.selectFrom('gadgets').select('id').where('id', '=', run).execute();
+      }
+      const held = await sql<{
+        n: string;
+      }>`select count(*) as n from pg_prepared_statements`.execute(plain);
+      expect(held.rows[0]?.n).toBe('0');
+    } finally {
+      await plain.destroy();
+    }
+  });
+
   it('leaves transaction control and DDL alone', async () => {
     for (let run = 0; run < 4; run += 1) {
       await db.transaction().execute(async (trx) => {
