@@ -1,5 +1,5 @@
 import { Logger as WorkerLogger, type LogLevel, type Task, type TaskList } from 'graphile-worker';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely, type RawBuilder, type Transaction } from 'kysely';
 import type { Database } from '../db/types';
 import type { Logger } from '../lib/logger';
 
@@ -51,16 +51,41 @@ export async function addJobs(
     maxAttempts: job.maxAttempts ?? DEFAULT_MAX_ATTEMPTS,
     runAt: job.runAt?.toISOString() ?? null,
   }));
+  const field = (name: string) => sql`(job ->> ${sql.lit(name)})`;
   await sql`
-    select (graphile_worker.add_job(
-      ${taskName}::text,
-      job -> 'payload',
-      run_at => (job ->> 'runAt')::timestamptz,
-      max_attempts => (job ->> 'maxAttempts')::int,
-      job_key => job ->> 'jobKey',
-      job_key_mode => job ->> 'jobKeyMode'
-    )).id
+    select (${addJobExpression(taskName, {
+      payload: sql`job -> 'payload'`,
+      runAt: sql`${field('runAt')}::timestamptz`,
+      maxAttempts: sql`${field('maxAttempts')}::int`,
+      jobKey: field('jobKey'),
+      jobKeyMode: field('jobKeyMode'),
+    })}).id
     from json_array_elements(${JSON.stringify(specs)}::json) as job`.execute(db);
+}
+
+/**
+ * graphile_worker.add_job as an SQL expression, for a statement that queues the job its own
+ * change causes in the same round trip (a booking's confirmation); addJobs builds on it too.
+ * Each term is an SQL expression; a term left out takes the same default as addJob.
+ */
+export function addJobExpression(
+  taskName: string,
+  terms: {
+    payload: RawBuilder<unknown>;
+    runAt?: RawBuilder<unknown>;
+    maxAttempts?: RawBuilder<unknown>;
+    jobKey?: RawBuilder<unknown>;
+    jobKeyMode?: RawBuilder<unknown>;
+  },
+) {
+  return sql<{ id: string }>`graphile_worker.add_job(
+    ${taskName}::text,
+    ${terms.payload},
+    run_at => ${terms.runAt ?? sql`null::timestamptz`},
+    max_attempts => ${terms.maxAttempts ?? sql`${DEFAULT_MAX_ATTEMPTS}::int`},
+    job_key => ${terms.jobKey ?? sql`null::text`},
+    job_key_mode => ${terms.jobKeyMode ?? sql`'replace'`}
+  )`;
 }
 
 /** Turns our handlers into graphile-worker tasks, telling each attempt whether it is the last. */

@@ -1,6 +1,9 @@
 import ICAL from 'ical.js';
+import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CaughtMail } from '../../server/adapters/mail/mail-catcher';
+import { DEFAULT_MAX_ATTEMPTS } from '../../server/jobs/job-queue';
+import { bookingMailJob } from '../../server/modules/booking/booking.service';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
 import { insertDay } from '../factories/days';
 import { decodePng } from '../reference/decode-png';
@@ -109,6 +112,35 @@ describe('the confirmation mail', () => {
     expect(cancelled.vevent.getFirstPropertyValue('uid')).toBe(row.calendarUid);
     expect(cancelled.vevent.getFirstPropertyValue('sequence')).toBe(2);
     await sitter.get(`/api/bookings/${booked.body.id}/pass.png`).expect(404);
+  });
+});
+
+describe('the confirmation job', () => {
+  it('is queued with the booking, with the same attempt limit as every other mail job', async () => {
+    const client = await insertClient(t.db);
+    const office = await insertOffice(t.db, client.id, 'Leeds', 'Europe/London');
+    const photographer = await insertStaff(t.db, { role: 'photographer' });
+    const day = await insertDay(t.db, {
+      clientId: client.id,
+      officeId: office.id,
+      photographerIds: [photographer.id],
+    });
+    const person = await insertPerson(t.db, client.id, { officeId: office.id });
+    const sitter = await signedInSitter(t, person.email);
+    const booked = await sitter
+      .post('/api/bookings')
+      .send({ dayId: day.id, startsAt: '2030-03-14T09:30:00.000Z' })
+      .expect(201);
+    // The public view leaves the payload out; the job table behind it has it.
+    const jobs = await sql<{ payload: unknown; maxAttempts: number }>`
+      select jobs.payload, jobs.max_attempts
+      from graphile_worker._private_jobs jobs
+      join graphile_worker._private_tasks tasks on tasks.id = jobs.task_id
+      where tasks.identifier = ${bookingMailJob}
+        and jobs.payload ->> 'bookingId' = ${booked.body.id}`.execute(t.db);
+    expect(jobs.rows).toEqual([
+      { payload: { bookingId: booked.body.id, kind: 'booked' }, maxAttempts: DEFAULT_MAX_ATTEMPTS },
+    ]);
   });
 });
 

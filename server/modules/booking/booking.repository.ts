@@ -1,6 +1,7 @@
 import { sql, type Transaction } from 'kysely';
 import type { Db } from '../../db/database';
 import type { Database } from '../../db/types';
+import { addJobExpression } from '../../jobs/job-queue';
 import { personIsInvited } from '../days/days.repository';
 
 type Executor = Db | Transaction<Database>;
@@ -96,8 +97,8 @@ export type ClaimOutcome =
  * - the day row under a shared lock (a day edit locks it for update, so it cannot change the
  *   day between the request's checks and this insert), still confirmed and still the version
  *   the request checked (xmin: any update of the row makes a new one);
- * - the person under a row lock, active, on the day's client and invited to the day (so one
- *   person's claims take turns), and their active booking that day if they have one;
+ * - the person under a row lock, if the day invites them (so one person's claims take turns),
+ *   and their active booking that day if they have one;
  * - a free station of the slot, picked at random so that people claiming the same slot at
  *   once rarely aim at the same seat (or the one staff asked for);
  * - the insert, with the unique indexes (one booking per seat, one per sitter and day)
@@ -149,8 +150,6 @@ export async function claimBooking(
         coalesce(people.preferred_name, people.given_name) || ' ' || people.family_name as name
       from people
       where people.id = ${values.personId}::uuid
-        and people.active
-        and people.client_id = ${values.clientId}::uuid
         and exists (
           select 1 from shoot_days
           where shoot_days.id = ${values.dayId}::uuid and ${personIsInvited(values.personId)})
@@ -184,8 +183,9 @@ export async function claimBooking(
       on conflict do nothing
       returning bookings.id, bookings.station_id, bookings.sequence
     ), queued as (
-      select graphile_worker.add_job(${values.mailTask}::text,
-        json_build_object('bookingId', inserted.id, 'kind', 'booked')) as job
+      select ${addJobExpression(values.mailTask, {
+        payload: sql`json_build_object('bookingId', inserted.id, 'kind', 'booked')`,
+      })} as job
       from inserted
     )
     select
@@ -194,6 +194,7 @@ export async function claimBooking(
       (select existing.id from existing) as "existingId",
       (select existing.starts_at from existing) as "existingStartsAt",
       (select count(*)::int from chosen) as candidates,
+      -- Read so that the job is added (a CTE nothing reads may not run).
       (select count(*)::int from queued) as queued,
       inserted.id, inserted.station_id as "stationId", inserted.sequence,
       chosen.name as "stationName", person.name as "personName", person.email as "personEmail"
