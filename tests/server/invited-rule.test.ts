@@ -4,10 +4,10 @@ import { insertClient, insertOffice, insertPerson, insertStaff } from '../factor
 import { insertDay } from '../factories/days';
 import { createTestDatabase, type TestDatabase } from '../setup/test-database';
 
-// Who is invited to a day is written twice: as the list of a day's invitees (invitedPeopleQuery,
-// for invitations, progress, invoices, delivery) and as one person's yes or no correlated to
-// the day row (personIsInvited, for a sitter's requests and claims). They must agree, for every
-// way of inviting and every kind of person.
+// Who a day invites is one rule (days.repository's invites) read two ways: over the day's
+// values, for the list of its invitees (invitations, progress, invoices, delivery), and over the
+// day's own row, for one person's yes or no (a sitter's requests and claims). The two readings
+// must agree, for every way of inviting and every kind of person.
 
 let database: TestDatabase;
 

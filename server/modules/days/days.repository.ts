@@ -1,4 +1,4 @@
-import { sql, type Transaction } from 'kysely';
+import { sql, type RawBuilder, type Transaction } from 'kysely';
 import type { Db } from '../../db/database';
 import type { Database } from '../../db/types';
 import type { CreateDayInput } from '../../schemas/days';
@@ -95,24 +95,52 @@ export async function findDay(db: Executor, id: string): Promise<DayRecord | und
   return day;
 }
 
+/** The parts of a day its invitation rule reads: its columns in a query, or values. */
+type InviteTerms = Record<
+  'id' | 'clientId' | 'officeId' | 'inviteBy' | 'inviteDepartments',
+  RawBuilder<unknown>
+>;
+
+const dayRowTerms: InviteTerms = {
+  id: sql`shoot_days.id`,
+  clientId: sql`shoot_days.client_id`,
+  officeId: sql`shoot_days.office_id`,
+  inviteBy: sql`shoot_days.invite_by`,
+  inviteDepartments: sql`shoot_days.invite_departments`,
+};
+
+const dayValueTerms = (
+  day: Pick<DayRecord, 'id' | 'clientId' | 'officeId' | 'inviteBy' | 'inviteDepartments'>,
+): InviteTerms => ({
+  id: sql`${day.id}::uuid`,
+  clientId: sql`${day.clientId}::uuid`,
+  officeId: sql`${day.officeId}::uuid`,
+  inviteBy: sql`${day.inviteBy}::text`,
+  inviteDepartments: sql`${JSON.stringify(day.inviteDepartments)}::jsonb`,
+});
+
 /**
- * invitedPeopleQuery's rule for one person, correlated to the shoot_days row of the query it
- * sits in, so a sitter's day and their invitation come back in one round trip. The two must
- * agree; tests/server/invited-rule.test.ts holds them side by side for every way of inviting.
+ * Who a day invites, as one condition on a `people` row: the client's active people of the
+ * day's office, of its named departments, or on its hand-picked list. Read live, so roster
+ * changes count. The one rule both for the list of a day's invitees (invitedPeopleQuery) and
+ * for one person's yes or no next to the day's own row (personIsInvited).
  */
+function invites(day: InviteTerms) {
+  return sql<boolean>`(people.client_id = ${day.clientId}
+    and people.active
+    and case ${day.inviteBy}
+      when 'office' then people.office_id = ${day.officeId}
+      when 'department' then ${day.inviteDepartments} ? people.department
+      else exists (
+        select 1 from day_invitees
+        where day_invitees.day_id = ${day.id} and day_invitees.person_id = people.id)
+    end)`;
+}
+
+/** Whether the day of the enclosing query's shoot_days row invites this person. */
 export function personIsInvited(personId: string) {
   return sql<boolean>`exists (
-    select 1 from people
-    where people.id = ${personId}::uuid
-      and people.client_id = shoot_days.client_id
-      and people.active
-      and case shoot_days.invite_by
-        when 'office' then people.office_id = shoot_days.office_id
-        when 'department' then shoot_days.invite_departments ? people.department
-        else exists (
-          select 1 from day_invitees
-          where day_invitees.day_id = shoot_days.id and day_invitees.person_id = people.id)
-      end)`;
+    select 1 from people where people.id = ${personId}::uuid and ${invites(dayRowTerms)})`;
 }
 
 /**
@@ -274,15 +302,12 @@ export interface InvitedPerson {
   officeName: string | null;
 }
 
-/**
- * The people a day invites, from its rule: the office's active people, the named departments
- * of the client, or a hand-picked list. Read live, so roster changes count.
- */
+/** The people a day invites (see invites), with what invitations and the day's lists show. */
 export function invitedPeopleQuery(
   db: Executor,
   day: Pick<DayRecord, 'id' | 'clientId' | 'officeId' | 'inviteBy' | 'inviteDepartments'>,
 ) {
-  let query = db
+  return db
     .selectFrom('people')
     .leftJoin('offices', 'offices.id', 'people.officeId')
     .select([
@@ -294,27 +319,7 @@ export function invitedPeopleQuery(
       'people.department',
       'offices.name as officeName',
     ])
-    .where('people.clientId', '=', day.clientId)
-    .where('people.active', '=', true);
-  if (day.inviteBy === 'office') query = query.where('people.officeId', '=', day.officeId);
-  else if (day.inviteBy === 'department') {
-    query = query.where(
-      'people.department',
-      'in',
-      day.inviteDepartments.length ? day.inviteDepartments : ['\u0000'],
-    );
-  } else {
-    query = query.where((eb) =>
-      eb.exists(
-        eb
-          .selectFrom('dayInvitees')
-          .select('dayInvitees.personId')
-          .where('dayInvitees.dayId', '=', day.id)
-          .whereRef('dayInvitees.personId', '=', 'people.id'),
-      ),
-    );
-  }
-  return query;
+    .where(invites(dayValueTerms(day)));
 }
 
 export async function bookedCounts(db: Executor, dayIds: string[]): Promise<Map<string, number>> {
