@@ -5,6 +5,9 @@ import * as daysRepo from '../days/days.repository';
 import { isSlotStart, type DayHours } from '../days/slots';
 import { wallClockAt } from '../days/zoned-time';
 
+/** A refusal that names the clash (409), so the page can say what to do instead. */
+export const conflict = (code: string, message: string) => new AppError(code, 409, message);
+
 export function checkSlot(hours: DayHours, startsAt: Date) {
   if (!isSlotStart(hours, startsAt)) {
     throw new AppError('invalid_input', 400, 'That is not one of the day’s slots.', {

@@ -7,14 +7,12 @@ import type { Booking, CreateBookingInput } from '../../schemas/booking';
 import * as daysRepo from '../days/days.repository';
 import { hoursOf, staffMaySee } from '../days/days.service';
 import * as repo from './booking.repository';
-import { checkSlot, slotBegun } from './booking-checks';
+import { checkSlot, conflict, slotBegun } from './booking-checks';
 import { newPassToken } from './pass';
 import { createRecentDays } from './recent-days';
 
 type BookingDay = daysRepo.DayRecord & { version: string };
 type Claimed = { booking: Booking; created: boolean };
-
-const conflict = (code: string, message: string) => new AppError(code, 409, message);
 
 /**
  * Claiming a seat. A sitter's claim on a day this process has read lately costs two round

@@ -15,7 +15,7 @@ import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
 import * as repo from './booking.repository';
 import { createBookingClaims } from './booking-claim';
 import { createBookingMailSender, sittingCalendar } from './booking.confirmation';
-import { checkSlot, recheckUnderLock, slotBegun } from './booking-checks';
+import { checkSlot, conflict, recheckUnderLock, slotBegun } from './booking-checks';
 import { passPng } from './pass';
 
 const alreadyCheckedIn = () =>
@@ -27,8 +27,6 @@ const alreadyCheckedIn = () =>
 
 export type BookingService = ReturnType<typeof createBookingService>;
 export const bookingMailJob = 'booking-mail';
-
-const conflict = (code: string, message: string) => new AppError(code, 409, message);
 
 const isUniqueViolation = (error: unknown) =>
   typeof error === 'object' && error !== null && (error as { code?: unknown }).code === '23505';
