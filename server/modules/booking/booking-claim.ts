@@ -15,6 +15,26 @@ type BookingDay = daysRepo.DayRecord & { version: string };
 type Claimed = { booking: Booking; created: boolean };
 
 /**
+ * A day as the viewer may book this person on it, read now: a sitter sees only a confirmed day
+ * that invites them, staff a day they may see (and book only people it invites); else 404.
+ */
+export async function readBookingDay(
+  db: Db,
+  viewer: Viewer,
+  dayId: string,
+  personId: string,
+): Promise<BookingDay> {
+  const day = await daysRepo.findDayForPerson(db, dayId, personId);
+  if (viewer.role === 'sitter') {
+    if (!day || day.status !== 'confirmed' || !day.invited) throw notFound('That shoot day');
+  } else {
+    if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
+    if (day.status === 'confirmed' && !day.invited) throw notFound('That person');
+  }
+  return day;
+}
+
+/**
  * Claiming a seat. A sitter's claim on a day this process has read lately costs two round
  * trips (the session, then one statement that checks and books): the remembered day answers
  * the request's own checks, and the statement books only if the day row is still the version
@@ -105,13 +125,7 @@ export function createBookingClaims(deps: {
 
   /** The day as it is now, with the viewer's right to book this person on it. */
   async function freshDay(viewer: Viewer, dayId: string, personId: string): Promise<BookingDay> {
-    const day = await daysRepo.findDayForPerson(db, dayId, personId);
-    if (viewer.role === 'sitter') {
-      if (!day || day.status !== 'confirmed' || !day.invited) throw notFound('That shoot day');
-    } else {
-      if (!day || !staffMaySee(viewer, day)) throw notFound('That shoot day');
-      if (day.status === 'confirmed' && !day.invited) throw notFound('That person');
-    }
+    const day = await readBookingDay(db, viewer, dayId, personId);
     recentDays.remember(day);
     return day;
   }

@@ -13,7 +13,7 @@ import { hoursOf, staffMaySee } from '../days/days.service';
 import { generateSlots } from '../days/slots';
 import { formatOffset, offsetMinutesAt, wallClockAt } from '../days/zoned-time';
 import * as repo from './booking.repository';
-import { createBookingClaims } from './booking-claim';
+import { createBookingClaims, readBookingDay } from './booking-claim';
 import { createBookingMailSender, sittingCalendar } from './booking.confirmation';
 import { checkSlot, conflict, recheckUnderLock, slotBegun } from './booking-checks';
 import { passPng } from './pass';
@@ -49,11 +49,7 @@ export function createBookingService(deps: {
   }
 
   /** A day as a sitter may see it: confirmed and inviting them; anything else is 404. */
-  async function sitterDay(viewer: Viewer, dayId: string): Promise<daysRepo.DayRecord> {
-    const day = await daysRepo.findDayForPerson(db, dayId, viewer.id);
-    if (!day || day.status !== 'confirmed' || !day.invited) throw notFound('That shoot day');
-    return day;
-  }
+  const sitterDay = (viewer: Viewer, dayId: string) => readBookingDay(db, viewer, dayId, viewer.id);
 
   async function dayFor(viewer: Viewer, dayId: string): Promise<daysRepo.DayRecord> {
     if (viewer.role === 'sitter') return sitterDay(viewer, dayId);
