@@ -89,7 +89,11 @@ export function diffRoster(
       // An error row still protects its person from being marked missing.
       if (!claimed.has(match.id)) claimed.set(match.id, item.rowNumber);
       else if (item.row) {
-        item.errors.email = `This person is already on row ${claimed.get(match.id)}.`;
+        // A valid row's errors may be the shared empty record: give it one of its own.
+        item.errors = {
+          ...item.errors,
+          email: `This person is already on row ${claimed.get(match.id)}.`,
+        };
         item.row = null;
       }
     }

@@ -1,4 +1,3 @@
-import { z } from 'zod';
 import type { DecodeWarning } from '../../db/roster-types';
 import {
   rosterRowSchema,
@@ -19,22 +18,60 @@ export interface CheckedRow {
   warnings: Record<string, string>;
 }
 
-/** Puts each cell where the mapping says; extras keep their header as the key. */
-function pick(headers: readonly string[], cells: readonly string[], mapping: ColumnMapping) {
-  const fields: Partial<Record<RosterField, string>> = {};
+/** Shared by the rows that have none; frozen so no row can change another's. */
+const none: Record<string, string> = Object.freeze({}) as Record<string, string>;
+
+/** The extra columns' values of one row; empty ones are dropped (equal to a missing key). */
+function extrasOf(headers: readonly string[], cells: readonly string[], columns: number[]) {
+  if (columns.length === 0) return none;
   const extras: Record<string, string> = {};
-  mapping.forEach((target, index) => {
-    const cell = cells[index] ?? '';
-    if (target === 'ignore') return;
-    if (target === 'extra') {
-      // Empty extras are dropped so "no value" compares equal to a missing key.
-      const value = cell.trim();
-      if (value !== '') extras[headers[index] ?? `Column ${index + 1}`] = value;
-      return;
+  for (const index of columns) {
+    const value = (cells[index] ?? '').trim();
+    if (value !== '') extras[headers[index] ?? `Column ${index + 1}`] = value;
+  }
+  return Object.keys(extras).length > 0 ? extras : none;
+}
+
+type FieldOutcome = string | null | { message: string };
+
+/**
+ * One field of rosterRowSchema (its own zod schema, as the object runs it), remembered per
+ * cell: departments, offices, titles and given names repeat down a staff list, and each
+ * distinct cell is checked once. The result is what the whole-object parse gives for that field
+ * (tests/unit/roster-rows.test.ts holds the two side by side).
+ */
+function fieldChecker(field: RosterField) {
+  const schema = rosterRowSchema.shape[field];
+  const parse = (cell: string | undefined): FieldOutcome => {
+    const result = schema.safeParse(cell);
+    return result.success
+      ? result.data
+      : { message: result.error.issues[0]?.message ?? 'Check this value.' };
+  };
+  // A column of distinct values (e-mails, ids) gains nothing from remembering: past this many
+  // distinct cells the field is parsed every time, as a large map costs more than zod does.
+  let known: Map<string | undefined, FieldOutcome> | null = new Map();
+  return (cell: string | undefined): FieldOutcome => {
+    if (!known) return parse(cell);
+    let outcome = known.get(cell);
+    if (outcome === undefined) {
+      outcome = parse(cell);
+      if (known.size >= 2048) known = null;
+      else known.set(cell, outcome);
     }
-    fields[target] = cell;
+    return outcome;
+  };
+}
+
+/** The column each field reads (the last one mapped to it, as a form would overwrite). */
+function columnsOf(mapping: ColumnMapping) {
+  const fieldColumns = new Map<RosterField, number>();
+  const extraColumns: number[] = [];
+  mapping.forEach((target, index) => {
+    if (target === 'extra') extraColumns.push(index);
+    else if (target !== 'ignore') fieldColumns.set(target, index);
   });
-  return { fields, extras };
+  return { fieldColumns, extraColumns };
 }
 
 /** Decoding's warnings by row index, worded per field or extra column. */
@@ -60,8 +97,9 @@ function warningsByRow(
 }
 
 /**
- * Validates every row with the same zod schema the hand-edit form uses, then flags repeats of
- * an e-mail (case-insensitive) or employee id inside the file: the first occurrence wins.
+ * Validates every row with the same zod schema the hand-edit form uses (field by field, see
+ * fieldChecker), then flags repeats of an e-mail (case-insensitive) or employee id inside the
+ * file: the first occurrence wins.
  */
 export function checkRows(
   headers: readonly string[],
@@ -72,33 +110,52 @@ export function checkRows(
   const seenEmails = new Map<string, number>();
   const seenIds = new Map<string, number>();
   const rowWarnings = warningsByRow(headers, mapping, decodeWarnings);
-  return rows.map((cells, index) => {
+  const { fieldColumns, extraColumns } = columnsOf(mapping);
+  const fields = Object.keys(rosterRowSchema.shape) as RosterField[];
+  const checkers = fields.map((field) => ({
+    field,
+    column: fieldColumns.get(field),
+    check: fieldChecker(field),
+  }));
+  const checked = new Array<CheckedRow>(rows.length);
+  for (let index = 0; index < rows.length; index += 1) {
+    const cells = rows[index] ?? [];
     const rowNumber = index + 2;
-    const warnings = { ...rowWarnings.get(index) };
-    const { fields, extras } = pick(headers, cells, mapping);
-    const result = rosterRowSchema.safeParse(fields);
-    if (!result.success) {
-      const errors: Record<string, string> = {};
-      for (const [field, messages] of Object.entries(z.flattenError(result.error).fieldErrors)) {
-        const first = (messages as string[] | undefined)?.[0];
-        if (first) errors[field] = first;
-      }
+    const warnings = rowWarnings.get(index) ?? none;
+    const extras = extrasOf(headers, cells, extraColumns);
+    const row = {} as Record<RosterField, string | null>;
+    let errors: Record<string, string> | null = null;
+    for (const { field, column, check } of checkers) {
+      const outcome = check(column === undefined ? undefined : (cells[column] ?? ''));
+      if (outcome !== null && typeof outcome === 'object') (errors ??= {})[field] = outcome.message;
+      else row[field] = outcome;
+    }
+    if (errors) {
+      const values: Partial<Record<RosterField, string>> = {};
+      for (const [field, column] of fieldColumns) values[field] = cells[column] ?? '';
       // "Enter a valid e-mail address" reads wrong for a blank cell in a file.
-      if (errors.email && (fields.email ?? '').trim() === '')
+      if (errors.email && (values.email ?? '').trim() === '')
         errors.email = 'The e-mail is missing.';
-      return { rowNumber, values: fields, row: null, extras, errors, warnings };
+      checked[index] = { rowNumber, values, row: null, extras, errors, warnings };
+      continue;
     }
-    const row = result.data;
-    const errors: Record<string, string> = {};
-    const earlierEmail = seenEmails.get(row.email);
-    if (earlierEmail) errors.email = `The same e-mail is on row ${earlierEmail}.`;
-    else seenEmails.set(row.email, rowNumber);
-    if (row.employeeId) {
-      const earlierId = seenIds.get(row.employeeId);
-      if (earlierId) errors.employeeId = `The same employee id is on row ${earlierId}.`;
-      else seenIds.set(row.employeeId, rowNumber);
+    const valid = row as RosterRow;
+    const earlierEmail = seenEmails.get(valid.email);
+    if (earlierEmail) errors = { email: `The same e-mail is on row ${earlierEmail}.` };
+    else seenEmails.set(valid.email, rowNumber);
+    if (valid.employeeId) {
+      const earlierId = seenIds.get(valid.employeeId);
+      if (earlierId) (errors ??= {}).employeeId = `The same employee id is on row ${earlierId}.`;
+      else seenIds.set(valid.employeeId, rowNumber);
     }
-    const valid = Object.keys(errors).length === 0;
-    return { rowNumber, values: { ...row }, row: valid ? row : null, extras, errors, warnings };
-  });
+    checked[index] = {
+      rowNumber,
+      values: errors ? { ...valid } : valid,
+      row: errors ? null : valid,
+      extras,
+      errors: errors ?? none,
+      warnings,
+    };
+  }
+  return checked;
 }
