@@ -29,7 +29,7 @@ export function createDatabase(
   });
   return new Kysely<Database>({
     dialect: new PostgresDialect({
-      pool: options.prepareStatements === false ? pool : preparingPool(pool),
+      pool: preparingPool(pool, { prepare: options.prepareStatements !== false }),
     }),
     plugins: [new CamelCasePlugin()],
   });

@@ -1,5 +1,6 @@
 import type { PostgresPool, PostgresPoolClient } from 'kysely';
 import type pg from 'pg';
+import { CopyPayload, runCopy } from './copy-rows';
 
 /**
  * Kysely's view of a pg pool in which the statements a process runs again and again become
@@ -13,10 +14,11 @@ import type pg from 'pg';
  */
 export function preparingPool(
   pool: pg.Pool,
-  options: { after?: number; maxNames?: number } = {},
+  options: { after?: number; maxNames?: number; prepare?: boolean } = {},
 ): PostgresPool {
   const after = options.after ?? 3;
-  const maxNames = options.maxNames ?? 1000;
+  // Without preparing (behind a pooler), the wrapper still runs COPY (copy-rows.ts).
+  const maxNames = options.prepare === false ? 0 : (options.maxNames ?? 1000);
   const seen = new Map<string, number>();
   const names = new Map<string, string>();
   let counter = 0;
@@ -43,6 +45,8 @@ export function preparingPool(
 
   function wrap(client: pg.PoolClient): PostgresPoolClient {
     async function run(text: string, values: ReadonlyArray<unknown>) {
+      if (values.length === 1 && values[0] instanceof CopyPayload)
+        return runCopy(client, values[0]);
       const name = nameFor(text);
       if (!name) return client.query(text, values as unknown[]);
       try {

@@ -1,26 +1,50 @@
 import { sql, type Selectable } from 'kysely';
+import { copyRows } from '../../db/copy-rows';
 import type { Db } from '../../db/database';
 import type { RosterImportRowsTable } from '../../db/roster-types';
 import type { PreviewPage, PreviewRow, RosterField } from '../../schemas/roster';
 
 /** The rows of a draft's preview: stored once per upload or remap, then paged for the table. */
 
+const storedColumns = [
+  'draft_id',
+  'position',
+  'row_number',
+  'kind',
+  'person_id',
+  'given_name',
+  'family_name',
+  'preferred_name',
+  'email',
+  'employee_id',
+  'department',
+  'job_title',
+  'office',
+  'extras',
+  'detail',
+];
+
+const fieldsInOrder: RosterField[] = [
+  'givenName',
+  'familyName',
+  'preferredName',
+  'email',
+  'employeeId',
+  'department',
+  'jobTitle',
+  'office',
+];
+
 /**
- * Replaces the draft's preview rows. Columns travel as parallel arrays (unnest) in batches:
- * PostgreSQL reads that far faster than one JSON document per row.
+ * Replaces the draft's preview rows, written with COPY (copy-rows.ts): at 50,000 rows that is
+ * half the time of batched unnest inserts, most of which went into building and reading array
+ * literals.
  */
 export async function replacePreviewRows(db: Db, draftId: string, rows: readonly PreviewRow[]) {
   await db.deleteFrom('rosterImportRows').where('draftId', '=', draftId).execute();
-  const text = (batch: readonly PreviewRow[], field: RosterField) =>
-    batch.map((row) => row.values[field] ?? null);
-  for (let start = 0; start < rows.length; start += 5000) {
-    const batch = rows.slice(start, start + 5000);
-    const extras = batch.map((row) =>
-      row.values.extras && Object.keys(row.values.extras).length > 0
-        ? JSON.stringify(row.values.extras)
-        : null,
-    );
-    const detail = batch.map((row) =>
+  const records = rows.map((row) => {
+    const extras = row.values.extras;
+    const detail =
       (row.kind === 'add' || row.kind === 'unchanged') && Object.keys(row.warnings).length === 0
         ? null
         : JSON.stringify({
@@ -28,23 +52,19 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: readonly
             changedFields: row.changedFields,
             errors: row.errors,
             warnings: row.warnings,
-          }),
-    );
-    await sql`
-      insert into roster_import_rows (draft_id, position, row_number, kind, person_id, given_name,
-        family_name, preferred_name, email, employee_id, department, job_title, office, extras, detail)
-      select ${draftId}::uuid, * from unnest(
-        ${batch.map((row) => row.position)}::int[],
-        ${batch.map((row) => row.rowNumber)}::int[],
-        ${batch.map((row) => row.kind)}::text[],
-        ${batch.map((row) => row.personId)}::uuid[],
-        ${text(batch, 'givenName')}::text[], ${text(batch, 'familyName')}::text[],
-        ${text(batch, 'preferredName')}::text[], ${text(batch, 'email')}::text[],
-        ${text(batch, 'employeeId')}::text[], ${text(batch, 'department')}::text[],
-        ${text(batch, 'jobTitle')}::text[], ${text(batch, 'office')}::text[],
-        ${extras}::jsonb[], ${detail}::jsonb[]
-      )`.execute(db);
-  }
+          });
+    return [
+      draftId,
+      row.position,
+      row.rowNumber,
+      row.kind,
+      row.personId,
+      ...fieldsInOrder.map((field) => row.values[field] ?? null),
+      extras && Object.keys(extras).length > 0 ? JSON.stringify(extras) : null,
+      detail,
+    ];
+  });
+  await copyRows(db, 'roster_import_rows', storedColumns, records);
 }
 
 const previewColumns = [

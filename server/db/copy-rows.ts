@@ -1,0 +1,66 @@
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import { sql } from 'kysely';
+import type pg from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
+import type { Db } from './database';
+
+/**
+ * Bulk writes through PostgreSQL's COPY … FROM STDIN (pg-copy-streams), inside whatever
+ * transaction `db` is: for tens of thousands of rows it is several times cheaper than INSERT,
+ * on both sides (no array literals to build and parse, no per-statement work).
+ *
+ * Kysely has no COPY, so the statement travels as a query whose only text is its one parameter,
+ * a CopyPayload; the pool's client wrapper (preparingPool) recognises it and runs the COPY on
+ * the same connection.
+ */
+export class CopyPayload {
+  constructor(
+    readonly statement: string,
+    readonly text: string,
+    readonly rowCount: number,
+  ) {}
+}
+
+export type CopyValue = string | number | boolean | null;
+
+const identifier = /^[a-z_][a-z0-9_]*$/;
+// COPY's text format: backslash, tab, line feed and carriage return are escaped, NULL is \N.
+const needsEscape = /[\\\t\n\r]/;
+const escapes: Record<string, string> = { '\\': '\\\\', '\t': '\\t', '\n': '\\n', '\r': '\\r' };
+
+function field(value: CopyValue): string {
+  if (value === null) return '\\N';
+  if (typeof value !== 'string') return String(value);
+  return needsEscape.test(value) ? value.replace(/[\\\t\n\r]/g, (c) => escapes[c] ?? c) : value;
+}
+
+/** Rows in COPY's text format (PostgreSQL documentation, "COPY", File Formats: Text Format). */
+export function copyText(rows: readonly (readonly CopyValue[])[]): string {
+  const lines = new Array<string>(rows.length);
+  for (let index = 0; index < rows.length; index += 1) {
+    lines[index] = (rows[index] ?? []).map(field).join('\t');
+  }
+  return lines.length > 0 ? `${lines.join('\n')}\n` : '';
+}
+
+/** COPY the rows into the table's columns (snake_case names, as in the database). */
+export async function copyRows(
+  db: Db,
+  table: string,
+  columns: readonly string[],
+  rows: readonly (readonly CopyValue[])[],
+): Promise<void> {
+  if (rows.length === 0) return;
+  for (const name of [table, ...columns]) {
+    if (!identifier.test(name)) throw new Error(`Not a plain SQL name: ${name}`);
+  }
+  const statement = `copy ${table} (${columns.join(', ')}) from stdin`;
+  await sql`${new CopyPayload(statement, copyText(rows), rows.length)}`.execute(db);
+}
+
+/** What the client wrapper does with a CopyPayload: the COPY, answered like a query. */
+export async function runCopy(client: pg.PoolClient, payload: CopyPayload) {
+  await pipeline(Readable.from([payload.text]), client.query(copyFrom(payload.statement)));
+  return { command: 'COPY', rowCount: payload.rowCount, rows: [] };
+}

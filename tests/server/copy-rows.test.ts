@@ -1,0 +1,95 @@
+import { sql, type Kysely } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { copyRows, copyText } from '../../server/db/copy-rows';
+import { createDatabase, type Db } from '../../server/db/database';
+import { createTestDatabase, type TestDatabase } from '../setup/test-database';
+
+// COPY … FROM STDIN through the pool's client wrapper. PostgreSQL itself is the outside check:
+// what it reads back from our text format must be the values we meant ("COPY", File Formats,
+// Text Format, in the PostgreSQL documentation: backslash escapes, \N for NULL).
+
+let database: TestDatabase;
+type Tables = { notes: { id: number; body: string | null; tally: number | null } };
+
+const awkward = [
+  'tab\there',
+  'line\nbreak',
+  'carriage\rreturn',
+  'back\\slash',
+  '\\N',
+  'ends with backslash\\',
+  'Æsa Ørnbjerg — “quoted”',
+  '',
+];
+
+beforeAll(async () => {
+  database = await createTestDatabase();
+});
+afterAll(async () => {
+  await database.drop();
+});
+
+describe.each([true, false])('copyRows, statements prepared: %s', (prepareStatements) => {
+  let db: Kysely<Tables>;
+  beforeAll(async () => {
+    db = createDatabase(database.url, { maxConnections: 2, prepareStatements }) as never;
+    await sql`create table if not exists notes (id int primary key, body text, tally int)`.execute(
+      db,
+    );
+  });
+  afterAll(async () => {
+    await db.destroy();
+  });
+
+  it('writes every value as PostgreSQL reads it back, nulls included', async () => {
+    await sql`truncate notes`.execute(db);
+    const rows = awkward.map((body, index) => [index, body, index % 2 === 0 ? null : index * 7]);
+    rows.push([awkward.length, null, null]);
+    await copyRows(db as unknown as Db, 'notes', ['id', 'body', 'tally'], rows);
+    const back = await db.selectFrom('notes').selectAll().orderBy('id').execute();
+    expect(back).toEqual(rows.map(([id, body, tally]) => ({ id, body, tally })));
+  });
+
+  it('belongs to the transaction it runs in: a later failure leaves nothing', async () => {
+    await sql`truncate notes`.execute(db);
+    await expect(
+      db.transaction().execute(async (trx) => {
+        await copyRows(trx as unknown as Db, 'notes', ['id', 'body'], [[1, 'kept?']]);
+        expect(await trx.selectFrom('notes').select('id').execute()).toEqual([{ id: 1 }]);
+        await sql`select 1 / 0`.execute(trx);
+      }),
+    ).rejects.toThrow(/division by zero/);
+    expect(await db.selectFrom('notes').select('id').execute()).toEqual([]);
+  });
+
+  it('a row PostgreSQL refuses fails the whole COPY and the connection stays usable', async () => {
+    await sql`truncate notes`.execute(db);
+    await expect(
+      copyRows(
+        db as unknown as Db,
+        'notes',
+        ['id', 'body'],
+        [
+          [1, 'one'],
+          [1, 'the same id again'],
+        ],
+      ),
+    ).rejects.toThrow(/duplicate key/);
+    expect(await db.selectFrom('notes').select('id').execute()).toEqual([]);
+    await copyRows(db as unknown as Db, 'notes', ['id', 'body'], [[2, 'two']]);
+    expect(await db.selectFrom('notes').select('id').execute()).toEqual([{ id: 2 }]);
+  });
+});
+
+describe('copyText', () => {
+  it('escapes backslash, tab, line feed and carriage return, and writes NULL as \\N', () => {
+    expect(copyText([['a\tb', null, 3, 'c\\d\ne\rf']])).toBe('a\\tb\t\\N\t3\tc\\\\d\\ne\\rf\n');
+    expect(copyText([])).toBe('');
+  });
+
+  it('refuses a table or column name that is not a plain SQL name', async () => {
+    await expect(copyRows({} as Db, 'notes; drop table notes', ['id'], [[1]])).rejects.toThrow(
+      /plain SQL name/,
+    );
+  });
+});
