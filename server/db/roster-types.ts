@@ -2,7 +2,8 @@ import type { ColumnType, Generated } from 'kysely';
 
 /**
  * Table types of the roster import (migrations 2026-12-02T0900_roster_import and
- * 2026-12-11T1100_roster_conflicts_and_replays).
+ * 2026-12-11T1100_roster_conflicts_and_replays,
+ * 2026-12-13T0900_roster_draft_rows_as_json).
  */
 type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type Json<T> = ColumnType<T, string, string>;
@@ -16,6 +17,8 @@ export interface RosterImportDraftsTable {
   delimiter: string;
   headers: Json<string[]>;
   rawRows: Json<string[][]>;
+  rowCount: number;
+  sampleRows: Json<string[][]>;
   mapping: Json<string[]>;
   counts: Json<Record<string, number>>;
   newOffices: Json<string[]>;
