@@ -18,15 +18,7 @@ const mapping: ColumnMapping = [
   'office',
   'extra',
 ];
-const fields = [
-  'givenName',
-  'familyName',
-  'email',
-  'employeeId',
-  'department',
-  'jobTitle',
-  'office',
-];
+const fields = mapping.filter((target) => target !== 'extra');
 
 // Cells of every kind the schema treats apart: blank, padded, too long, odd e-mails, repeats.
 const cellsOf = {

@@ -2,7 +2,7 @@ import { sql, type Selectable } from 'kysely';
 import { copyRows } from '../../db/copy-rows';
 import type { Db } from '../../db/database';
 import type { RosterImportRowsTable } from '../../db/roster-types';
-import type { PreviewPage, PreviewRow, RosterField } from '../../schemas/roster';
+import { rosterFields, type PreviewPage, type PreviewRow } from '../../schemas/roster';
 
 /** The rows of a draft's preview: stored once per upload or remap, then paged for the table. */
 
@@ -22,17 +22,6 @@ const storedColumns = [
   'office',
   'extras',
   'detail',
-];
-
-const fieldsInOrder: RosterField[] = [
-  'givenName',
-  'familyName',
-  'preferredName',
-  'email',
-  'employeeId',
-  'department',
-  'jobTitle',
-  'office',
 ];
 
 /**
@@ -59,7 +48,7 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: readonly
       row.rowNumber,
       row.kind,
       row.personId,
-      ...fieldsInOrder.map((field) => row.values[field] ?? null),
+      ...rosterFields.map((field) => row.values[field] ?? null),
       extras && Object.keys(extras).length > 0 ? JSON.stringify(extras) : null,
       detail,
     ];
