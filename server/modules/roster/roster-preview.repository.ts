@@ -6,20 +6,16 @@ import { rosterFields, type PreviewPage, type PreviewRow } from '../../schemas/r
 
 /** The rows of a draft's preview: stored once per upload or remap, then paged for the table. */
 
+const columnOf = (field: string) => field.replace(/[A-Z]/g, (letter) => `_${letter.toLowerCase()}`);
+
+/** In the order replacePreviewRows writes each record; the fields' columns follow rosterFields. */
 const storedColumns = [
   'draft_id',
   'position',
   'row_number',
   'kind',
   'person_id',
-  'given_name',
-  'family_name',
-  'preferred_name',
-  'email',
-  'employee_id',
-  'department',
-  'job_title',
-  'office',
+  ...rosterFields.map(columnOf),
   'extras',
   'detail',
 ];
