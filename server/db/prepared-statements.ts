@@ -10,7 +10,9 @@ import { CopyPayload, runCopy } from './copy-rows';
  *
  * Only statement texts seen `after` times are named (a one-off report is not worth a plan kept
  * per connection), at most `maxNames` of them per process, and only plain SELECT / INSERT /
- * UPDATE / DELETE / WITH statements (transaction control and DDL run as they are).
+ * UPDATE / DELETE / WITH statements (transaction control and DDL run as they are). A query
+ * whose one value is a CopyPayload runs as COPY … FROM STDIN on the same connection
+ * (copy-rows.ts), with or without preparing.
  */
 export function preparingPool(
   pool: pg.Pool,

@@ -194,9 +194,9 @@ function isBlankRecord(cells: readonly string[]): boolean {
 
 /**
  * RFC 4180 records (quoted separators, doubled quotes, line breaks inside quotes) via
- * papaparse over the whole text in one call (its fastest mode), bounded to one record past the
- * row limit so a far too long file costs no more than a full one; only then is the rest
- * counted, for the message.
+ * papaparse over the whole text in one call (its fastest mode). The call stops after twice the
+ * row limit in records (blank lines count there), so a far too long file costs about what a
+ * full one does; only then is the rest counted, one record at a time, for the message.
  */
 export function parseRosterText(
   text: string,

@@ -63,7 +63,7 @@ function fieldChecker(field: RosterField) {
   };
 }
 
-/** The column each field reads (the last one mapped to it, as a form would overwrite). */
+/** The column each field reads (a valid mapping has at most one per field) and the extras. */
 function columnsOf(mapping: ColumnMapping) {
   const fieldColumns = new Map<RosterField, number>();
   const extraColumns: number[] = [];
