@@ -52,18 +52,21 @@ export const columnMappingSchema = z
   });
 export type ColumnMapping = z.infer<typeof columnMappingSchema>;
 
+/** The longest name, e-mail or label a person's field holds, in UTF-16 units (zod's length). */
+export const personTextLimit = 200;
+
 const requiredText = (what: string) =>
   z
     .string({ error: `Enter the ${what}.` })
     .trim()
     .min(1, { error: `Enter the ${what}.` })
-    .max(200, { error: 'Use at most 200 characters.' });
+    .max(personTextLimit, { error: `Use at most ${personTextLimit} characters.` });
 
 /** Empty means "none": stored as null. */
 const optionalText = z
   .string()
   .trim()
-  .max(200, { error: 'Use at most 200 characters.' })
+  .max(personTextLimit, { error: `Use at most ${personTextLimit} characters.` })
   .transform((value) => (value === '' ? null : value))
   .nullable()
   .optional()
