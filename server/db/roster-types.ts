@@ -21,6 +21,7 @@ export interface RosterImportDraftsTable {
   sampleRows: Json<string[][]>;
   mapping: Json<string[]>;
   counts: Json<Record<string, number>>;
+  rowsWithWarnings: ColumnType<number, number | undefined, number>;
   newOffices: Json<string[]>;
   rosterVersion: string;
   hadByteOrderMark: ColumnType<boolean, boolean | undefined, boolean>;

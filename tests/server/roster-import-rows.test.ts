@@ -172,3 +172,22 @@ describe('a Windows-1252 file and a stored name it cannot hold (issue 13, item 1
     expect((await people(client.id))[0]?.givenName).toBe('Łukasz');
   });
 });
+
+describe("the draft's count of rows with a warning", () => {
+  it('is kept with the draft, and a remap that ignores the warned column clears it', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    // A vertical tab (U+000B) inside a department: decoding removes it and warns on that row.
+    const file = `${header},Department\r\nAda,Pike,ap@hp.example,A-1,Struc\u000btures\r\nBo,Reed,br@hp.example,A-2,Design\r\n`;
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    expect(draft.body.rowsWithWarnings).toBe(1);
+    const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
+    expect((await agent.get(imports).expect(200)).body.rowsWithWarnings).toBe(1);
+
+    const ignored = [...draft.body.mapping.slice(0, 4), 'ignore'];
+    const remapped = await agent.put(`${imports}/mapping`).send({ mapping: ignored }).expect(200);
+    expect(remapped.body.rowsWithWarnings).toBe(0);
+    expect((await agent.get(imports).expect(200)).body.rowsWithWarnings).toBe(0);
+    const warned = await agent.get(`${imports}/rows?kind=warned`).expect(200);
+    expect(warned.body.total).toBe(0);
+  });
+});

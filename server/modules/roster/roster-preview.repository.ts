@@ -88,16 +88,6 @@ function toPreviewRow(row: StoredPreviewRow): PreviewRow {
 
 const hasWarnings = sql<boolean>`coalesce(detail -> 'warnings', '{}'::jsonb) <> '{}'::jsonb`;
 
-export async function countRowsWithWarnings(db: Db, draftId: string): Promise<number> {
-  const row = await db
-    .selectFrom('rosterImportRows')
-    .select((eb) => eb.fn.countAll<string>().as('n'))
-    .where('draftId', '=', draftId)
-    .where(hasWarnings)
-    .executeTakeFirstOrThrow();
-  return Number(row.n);
-}
-
 export async function previewPage(
   db: Db,
   draftId: string,

@@ -18,6 +18,8 @@ export interface DraftRecord {
   sampleRows: string[][];
   mapping: ColumnMapping;
   counts: PreviewCounts;
+  /** Preview rows with at least one warning (decoding or matching). */
+  rowsWithWarnings: number;
   newOffices: string[];
   rosterVersion: string;
   expiresAt: Date;
@@ -175,6 +177,7 @@ export async function insertDraft(
       sampleRows: JSON.stringify(draft.rawRows.slice(0, 3)),
       mapping: JSON.stringify(draft.mapping),
       counts: JSON.stringify(draft.counts),
+      rowsWithWarnings: draft.rowsWithWarnings,
       newOffices: JSON.stringify(draft.newOffices),
       rosterVersion: draft.rosterVersion,
       expiresAt: draft.expiresAt,
@@ -187,13 +190,17 @@ export async function insertDraft(
 export async function updateDraftPreview(
   db: Db,
   draftId: string,
-  preview: Pick<DraftRecord, 'mapping' | 'counts' | 'newOffices' | 'rosterVersion'>,
+  preview: Pick<
+    DraftRecord,
+    'mapping' | 'counts' | 'rowsWithWarnings' | 'newOffices' | 'rosterVersion'
+  >,
 ) {
   await db
     .updateTable('rosterImportDrafts')
     .set({
       mapping: JSON.stringify(preview.mapping),
       counts: JSON.stringify(preview.counts),
+      rowsWithWarnings: preview.rowsWithWarnings,
       newOffices: JSON.stringify(preview.newOffices),
       rosterVersion: preview.rosterVersion,
     })
@@ -222,6 +229,7 @@ export async function findDraft(
       'sampleRows',
       'mapping',
       'counts',
+      'rowsWithWarnings',
       'newOffices',
       'rosterVersion',
       'expiresAt',

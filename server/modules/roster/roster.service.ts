@@ -50,6 +50,12 @@ function countKinds(rows: readonly PreviewRow[]): PreviewCounts {
   return counts;
 }
 
+function countWarned(rows: readonly PreviewRow[]): number {
+  let warned = 0;
+  for (const row of rows) if (Object.keys(row.warnings).length > 0) warned += 1;
+  return warned;
+}
+
 /** Validates and diffs the file against the roster as it is now. Reads only. */
 async function computePreview(
   db: Db,
@@ -60,7 +66,7 @@ async function computePreview(
 ) {
   const version = await repo.rosterVersion(db, clientId);
   if (mappingProblems(mapping).length > 0) {
-    return { rows: [], counts: countKinds([]), newOffices: [], version };
+    return { rows: [], counts: countKinds([]), rowsWithWarnings: 0, newOffices: [], version };
   }
   const [existing, offices] = await Promise.all([
     repo.loadRoster(db, clientId),
@@ -76,7 +82,13 @@ async function computePreview(
     mapping.includes('extra'),
     { legacyEncoding: file.encoding === 'windows-1252' },
   );
-  return { rows: diff.rows, counts: countKinds(diff.rows), newOffices: diff.newOffices, version };
+  return {
+    rows: diff.rows,
+    counts: countKinds(diff.rows),
+    rowsWithWarnings: countWarned(diff.rows),
+    newOffices: diff.newOffices,
+    version,
+  };
 }
 
 export function createRosterService(deps: { db: Db }) {
@@ -101,7 +113,7 @@ export function createRosterService(deps: { db: Db }) {
       mapping: draft.mapping,
       mappingProblems: mappingProblems(draft.mapping),
       counts: draft.counts,
-      rowsWithWarnings: await previewRepo.countRowsWithWarnings(db, draft.id),
+      rowsWithWarnings: draft.rowsWithWarnings,
       newOffices: draft.newOffices,
       knownOffices: await repo.listOffices(db, clientId),
       expiresAt: draft.expiresAt.toISOString(),
@@ -142,6 +154,7 @@ export function createRosterService(deps: { db: Db }) {
           guessedColumns,
           mapping,
           counts: preview.counts,
+          rowsWithWarnings: preview.rowsWithWarnings,
           newOffices: preview.newOffices,
           rosterVersion: preview.version,
           expiresAt: new Date(Date.now() + draftLifetimeMs),
@@ -184,6 +197,7 @@ export function createRosterService(deps: { db: Db }) {
         await repo.updateDraftPreview(trx, draftId, {
           mapping,
           counts: preview.counts,
+          rowsWithWarnings: preview.rowsWithWarnings,
           newOffices: preview.newOffices,
           rosterVersion: preview.version,
         });
@@ -193,6 +207,7 @@ export function createRosterService(deps: { db: Db }) {
         ...draft,
         mapping,
         counts: preview.counts,
+        rowsWithWarnings: preview.rowsWithWarnings,
         newOffices: preview.newOffices,
       });
     },
