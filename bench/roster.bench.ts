@@ -128,10 +128,22 @@ async function benchEmptyClient(context: {
   const { db, viewer, roster, print } = context;
   const rows = staffRows(emptyClientRows);
   const bytes = csvBytes(rows);
-  const clientId = await newClient(db, 'empty-client');
   const parseMs = bareParseMs(bytes, emptyClientRows);
-  const [draft, previewMs] = await timed(() => roster.upload(viewer, clientId, 'all.csv', bytes));
-  if (draft.counts.add !== emptyClientRows) throw new Error(`preview: ${draft.counts.add} to add`);
+  // The median of three previews, each into a client of its own, as the parse is a median of
+  // three: the first upload of a process also pays for compiling the code it runs.
+  const previews: number[] = [];
+  let last: { clientId: string; draftId: string } | null = null;
+  for (let round = 1; round <= 3; round += 1) {
+    const clientId = await newClient(db, `empty-client-${round}`);
+    const [draft, ms] = await timed(() => roster.upload(viewer, clientId, 'all.csv', bytes));
+    if (draft.counts.add !== emptyClientRows)
+      throw new Error(`preview: ${draft.counts.add} to add`);
+    previews.push(ms);
+    last = { clientId, draftId: draft.id };
+  }
+  if (!last) throw new Error('no preview');
+  const { clientId } = last;
+  const previewMs = median(previews);
   const baselineMs = await psqlCopy(
     context.url,
     context.folder,
@@ -140,13 +152,14 @@ async function benchEmptyClient(context: {
     rows,
   );
   const [, commitMs] = await timed(() =>
-    roster.commit(viewer, clientId, draft.id, { officeTimeZones: zones }),
+    roster.commit(viewer, clientId, last.draftId, { officeTimeZones: zones }),
   );
   const peopleCopyMs = await psqlCopyIntoPeople(context, rows);
   print({
     bench: 'roster-preview-50k',
     rows: emptyClientRows,
     ms: previewMs,
+    runs_ms: previews,
     parse_ms: Math.round(parseMs),
     ratio_parse: Number((previewMs / parseMs).toFixed(2)),
     goal_ms: 2500,
