@@ -52,7 +52,10 @@ export const columnMappingSchema = z
   });
 export type ColumnMapping = z.infer<typeof columnMappingSchema>;
 
-/** The longest name, e-mail or label a person's field holds, in UTF-16 units (zod's length). */
+/**
+ * The longest name or label a person's field holds, in code points (zod counts those once a
+ * string is longer in UTF-16 units than the limit).
+ */
 export const personTextLimit = 200;
 
 const requiredText = (what: string) =>

@@ -33,6 +33,9 @@ const cellsOf = {
     'Ines',
     '\u00a0Ada\u00a0',
     ` ${'v'.repeat(200)}  `,
+    // 150 and 201 code points of two UTF-16 units each: zod counts code points.
+    '\u{1d518}'.repeat(150),
+    '\u{1d518}'.repeat(201),
   ],
   familyName: ['Carvalho', 'de Vries', '', 'Ørnbjerg ', 'z'.repeat(201)],
   email: [

@@ -39,8 +39,9 @@ type FieldOutcome = string | null | { message: string };
 const required = new Set<RosterField>(['givenName', 'familyName']);
 
 /**
- * The values rosterRowSchema accepts as they are, told without zod: a trimmed cell within
- * personTextLimit (not blank for a required field), an e-mail matching zod's own pattern
+ * The cells rosterRowSchema plainly accepts, told without zod: a cell whose trimmed text is
+ * within personTextLimit in UTF-16 units (never more lenient than zod's code points: a longer
+ * cell goes to zod) and not blank for a required field, an e-mail matching zod's own pattern
  * (z.regexes.email, what z.email() tests) once trimmed and lower-cased. At 50,000 rows zod's
  * parse per cell was twice papaparse's whole parse. Anything else goes to zod, so every message
  * and every refusal is still the schema's (tests/unit/roster-rows.test.ts holds the two side
