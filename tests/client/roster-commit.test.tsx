@@ -70,6 +70,7 @@ describe('saving a roster import (issue 14, item 2)', () => {
         draft={draft}
         onBack={() => undefined}
         onCommitted={onCommitted}
+        onRechecked={() => undefined}
       />,
     );
     fireEvent.click(screen.getByRole('button', { name: 'Save 2 changes to the roster' }));
@@ -87,5 +88,65 @@ describe('saving a roster import (issue 14, item 2)', () => {
       rekeyConflicts: false,
     });
     expect(commits).toHaveLength(2);
+  });
+
+  it('after the roster changed, checks the same file and columns again and hands on the new preview', async () => {
+    const requests: { url: string; method: string; body: unknown }[] = [];
+    const rechecked: RosterDraft = { ...draft, counts: { ...draft.counts, add: 1, update: 1 } };
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async (url: string, init?: RequestInit) => {
+        const method = init?.method ?? 'GET';
+        requests.push({ url, method, body: init?.body ? JSON.parse(String(init.body)) : null });
+        if (url.endsWith('/commit'))
+          return json(409, {
+            error: {
+              code: 'roster_changed',
+              message:
+                'The roster changed since this preview. Check the preview again, then confirm.',
+            },
+          });
+        if (url.endsWith('/mapping')) return json(200, rechecked);
+        return json(200, { rows: [], total: 0, page: 1, pageSize: 25 });
+      }),
+    );
+    const onRechecked = vi.fn();
+    renderWithProviders(
+      <PreviewStep
+        clientId="c1"
+        draft={draft}
+        onBack={() => undefined}
+        onCommitted={() => undefined}
+        onRechecked={onRechecked}
+      />,
+    );
+    fireEvent.click(screen.getByRole('button', { name: 'Save 2 changes to the roster' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Check the rows again' }));
+    await waitFor(() => expect(onRechecked).toHaveBeenCalled());
+    expect(onRechecked.mock.calls[0]?.[0]).toEqual(rechecked);
+    const remap = requests.find((request) => request.url.endsWith('/mapping'));
+    expect(remap).toMatchObject({
+      url: `/api/clients/c1/roster/imports/${draft.id}/mapping`,
+      method: 'PUT',
+      body: { mapping: draft.mapping },
+    });
+  });
+
+  it('words one change and one row in error in the singular', () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => json(200, { rows: [], total: 0, page: 1, pageSize: 25 })),
+    );
+    renderWithProviders(
+      <PreviewStep
+        clientId="c1"
+        draft={{ ...draft, counts: { ...draft.counts, add: 1, error: 1 } }}
+        onBack={() => undefined}
+        onCommitted={() => undefined}
+        onRechecked={() => undefined}
+      />,
+    );
+    expect(screen.getByRole('button', { name: 'Save 1 change to the roster' })).toBeTruthy();
+    expect(screen.getByText(/^1 row has problems and will be left out\./)).toBeTruthy();
   });
 });

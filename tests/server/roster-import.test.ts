@@ -196,6 +196,12 @@ describe('roster import', () => {
       .send({ officeTimeZones: zones })
       .expect(409);
     expect(response.body.error.code).toBe('roster_changed');
+
+    // Checking the same file and columns again compares it with the roster as it is now.
+    const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
+    await agent.put(`${imports}/mapping`).send({ mapping: draft.body.mapping }).expect(200);
+    await agent.post(`${imports}/commit`).send({ officeTimeZones: zones }).expect(201);
+    expect((await rosterOf(client.id)).length).toBe(draft.body.counts.add + 1);
   });
 
   it('reports rows in error per cell and offers them as CSV', async () => {

@@ -9,6 +9,7 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useCommitImport } from '../api/commit-import';
+import { useRemapImport } from '../api/remap-import';
 import { OfficeTimeZones, guessTimeZone } from './office-time-zones';
 import { PreviewTable, kindLabels } from './preview-table';
 
@@ -18,11 +19,14 @@ export function PreviewStep({
   draft,
   onBack,
   onCommitted,
+  onRechecked,
 }: {
   clientId: string;
   draft: RosterDraft;
   onBack: () => void;
   onCommitted: (summary: ImportSummary) => void;
+  /** The same file and columns checked again against the roster as it is now. */
+  onRechecked: (draft: RosterDraft) => void;
 }) {
   // Open on what needs a decision first: rows in error, then conflicts.
   const [kind, setKind] = useState<PreviewKind | 'all' | 'warned'>(
@@ -41,6 +45,10 @@ export function PreviewStep({
   const [rekeyConflicts, setRekeyConflicts] = useState(false);
   const [waiting, setWaiting] = useState(false);
   const commit = useCommitImport();
+  const recheck = useRemapImport();
+  // Someone saved the roster after this preview was made: the same file and columns, checked
+  // again, give a preview that can be saved.
+  const rosterChanged = commit.error instanceof ApiError && commit.error.code === 'roster_changed';
   const changes =
     counts.add +
     counts.update +
@@ -104,7 +112,9 @@ export function PreviewStep({
       </div>
       {counts.error > 0 ? (
         <Notice tone="caution">
-          {counts.error.toLocaleString()} rows have problems and will be left out.{' '}
+          {counts.error === 1
+            ? '1 row has problems and will be left out.'
+            : `${counts.error.toLocaleString()} rows have problems and will be left out.`}{' '}
           <a
             className="font-medium underline"
             href={`/api/clients/${clientId}/roster/imports/${draft.id}/errors.csv`}
@@ -191,7 +201,29 @@ export function PreviewStep({
           This import is being saved. Its result appears here when it is done.
         </Notice>
       ) : null}
-      {commit.isError ? <Notice tone="danger">{commit.error.message}</Notice> : null}
+      {commit.isError ? (
+        <Notice tone="danger">
+          {commit.error.message}
+          {rosterChanged ? (
+            <>
+              {' '}
+              <Button
+                variant="secondary"
+                busy={recheck.isPending}
+                onClick={() =>
+                  recheck.mutate(
+                    { clientId, draftId: draft.id, mapping: draft.mapping },
+                    { onSuccess: onRechecked },
+                  )
+                }
+              >
+                Check the rows again
+              </Button>
+            </>
+          ) : null}
+        </Notice>
+      ) : null}
+      {recheck.isError ? <Notice tone="danger">{recheck.error.message}</Notice> : null}
       <div className="flex flex-wrap gap-3">
         <Button
           onClick={confirm}
@@ -200,7 +232,9 @@ export function PreviewStep({
         >
           {changes === 0
             ? 'Nothing to change'
-            : `Save ${changes.toLocaleString()} changes to the roster`}
+            : changes === 1
+              ? 'Save 1 change to the roster'
+              : `Save ${changes.toLocaleString()} changes to the roster`}
         </Button>
         <Button variant="secondary" onClick={onBack} disabled={commit.isPending}>
           Back to the columns

@@ -10,10 +10,27 @@ import { UploadStep } from './upload-step';
 type Step =
   | { name: 'upload' }
   | { name: 'map'; draft: RosterDraft }
-  | { name: 'preview'; draft: RosterDraft }
+  // round: a preview checked again starts afresh (its choices and the refused save's message).
+  | { name: 'preview'; draft: RosterDraft; round?: number }
   | { name: 'done'; summary: ImportSummary };
 
 const stepTitles = ['Upload the file', 'Match the columns', 'Check and confirm'];
+
+const counted = (count: number, one: string, many = `${one}s`) =>
+  `${count.toLocaleString()} ${count === 1 ? one : many}`;
+
+/** "1,200 added, 3 updated, …": what the commit wrote, in the preview's number format. */
+function summaryLine(summary: ImportSummary): string {
+  const parts = [
+    `${summary.added.toLocaleString()} added`,
+    `${summary.updated.toLocaleString()} updated`,
+    `${summary.deactivated.toLocaleString()} marked inactive`,
+    `${counted(summary.skipped, 'row')} left out`,
+  ];
+  if (summary.officesCreated > 0)
+    parts.push(`${counted(summary.officesCreated, 'office')} created`);
+  return `${parts.join(', ')}.`;
+}
 
 /** Upload, map, preview, commit: nothing reaches the roster before the last step. */
 export function RosterImportWizard({ clientId }: { clientId: string }) {
@@ -61,10 +78,14 @@ export function RosterImportWizard({ clientId }: { clientId: string }) {
       {step.name === 'preview' ? (
         <Card title={stepTitles[2]}>
           <PreviewStep
+            key={step.round ?? 0}
             clientId={clientId}
             draft={step.draft}
             onBack={() => setStep({ name: 'map', draft: step.draft })}
             onCommitted={(summary) => setStep({ name: 'done', summary })}
+            onRechecked={(draft) =>
+              setStep({ name: 'preview', draft, round: (step.round ?? 0) + 1 })
+            }
           />
         </Card>
       ) : null}
@@ -72,12 +93,7 @@ export function RosterImportWizard({ clientId }: { clientId: string }) {
         <Notice tone="success">
           <p className="font-semibold">The roster is up to date.</p>
           <p>
-            {step.summary.added} added, {step.summary.updated} updated, {step.summary.deactivated}{' '}
-            marked inactive, {step.summary.skipped} rows left out
-            {step.summary.officesCreated > 0
-              ? `, ${step.summary.officesCreated} offices created`
-              : ''}
-            .{' '}
+            {summaryLine(step.summary)}{' '}
             <Link className="font-medium underline" to={`/clients/${clientId}/people`}>
               See the people
             </Link>
