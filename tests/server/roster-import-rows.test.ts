@@ -191,3 +191,21 @@ describe("the draft's count of rows with a warning", () => {
     expect(warned.body.total).toBe(0);
   });
 });
+
+describe('an import replaced by a newer upload', () => {
+  it('answers that it is no longer open and why, not only "not found"', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const first = await uploadRoster(
+      agent,
+      client.id,
+      `${header}\r\nAda,Pike,ap@hp.example,A-1\r\n`,
+    );
+    await uploadRoster(agent, client.id, `${header}\r\nBo,Reed,br@hp.example,A-2\r\n`).expect(201);
+    const response = await agent
+      .post(`/api/clients/${client.id}/roster/imports/${first.body.id}/commit`)
+      .send({ officeTimeZones: {} })
+      .expect(404);
+    expect(response.body.error.message).toMatch(/no longer open: a newer upload of yours/);
+    expect(await people(client.id)).toEqual([]);
+  });
+});

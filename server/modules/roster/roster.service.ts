@@ -32,6 +32,17 @@ export type RosterService = ReturnType<typeof createRosterService>;
 
 const draftLifetimeMs = 24 * 60 * 60 * 1000;
 
+/**
+ * A draft ends when its uploader sends a newer file for the client, or when it expires (a saved
+ * one answers with its import).
+ */
+const draftGone = () =>
+  new AppError(
+    'not_found',
+    404,
+    'This import is no longer open: a newer upload of yours for this client replaces it, and an import is kept for 24 hours. Upload the file again.',
+  );
+
 export function mappingProblems(mapping: ColumnMapping): string[] {
   const result = columnMappingSchema.safeParse(mapping);
   return result.success ? [] : result.error.issues.map((issue) => issue.message);
@@ -122,7 +133,7 @@ export function createRosterService(deps: { db: Db }) {
 
   async function draftOf(clientId: string, draftId: string, forUpdate = false) {
     const draft = await repo.findDraft(db, clientId, draftId, { forUpdate });
-    if (!draft) throw notFound('That import (it may have expired: upload the file again)');
+    if (!draft) throw draftGone();
     return draft;
   }
 
@@ -259,7 +270,7 @@ export function createRosterService(deps: { db: Db }) {
         if (saved) return { id: saved.id, replayed: true };
         await repo.lockClient(trx, clientId);
         const draft = await repo.findDraft(trx, clientId, draftId, { forUpdate: true });
-        if (!draft) throw notFound('That import (it may have expired: upload the file again)');
+        if (!draft) throw draftGone();
         if (mappingProblems(draft.mapping).length > 0) {
           throw new AppError('mapping_incomplete', 409, 'Finish the column mapping first.');
         }
