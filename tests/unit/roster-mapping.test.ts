@@ -40,6 +40,15 @@ describe('suggesting a column mapping', () => {
     expect(suggestMapping(['T-shirt size', '', 'Status'])).toEqual(['extra', 'ignore', 'ignore']);
   });
 
+  it('ignores the "What to fix" column of its own rows-to-fix file, uploaded again', () => {
+    expect(suggestMapping(['First name', 'Last name', 'E-mail', 'What to fix'])).toEqual([
+      'givenName',
+      'familyName',
+      'email',
+      'ignore',
+    ]);
+  });
+
   it('gives a field to the first column that claims it only', () => {
     expect(suggestMapping(['Email', 'Work email'])).toEqual(['email', 'extra']);
   });

@@ -14,8 +14,14 @@ export function normaliseHeader(header: string): string {
     .trim();
 }
 
-/** Columns our own export writes that are not data to keep. */
-const ignored = ['status', 'active'];
+/** The column the rows-to-fix download adds: what is wrong with the row, not a field. */
+export const fixColumnHeader = 'What to fix';
+
+/**
+ * Columns our own files write that are not data to keep: the export's status, and the
+ * rows-to-fix file's reasons (that file is made to be corrected and uploaded again).
+ */
+const ignored = ['status', 'active', normaliseHeader(fixColumnHeader)];
 
 const lookup = new Map<string, RosterField>();
 for (const [field, words] of Object.entries(headerSynonyms) as [RosterField, string[]][]) {

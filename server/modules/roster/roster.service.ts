@@ -17,7 +17,12 @@ import {
   type RosterField,
 } from '../../schemas/roster';
 import { assertClientAccess } from './client-access';
-import { mappingToRemember, normaliseHeader, suggestMapping } from './column-mapping';
+import {
+  fixColumnHeader,
+  mappingToRemember,
+  normaliseHeader,
+  suggestMapping,
+} from './column-mapping';
 import type { DecodeWarning } from '../../db/roster-types';
 import { cleanCell, parseRosterFile } from './csv-decode';
 import { rowsToFixFile } from './rows-to-fix-csv';
@@ -242,7 +247,7 @@ export function createRosterService(deps: { db: Db }) {
         ...(rawRows[(row.rowNumber ?? 2) - 2] ?? []),
         Object.values(row.errors).join(' '),
       ]);
-      return rowsToFixFile([[...draft.headers, 'What to fix'], ...records], draft);
+      return rowsToFixFile([[...draft.headers, fixColumnHeader], ...records], draft);
     },
 
     /**
