@@ -67,6 +67,17 @@ describe('roster import', () => {
       .expect(200);
     expect(rows.body.total).toBe(3);
     expect(rows.body.rows[0].values.email).toBe('ines.carvalho@hp.example');
+    // The preview's search reads what the directory's does: the employee id, the full name.
+    const byId = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?q=hp-002`)
+      .expect(200);
+    expect(byId.body.rows.map((row: { values: { email: string } }) => row.values.email)).toEqual([
+      'tom.ashby@hp.example',
+    ]);
+    const byFullName = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?q=Sanne%20de%20V`)
+      .expect(200);
+    expect(byFullName.body.total).toBe(1);
     expect(await rosterOf(client.id)).toEqual([]);
     const offices = await t.db
       .selectFrom('offices')

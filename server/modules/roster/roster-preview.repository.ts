@@ -110,6 +110,9 @@ export async function previewPage(
         eb('givenName', 'ilike', pattern),
         eb('familyName', 'ilike', pattern),
         eb('email', 'ilike', pattern),
+        eb('employeeId', 'ilike', pattern),
+        eb('preferredName', 'ilike', pattern),
+        eb(sql<string>`given_name || ' ' || family_name`, 'ilike', pattern),
       ]),
     );
   }

@@ -101,17 +101,35 @@ function Details({ row }: { row: PreviewRow }) {
   );
 }
 
+// Each sortable column has an accessor: TanStack Table offers sorting only on those. The
+// server sorts (by row, kind, family then given name, e-mail); the accessors are not used.
 const columns: ColumnDef<PreviewRow, unknown>[] = [
-  { id: 'position', header: 'Row', cell: ({ row }) => row.original.rowNumber ?? '—' },
-  { id: 'kind', header: 'What happens', cell: ({ row }) => kindLabels[row.original.kind] },
+  {
+    id: 'position',
+    header: 'Row',
+    accessorFn: (row) => row.position,
+    cell: ({ row }) => row.original.rowNumber ?? '—',
+  },
+  {
+    id: 'kind',
+    header: 'What happens',
+    accessorFn: (row) => row.kind,
+    cell: ({ row }) => kindLabels[row.original.kind],
+  },
   {
     id: 'name',
     header: 'Name',
+    accessorFn: (row) => `${row.values.familyName ?? ''} ${row.values.givenName ?? ''}`,
     cell: ({ row }) =>
       `${row.original.values.givenName ?? ''} ${row.original.values.familyName ?? ''}`.trim() ||
       '(no name)',
   },
-  { id: 'email', header: 'E-mail', cell: ({ row }) => row.original.values.email || '(none)' },
+  {
+    id: 'email',
+    header: 'E-mail',
+    accessorFn: (row) => row.values.email,
+    cell: ({ row }) => row.original.values.email || '(none)',
+  },
   {
     id: 'details',
     header: 'Details',
