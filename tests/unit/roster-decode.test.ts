@@ -16,6 +16,12 @@ const utf8 = (text: string) => new TextEncoder().encode(text);
 describe('control characters in cells (issue 14, item 1)', () => {
   it('removes NUL, other C0 controls, DEL and C1, keeping tab and line breaks', () => {
     expect(cleanCell('A\u0000d\u0007a\u007f\u0085')).toEqual({ value: 'Ada', removed: 4 });
+    // A separator between words (vertical tab, form feed, the information separators, next
+    // line) stands where a space or line break was: it leaves one space.
+    expect(cleanCell('Marine\u000bWorks')).toEqual({ value: 'Marine Works', removed: 1 });
+    expect(cleanCell('Marine \u000c\u001e Works')).toEqual({ value: 'Marine Works', removed: 2 });
+    expect(cleanCell('\u000bDesign\u001f')).toEqual({ value: 'Design', removed: 2 });
+    expect(cleanCell('Jo\u0000hn')).toEqual({ value: 'John', removed: 1 });
     expect(cleanCell('two\r\nlines\tand a tab')).toEqual({
       value: 'two\r\nlines\tand a tab',
       removed: 0,

@@ -154,14 +154,30 @@ const controlCharacters = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]
 // eslint-disable-next-line no-control-regex -- the same set, to test without allocating
 const anyControlCharacter = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]/;
 
+/**
+ * The separators among them (vertical tab, form feed, the four information separators, next
+ * line): spreadsheets and old exports put them where a line break or a space was, so between
+ * words they leave one space ("Marine<VT>Works" is "Marine Works", not a new "MarineWorks").
+ */
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
+const separatingControls = /(?<=\S) *[\u000b\u000c\u001c-\u001f\u0085]+ *(?=\S)/g;
+
 /** The cell without control characters, and how many were removed. */
 export function cleanCell(cell: string): { value: string; removed: number } {
   if (!anyControlCharacter.test(cell)) return { value: cell, removed: 0 };
   let removed = 0;
-  const value = cell.replace(controlCharacters, () => {
-    removed += 1;
-    return '';
-  });
+  const count = (match: string) => {
+    for (const char of match) if (char !== ' ') removed += 1;
+  };
+  const value = cell
+    .replace(separatingControls, (match) => {
+      count(match);
+      return ' ';
+    })
+    .replace(controlCharacters, (match) => {
+      count(match);
+      return '';
+    });
   return { value, removed };
 }
 
