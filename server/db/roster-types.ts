@@ -17,6 +17,7 @@ export interface RosterImportDraftsTable {
   delimiter: string;
   headers: Json<string[]>;
   rawRows: Json<string[][]>;
+  rowNumbers: ColumnType<number[] | null, string | null | undefined, string | null>;
   rowCount: number;
   sampleRows: Json<string[][]>;
   mapping: Json<string[]>;

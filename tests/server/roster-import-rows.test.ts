@@ -209,3 +209,56 @@ describe('an import replaced by a newer upload', () => {
     expect(await people(client.id)).toEqual([]);
   });
 });
+
+describe('blank lines in the file', () => {
+  it('leave every row numbered as a spreadsheet shows it, after a remap and in the rows to fix', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    // Rows 1 to 7 as a spreadsheet numbers them: 3 and 4 are blank, the quoted cell of row 6
+    // spans two lines of text but is one row.
+    const file = [
+      header,
+      'Ada,Pike,ap@hp.example,A-1',
+      '',
+      ',,,',
+      'Bo,Reed,bad-email,A-2',
+      '"Cy\nRoss",Lund,cl@hp.example,A-3',
+      'Di,Moss,also-bad,A-4',
+      '',
+    ].join('\r\n');
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
+    const numbers = async () => {
+      const page = await agent.get(`${imports}/rows?kind=all`).expect(200);
+      return page.body.rows.map((row: { rowNumber: number; kind: string }) => [
+        row.rowNumber,
+        row.kind,
+      ]);
+    };
+    const expected = [
+      [2, 'add'],
+      [5, 'error'],
+      [6, 'add'],
+      [7, 'error'],
+    ];
+    expect(await numbers()).toEqual(expected);
+    await agent.put(`${imports}/mapping`).send({ mapping: draft.body.mapping }).expect(200);
+    expect(await numbers()).toEqual(expected);
+
+    const fix = await agent.get(`${imports}/errors.csv`).buffer(true).parse(binaryBody).expect(200);
+    const lines = (fix.body as Buffer)
+      .toString('utf8')
+      .replace(/^\uFEFF/, '')
+      .split('\r\n');
+    expect(lines.slice(1, 3).map((line) => line.split(',').slice(0, 3).join(','))).toEqual([
+      'Bo,Reed,bad-email',
+      'Di,Moss,also-bad',
+    ]);
+  });
+
+  it('are counted in the row a too-long cell is reported on', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const file = `${header}\r\n\r\n\r\nAda,${'x'.repeat(2001)},ap@hp.example,A-1\r\n`;
+    const response = await uploadRoster(agent, client.id, file).expect(422);
+    expect(response.body.error.message).toMatch(/^Row 4, column "Last name"/);
+  });
+});

@@ -22,6 +22,11 @@ export interface ParsedRosterFile {
   headers: string[];
   /** Data rows, each padded or cut to the header's width. */
   rows: string[][];
+  /**
+   * Each data row's row in the file as a spreadsheet shows it (the header is row 1, blank lines
+   * count); null when that is simply its index plus 2.
+   */
+  rowNumbers: number[] | null;
   /** Cells from which control characters were removed. */
   warnings: DecodeWarning[];
 }
@@ -249,16 +254,19 @@ export function parseRosterText(
   // One scan of the whole text says whether any cell needs cleaning at all (most files: none).
   const mayHoldControls = anyControlCharacter.test(clean);
   const rows: string[][] = [];
+  const rowNumbers: number[] = [];
   const warnings: DecodeWarning[] = [];
   let records = 0;
   for (let index = 0; index < parsed.data.length; index += 1) {
     const record = parsed.data[index] ?? [];
+    // The row a spreadsheet shows this record on: one per record, blank ones included.
+    const rowNumber = index + 1;
     if (isBlankRecord(record)) continue;
     records += 1;
     if (unterminated && index >= (unterminated.row ?? 0)) {
       throw refuse(
         'bad_quotes',
-        `A quoted value starting on row ${records} never ends. Check the quotation marks there.`,
+        `A quoted value starting on row ${rowNumber} never ends. Check the quotation marks there.`,
       );
     }
     if (records === 1 || rows.length >= maxRosterRows) continue;
@@ -266,7 +274,7 @@ export function parseRosterText(
     for (let column = 0; column < width; column += 1) {
       const cell = record[column] ?? '';
       if (cell.length > maxCellCharacters) {
-        throw refuseLongCell(records, headers[column] || `Column ${column + 1}`, cell.length);
+        throw refuseLongCell(rowNumber, headers[column] || `Column ${column + 1}`, cell.length);
       }
       const value = readBackNeutralised(cell);
       if (!mayHoldControls) {
@@ -279,6 +287,7 @@ export function parseRosterText(
       cells[column] = cleaned.value;
     }
     rows.push(cells);
+    rowNumbers.push(rowNumber);
   }
   const dataRows = records - 1;
   if (dataRows <= 0)
@@ -289,7 +298,9 @@ export function parseRosterText(
       `The file has ${countRecords(clean, delimiter).toLocaleString('en')} rows; one import takes at most 50,000.`,
     );
   }
-  return { delimiter, headers, rows, warnings };
+  // Most files have no blank line before a row: each row is then its index plus 2.
+  const shifted = rowNumbers.some((rowNumber, index) => rowNumber !== index + 2);
+  return { delimiter, headers, rows, rowNumbers: shifted ? rowNumbers : null, warnings };
 }
 
 /** Data records of a file known to be over the limit, counted one at a time, none kept. */

@@ -123,6 +123,7 @@ export function checkRows(
   rows: readonly (readonly string[])[],
   mapping: ColumnMapping,
   decodeWarnings: readonly DecodeWarning[] = [],
+  rowNumbers: readonly number[] | null = null,
 ): CheckedRow[] {
   const seenEmails = new Map<string, number>();
   const seenIds = new Map<string, number>();
@@ -137,7 +138,7 @@ export function checkRows(
   const checked = new Array<CheckedRow>(rows.length);
   for (let index = 0; index < rows.length; index += 1) {
     const cells = rows[index] ?? [];
-    const rowNumber = index + 2;
+    const rowNumber = rowNumbers?.[index] ?? index + 2;
     const warnings = rowWarnings.get(index) ?? none;
     const extras = extrasOf(headers, cells, extraColumns);
     const row = {} as Record<RosterField, string | null>;

@@ -157,6 +157,7 @@ export async function insertDraft(
   draft: Omit<DraftRecord, 'id' | 'rowCount' | 'sampleRows'> & {
     createdBy: string | null;
     rawRows: string[][];
+    rowNumbers: number[] | null;
     decodeWarnings: DecodeWarning[];
   },
 ): Promise<string> {
@@ -173,6 +174,7 @@ export async function insertDraft(
       delimiter: draft.delimiter,
       headers: JSON.stringify(draft.headers),
       rawRows: JSON.stringify(draft.rawRows),
+      rowNumbers: draft.rowNumbers ? JSON.stringify(draft.rowNumbers) : null,
       rowCount: draft.rawRows.length,
       sampleRows: JSON.stringify(draft.rawRows.slice(0, 3)),
       mapping: JSON.stringify(draft.mapping),
@@ -255,6 +257,16 @@ export async function loadRawRows(db: Db, draftId: string): Promise<string[][]> 
     .where('id', '=', draftId)
     .executeTakeFirstOrThrow();
   return row.rawRows;
+}
+
+/** Each row's row in the file, when blank lines shifted them (see ParsedRosterFile). */
+export async function loadRowNumbers(db: Db, draftId: string): Promise<number[] | null> {
+  const row = await db
+    .selectFrom('rosterImportDrafts')
+    .select('rowNumbers')
+    .where('id', '=', draftId)
+    .executeTakeFirstOrThrow();
+  return row.rowNumbers;
 }
 
 /** What decoding removed from cells, for the preview's warnings after a remap. */

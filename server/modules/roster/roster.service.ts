@@ -76,7 +76,12 @@ function countWarned(rows: readonly PreviewRow[]): number {
 async function computePreview(
   db: Db,
   clientId: string,
-  file: { headers: string[]; encoding: string; warnings: readonly DecodeWarning[] },
+  file: {
+    headers: string[];
+    encoding: string;
+    warnings: readonly DecodeWarning[];
+    rowNumbers: readonly number[] | null;
+  },
   rawRows: string[][],
   mapping: ColumnMapping,
 ) {
@@ -88,7 +93,7 @@ async function computePreview(
     repo.loadRoster(db, clientId),
     repo.listOffices(db, clientId),
   ]);
-  const checked = checkRows(file.headers, rawRows, mapping, file.warnings);
+  const checked = checkRows(file.headers, rawRows, mapping, file.warnings, file.rowNumbers);
   const mapped = new Set(mapping.filter((target) => target !== 'extra' && target !== 'ignore'));
   const diff = diffRoster(
     checked,
@@ -178,6 +183,7 @@ export function createRosterService(deps: { db: Db }) {
         const id = await repo.insertDraft(trx, {
           ...record,
           rawRows: parsed.rows,
+          rowNumbers: parsed.rowNumbers,
           decodeWarnings: parsed.warnings,
           createdBy: viewer.id,
         });
@@ -198,14 +204,15 @@ export function createRosterService(deps: { db: Db }) {
       if (mapping.length !== draft.headers.length) {
         throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
       }
-      const [rawRows, warnings] = await Promise.all([
+      const [rawRows, warnings, rowNumbers] = await Promise.all([
         repo.loadRawRows(db, draftId),
         repo.loadDecodeWarnings(db, draftId),
+        repo.loadRowNumbers(db, draftId),
       ]);
       const preview = await computePreview(
         db,
         clientId,
-        { headers: draft.headers, encoding: draft.encoding, warnings },
+        { headers: draft.headers, encoding: draft.encoding, warnings, rowNumbers },
         rawRows,
         mapping,
       );
@@ -244,7 +251,8 @@ export function createRosterService(deps: { db: Db }) {
       const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error', 'conflict']);
       const rawRows = await repo.loadRawRows(db, draftId);
       const records = errors.map((row) => [
-        ...(rawRows[(row.rowNumber ?? 2) - 2] ?? []),
+        // Positions count the file's rows from 1, in order (the missing people come after).
+        ...(rawRows[row.position - 1] ?? []),
         Object.values(row.errors).join(' '),
       ]);
       return rowsToFixFile([[...draft.headers, fixColumnHeader], ...records], draft);
