@@ -262,3 +262,28 @@ describe('blank lines in the file', () => {
     expect(response.body.error.message).toMatch(/^Row 4, column "Last name"/);
   });
 });
+
+describe('an import left open', () => {
+  it('is offered again to its uploader only, until it is saved', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const open = `/api/clients/${client.id}/roster/open-import`;
+    expect((await agent.get(open).expect(200)).body).toEqual({ draft: null });
+    const draft = await uploadRoster(
+      agent,
+      client.id,
+      `${header}\r\nAda,Pike,ap@hp.example,A-1\r\n`,
+    );
+    const again = await agent.get(open).expect(200);
+    expect(again.body.draft).toMatchObject({ id: draft.body.id, counts: draft.body.counts });
+
+    const colleague = await insertStaff(t.db, { role: 'coordinator', clientId: client.id });
+    const other = await signedInAgent(t, colleague.email);
+    expect((await other.get(open).expect(200)).body).toEqual({ draft: null });
+
+    await agent
+      .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
+      .send({ officeTimeZones: {} })
+      .expect(201);
+    expect((await agent.get(open).expect(200)).body).toEqual({ draft: null });
+  });
+});

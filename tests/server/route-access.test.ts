@@ -46,6 +46,7 @@ const expectedAccess: Record<string, readonly Role[] | 'public'> = {
   'GET /api/clients/:clientId/roster/imports/:importId/errors.csv': ['studio_admin', 'coordinator'],
   'POST /api/clients/:clientId/roster/imports/:importId/commit': ['studio_admin', 'coordinator'],
   'GET /api/clients/:clientId/roster/history': ['studio_admin', 'coordinator'],
+  'GET /api/clients/:clientId/roster/open-import': ['studio_admin', 'coordinator'],
   'GET /api/clients/:clientId/people': ['studio_admin', 'coordinator'],
   'GET /api/clients/:clientId/people/export.csv': ['studio_admin', 'coordinator'],
   'POST /api/clients/:clientId/people': ['studio_admin', 'coordinator'],

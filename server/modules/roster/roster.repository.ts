@@ -249,6 +249,24 @@ export async function findDraft(
   };
 }
 
+/** The uploader's own draft for the client still open, if any (an upload replaces the last). */
+export async function findOpenDraftId(
+  db: Db,
+  clientId: string,
+  uploaderId: string,
+): Promise<string | undefined> {
+  const row = await db
+    .selectFrom('rosterImportDrafts')
+    .select('id')
+    .where('clientId', '=', clientId)
+    .where('createdBy', '=', uploaderId)
+    .where('expiresAt', '>', sql<Date>`now()`)
+    .orderBy('createdAt', 'desc')
+    .limit(1)
+    .executeTakeFirst();
+  return row?.id;
+}
+
 /** The file's rows as uploaded: only remapping and the error download need them. */
 export async function loadRawRows(db: Db, draftId: string): Promise<string[][]> {
   const row = await db

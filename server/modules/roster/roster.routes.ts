@@ -105,6 +105,11 @@ export function registerRosterRoutes(routes: RouteTable, roster: RosterService) 
     res.status(replayed ? 200 : 201).json(summary);
   });
 
+  routes.add('get', '/clients/:clientId/roster/open-import', rosterRoles, async (req, res) => {
+    const clientId = parseId(req.params.clientId, 'That client');
+    res.json({ draft: await roster.openDraft(viewerOf(req), clientId) });
+  });
+
   routes.add('get', '/clients/:clientId/roster/history', rosterRoles, async (req, res) => {
     const clientId = parseId(req.params.clientId, 'That client');
     res.json({ imports: await roster.history(viewerOf(req), clientId) });

@@ -193,6 +193,14 @@ export function createRosterService(deps: { db: Db }) {
       return view(clientId, draft);
     },
 
+    /** The caller's own import of a file for this client not yet saved, to take up again. */
+    async openDraft(viewer: Viewer, clientId: string): Promise<RosterDraft | null> {
+      await assertClientAccess(db, viewer, clientId);
+      const draftId = await repo.findOpenDraftId(db, clientId, viewer.id);
+      const draft = draftId ? await repo.findDraft(db, clientId, draftId) : undefined;
+      return draft ? view(clientId, draft) : null;
+    },
+
     async get(viewer: Viewer, clientId: string, draftId: string) {
       await assertClientAccess(db, viewer, clientId);
       return view(clientId, await draftOf(clientId, draftId));

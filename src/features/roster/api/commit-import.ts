@@ -44,6 +44,8 @@ export function useCommitImport() {
         queryClient.invalidateQueries({ queryKey: ['people'] }),
         queryClient.invalidateQueries({ queryKey: ['clients'] }),
         queryClient.invalidateQueries({ queryKey: ['roster-history'] }),
+        // A saved import is no longer open.
+        queryClient.invalidateQueries({ queryKey: ['roster-open-import'] }),
       ]);
     },
   });

@@ -1,4 +1,4 @@
-import { useMutation } from '@tanstack/react-query';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { RosterDraft } from '../../../../server/schemas/roster';
 import { apiErrorSchema } from '../../../../server/schemas/common';
 import { ApiError } from '../../../lib/api-client';
@@ -49,4 +49,12 @@ export function uploadRoster({ clientId, file, onProgress }: UploadInput): Promi
   });
 }
 
-export const useUploadRoster = () => useMutation({ mutationFn: uploadRoster });
+export function useUploadRoster() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: uploadRoster,
+    // The new file replaces the uploader's open import.
+    onSuccess: (_draft, input) =>
+      queryClient.invalidateQueries({ queryKey: ['roster-open-import', input.clientId] }),
+  });
+}

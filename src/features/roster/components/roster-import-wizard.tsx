@@ -2,7 +2,9 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { ImportSummary, RosterDraft } from '../../../../server/schemas/roster';
 import { Card } from '../../../components/ui/card';
+import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { useOpenImport } from '../api/get-open-import';
 import { MappingStep } from './mapping-step';
 import { PreviewStep } from './preview-step';
 import { UploadStep } from './upload-step';
@@ -32,6 +34,43 @@ function summaryLine(summary: ImportSummary): string {
   return `${parts.join(', ')}.`;
 }
 
+/** A file uploaded earlier and not saved: straight back to its columns or its preview. */
+function OpenImport({
+  clientId,
+  onResume,
+}: {
+  clientId: string;
+  onResume: (draft: RosterDraft) => void;
+}) {
+  const open = useOpenImport(clientId);
+  const draft = open.data?.draft;
+  if (!draft) return null;
+  const until = new Date(draft.expiresAt).toLocaleString(undefined, {
+    dateStyle: 'medium',
+    timeStyle: 'short',
+  });
+  return (
+    <Notice tone="info">
+      <p>
+        Your import of {draft.fileName} ({draft.rowCount.toLocaleString()}{' '}
+        {draft.rowCount === 1 ? 'row' : 'rows'}) is not saved yet; it is kept until {until}.
+        Uploading another file replaces it.
+      </p>
+      <div className="mt-2">
+        <Button variant="secondary" onClick={() => onResume(draft)}>
+          Take up {draft.fileName} again
+        </Button>
+      </div>
+    </Notice>
+  );
+}
+
+/** Same columns as last time: straight to the preview ("Back to the columns" stays). */
+const firstStepOf = (draft: RosterDraft): Step =>
+  draft.mappingRemembered && draft.mappingProblems.length === 0
+    ? { name: 'preview', draft }
+    : { name: 'map', draft };
+
 /** Upload, map, preview, commit: nothing reaches the roster before the last step. */
 export function RosterImportWizard({ clientId }: { clientId: string }) {
   const [step, setStep] = useState<Step>({ name: 'upload' });
@@ -52,17 +91,10 @@ export function RosterImportWizard({ clientId }: { clientId: string }) {
       </ol>
       {step.name === 'upload' ? (
         <Card title={stepTitles[0]}>
-          <UploadStep
-            clientId={clientId}
-            onUploaded={(draft) =>
-              // Same columns as last time: straight to the preview ("Back to the columns" stays).
-              setStep(
-                draft.mappingRemembered && draft.mappingProblems.length === 0
-                  ? { name: 'preview', draft }
-                  : { name: 'map', draft },
-              )
-            }
-          />
+          <div className="flex flex-col gap-4">
+            <OpenImport clientId={clientId} onResume={(draft) => setStep(firstStepOf(draft))} />
+            <UploadStep clientId={clientId} onUploaded={(draft) => setStep(firstStepOf(draft))} />
+          </div>
         </Card>
       ) : null}
       {step.name === 'map' ? (

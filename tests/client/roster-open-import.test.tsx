@@ -1,0 +1,74 @@
+import { cleanup, fireEvent, screen } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import type { RosterDraft } from '../../server/schemas/roster';
+import { RosterImportWizard } from '../../src/features/roster/components/roster-import-wizard';
+import { renderWithProviders } from './render';
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+const draft: RosterDraft = {
+  id: '00000000-0000-4000-8000-000000000001',
+  fileName: 'staff.csv',
+  encoding: 'utf-8',
+  delimiter: ',',
+  rowCount: 2,
+  headers: ['First name', 'Last name', 'E-mail'],
+  guessedColumns: [],
+  sampleRows: [],
+  mapping: ['givenName', 'familyName', 'email'],
+  mappingProblems: [],
+  mappingRemembered: true,
+  counts: { add: 2, update: 0, conflict: 0, unchanged: 0, error: 0, missing: 0 },
+  rowsWithWarnings: 0,
+  newOffices: [],
+  knownOffices: [],
+  expiresAt: '2026-12-04T10:00:00.000Z',
+};
+
+const json = (body: unknown) =>
+  new Response(JSON.stringify(body), {
+    status: 200,
+    headers: { 'Content-Type': 'application/json' },
+  });
+
+function serve(open: RosterDraft | null) {
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async (url: string) =>
+      url.endsWith('/roster/open-import')
+        ? json({ draft: open })
+        : json({ rows: [], total: 0, page: 1, pageSize: 25 }),
+    ),
+  );
+}
+
+describe('an import left open', () => {
+  it('is offered on the upload step and taken up where its columns were', async () => {
+    serve(draft);
+    renderWithProviders(<RosterImportWizard clientId="c1" />);
+    fireEvent.click(await screen.findByRole('button', { name: 'Take up staff.csv again' }));
+    // The same columns as last time: straight to checking and confirming.
+    expect(
+      await screen.findByRole('button', { name: 'Save 2 changes to the roster' }),
+    ).toBeTruthy();
+    expect(screen.getByText('3. Check and confirm').getAttribute('aria-current')).toBe('step');
+  });
+
+  it('goes to the columns when they still need a choice, and says nothing when none is open', async () => {
+    serve({ ...draft, mappingRemembered: false });
+    renderWithProviders(<RosterImportWizard clientId="c1" />);
+    fireEvent.click(await screen.findByRole('button', { name: 'Take up staff.csv again' }));
+    expect((await screen.findByText('2. Match the columns')).getAttribute('aria-current')).toBe(
+      'step',
+    );
+    cleanup();
+    serve(null);
+    renderWithProviders(<RosterImportWizard clientId="c1" />);
+    await screen.findByText('Staff list (CSV file)');
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    expect(screen.queryByRole('button', { name: /Take up/ })).toBeNull();
+  });
+});
