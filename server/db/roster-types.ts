@@ -32,12 +32,12 @@ export interface RosterImportDraftsTable {
   expiresAt: ColumnType<Date, Date | string, Date | string>;
 }
 
-/** A cell decoding changed: control characters removed (row and column index from 0). */
-export interface DecodeWarning {
-  row: number;
-  column: number;
-  removed: number;
-}
+/**
+ * What decoding changed in a data row (row index from 0): control characters removed from a
+ * cell (column index from 0), or values past the header's last column left out.
+ */
+export type DecodeWarning =
+  { row: number; column: number; removed: number } | { row: number; beyondHeader: number };
 
 export interface RosterImportRowsTable {
   draftId: string;

@@ -287,3 +287,31 @@ describe('an import left open', () => {
     expect((await agent.get(open).expect(200)).body).toEqual({ draft: null });
   });
 });
+
+describe('values past the last named column', () => {
+  it('are left out with a warning on their row; empty trailing cells are not', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const file = [
+      header,
+      'Ada,Pike,ap@hp.example,A-1,Leeds,Design',
+      'Bo,Reed,br@hp.example,A-2,,',
+      'Cy,Lund,cl@hp.example,A-3',
+    ].join('\r\n');
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    expect(draft.body.rowsWithWarnings).toBe(1);
+    const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
+    const warned = await agent.get(`${imports}/rows?kind=warned`).expect(200);
+    expect(warned.body.rows).toHaveLength(1);
+    expect(warned.body.rows[0].rowNumber).toBe(2);
+    expect(warned.body.rows[0].warnings).toEqual({
+      'Past the last column':
+        '2 values past the last named column were left out. Name their columns in the header, or remove them.',
+    });
+    // A remap keeps the warning: it comes from the file, not from the columns chosen.
+    const remapped = await agent
+      .put(`${imports}/mapping`)
+      .send({ mapping: draft.body.mapping })
+      .expect(200);
+    expect(remapped.body.rowsWithWarnings).toBe(1);
+  });
+});

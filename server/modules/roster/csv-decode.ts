@@ -286,6 +286,12 @@ export function parseRosterText(
         warnings.push({ row: rows.length, column, removed: cleaned.removed });
       cells[column] = cleaned.value;
     }
+    // Trailing empty cells (a spreadsheet's stray separators) are nothing; values are.
+    let beyondHeader = 0;
+    for (let column = width; column < record.length; column += 1) {
+      if ((record[column] ?? '').trim() !== '') beyondHeader += 1;
+    }
+    if (beyondHeader > 0) warnings.push({ row: rows.length, beyondHeader });
     rows.push(cells);
     rowNumbers.push(rowNumber);
   }

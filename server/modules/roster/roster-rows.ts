@@ -91,6 +91,9 @@ function columnsOf(mapping: ColumnMapping) {
   return { fieldColumns, extraColumns };
 }
 
+/** The warnings' key for values the header gives no column to (the preview shows it as is). */
+export const beyondHeaderKey = 'Past the last column';
+
 /** Decoding's warnings by row index, worded per field or extra column. */
 function warningsByRow(
   headers: readonly string[],
@@ -99,6 +102,15 @@ function warningsByRow(
 ) {
   const byRow = new Map<number, Record<string, string>>();
   for (const warning of decodeWarnings) {
+    if ('beyondHeader' in warning) {
+      const entry = byRow.get(warning.row) ?? {};
+      entry[beyondHeaderKey] =
+        warning.beyondHeader === 1
+          ? 'A value past the last named column was left out. Name its column in the header, or remove it.'
+          : `${warning.beyondHeader} values past the last named column were left out. Name their columns in the header, or remove them.`;
+      byRow.set(warning.row, entry);
+      continue;
+    }
     const target = mapping[warning.column];
     if (!target || target === 'ignore') continue;
     const key =

@@ -130,7 +130,7 @@ export function PreviewStep({
           {draft.rowsWithWarnings === 1
             ? '1 row comes with a warning'
             : `${draft.rowsWithWarnings.toLocaleString()} rows come with a warning`}{' '}
-          (a stored name kept, or characters removed).{' '}
+          (a stored name kept, characters removed, or values past the last column left out).{' '}
           <button
             type="button"
             className="min-h-touch font-medium underline"
