@@ -131,7 +131,7 @@ describe('roster import in the browser', () => {
     // Nobody is marked inactive unless asked; ticking the box shows who.
     const deactivate = page.getByLabel(/Mark the 1 people who are not in this file as inactive/);
     expect(await deactivate.isChecked()).toBe(false);
-    await page.getByRole('button', { name: 'Save 1 changes to the roster' }).waitFor();
+    await page.getByRole('button', { name: 'Save 1 change to the roster' }).waitFor();
     expect(await page.getByRole('table', { name: 'People to mark inactive' }).count()).toBe(0);
     await deactivate.check();
     await page
