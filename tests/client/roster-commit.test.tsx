@@ -102,8 +102,7 @@ describe('saving a roster import (issue 14, item 2)', () => {
           return json(409, {
             error: {
               code: 'roster_changed',
-              message:
-                'The roster changed since this preview. Check the preview again, then confirm.',
+              message: 'The roster changed since this preview. Check the rows again, then confirm.',
             },
           });
         if (url.endsWith('/mapping')) return json(200, rechecked);

@@ -49,7 +49,7 @@ describe('an import left open', () => {
   it('is offered on the upload step and taken up where its columns were', async () => {
     serve(draft);
     renderWithProviders(<RosterImportWizard clientId="c1" />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Take up staff.csv again' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Continue with staff.csv' }));
     // The same columns as last time: straight to checking and confirming.
     expect(
       await screen.findByRole('button', { name: 'Save 2 changes to the roster' }),
@@ -60,7 +60,7 @@ describe('an import left open', () => {
   it('goes to the columns when they still need a choice, and says nothing when none is open', async () => {
     serve({ ...draft, mappingRemembered: false });
     renderWithProviders(<RosterImportWizard clientId="c1" />);
-    fireEvent.click(await screen.findByRole('button', { name: 'Take up staff.csv again' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Continue with staff.csv' }));
     expect((await screen.findByText('2. Match the columns')).getAttribute('aria-current')).toBe(
       'step',
     );
@@ -69,6 +69,6 @@ describe('an import left open', () => {
     renderWithProviders(<RosterImportWizard clientId="c1" />);
     await screen.findByText('Staff list (CSV file)');
     await new Promise((resolve) => setTimeout(resolve, 50));
-    expect(screen.queryByRole('button', { name: /Take up/ })).toBeNull();
+    expect(screen.queryByRole('button', { name: /Continue with/ })).toBeNull();
   });
 });

@@ -205,7 +205,9 @@ describe('an import replaced by a newer upload', () => {
       .post(`/api/clients/${client.id}/roster/imports/${first.body.id}/commit`)
       .send({ officeTimeZones: {} })
       .expect(404);
-    expect(response.body.error.message).toMatch(/no longer open: a newer upload of yours/);
+    expect(response.body.error.message).toMatch(
+      /no longer open: it was saved, replaced by a newer upload of yours/,
+    );
     expect(await people(client.id)).toEqual([]);
   });
 });
@@ -305,7 +307,7 @@ describe('values past the last named column', () => {
     expect(warned.body.rows[0].rowNumber).toBe(2);
     expect(warned.body.rows[0].warnings).toEqual({
       'Past the last column':
-        '2 values past the last named column were left out. Name their columns in the header, or remove them.',
+        '2 values were left out: the header has no columns for them. Add column names to the header, or remove the values.',
     });
     // A remap keeps the warning: it comes from the file, not from the columns chosen.
     const remapped = await agent
@@ -313,5 +315,33 @@ describe('values past the last named column', () => {
       .send({ mapping: draft.body.mapping })
       .expect(200);
     expect(remapped.body.rowsWithWarnings).toBe(1);
+  });
+});
+
+describe('the rows to fix, uploaded again unedited', () => {
+  it('are ignored in their reasons column, and their own rows to fix hold one such column', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const first = await uploadRoster(agent, client.id, `${header}\r\nBo,Reed,bad-email,A-2\r\n`);
+    const fix = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${first.body.id}/errors.csv`)
+      .buffer(true)
+      .parse(binaryBody)
+      .expect(200);
+    const again = await uploadRoster(agent, client.id, fix.body as Buffer).expect(201);
+    expect(again.body.headers.at(-1)).toBe('What to fix');
+    expect(again.body.mapping.at(-1)).toBe('ignore');
+    const fixAgain = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${again.body.id}/errors.csv`)
+      .buffer(true)
+      .parse(binaryBody)
+      .expect(200);
+    const lines = (fixAgain.body as Buffer)
+      .toString('utf8')
+      .replace(/^\uFEFF/, '')
+      .split('\r\n');
+    expect(lines.slice(0, 2)).toEqual([
+      'First name,Last name,E-mail,Employee id,What to fix',
+      'Bo,Reed,bad-email,A-2,"Enter a valid e-mail address, like name@example.com."',
+    ]);
   });
 });

@@ -22,6 +22,10 @@ describe('control characters in cells (issue 14, item 1)', () => {
     expect(cleanCell('Marine \u000c\u001e Works')).toEqual({ value: 'Marine Works', removed: 2 });
     expect(cleanCell('\u000bDesign\u001f')).toEqual({ value: 'Design', removed: 2 });
     expect(cleanCell('Jo\u0000hn')).toEqual({ value: 'John', removed: 1 });
+    // NUL and the like go first, so they neither make nor keep a space.
+    expect(cleanCell('\u0000\u000bBo')).toEqual({ value: 'Bo', removed: 2 });
+    expect(cleanCell('Ada \u0000\u000b Pike')).toEqual({ value: 'Ada Pike', removed: 2 });
+    expect(cleanCell('\u001c\u001cBo\u001d')).toEqual({ value: 'Bo', removed: 3 });
     expect(cleanCell('two\r\nlines\tand a tab')).toEqual({
       value: 'two\r\nlines\tand a tab',
       removed: 0,

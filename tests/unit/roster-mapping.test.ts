@@ -47,6 +47,11 @@ describe('suggesting a column mapping', () => {
       'email',
       'ignore',
     ]);
+    // Even where an earlier import kept it as an extra column.
+    expect(suggestMapping(['E-mail', 'What to fix'], { 'what to fix': 'extra' })).toEqual([
+      'email',
+      'ignore',
+    ]);
   });
 
   it('gives a field to the first column that claims it only', () => {

@@ -14,14 +14,15 @@ export function normaliseHeader(header: string): string {
     .trim();
 }
 
-/** The column the rows-to-fix download adds: what is wrong with the row, not a field. */
+/**
+ * The column the rows-to-fix download adds: what is wrong with the row, not a field. That file
+ * is made to be corrected and uploaded again, so the column is always ignored.
+ */
 export const fixColumnHeader = 'What to fix';
 
-/**
- * Columns our own files write that are not data to keep: the export's status, and the
- * rows-to-fix file's reasons (that file is made to be corrected and uploaded again).
- */
-const ignored = ['status', 'active', normaliseHeader(fixColumnHeader)];
+/** Columns our own export writes that are not data to keep (the rows-to-fix file's: above). */
+const fixColumnKey = normaliseHeader(fixColumnHeader);
+const ignored = ['status', 'active'];
 
 const lookup = new Map<string, RosterField>();
 for (const [field, words] of Object.entries(headerSynonyms) as [RosterField, string[]][]) {
@@ -74,7 +75,8 @@ export function suggestMapping(
   headers.forEach((header, index) => {
     const key = normaliseHeader(header);
     let target: ColumnTarget;
-    if (key === '') target = 'ignore';
+    // The rows-to-fix reasons are never data, whatever an earlier import chose for them.
+    if (key === '' || key === fixColumnKey) target = 'ignore';
     else if (saved[key]) target = saved[key];
     else if (ignored.includes(key)) target = 'ignore';
     else target = fieldOfHeader(key) ?? 'extra';

@@ -27,7 +27,7 @@ export interface ParsedRosterFile {
    * count); null when that is simply its index plus 2.
    */
   rowNumbers: number[] | null;
-  /** Cells from which control characters were removed. */
+  /** Cells from which control characters were removed; rows with values past the header. */
   warnings: DecodeWarning[];
 }
 
@@ -163,9 +163,13 @@ const anyControlCharacter = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009
  * The separators among them (vertical tab, form feed, the four information separators, next
  * line): spreadsheets and old exports put them where a line break or a space was, so between
  * words they leave one space ("Marine<VT>Works" is "Marine Works", not a new "MarineWorks").
+ * The others (NUL and the like) stand for nothing and go first.
  */
 // eslint-disable-next-line no-control-regex -- matching control characters is the point
-const separatingControls = /(?<=\S) *[\u000b\u000c\u001c-\u001f\u0085]+ *(?=\S)/g;
+const otherControls = /[\u0000-\u0008\u000e-\u001b\u007f-\u0084\u0086-\u009f]/g;
+const separatorsBetweenWords =
+  // eslint-disable-next-line no-control-regex -- matching control characters is the point
+  /(?<=[^\s\u001c-\u001f\u0085]) *[\u000b\u000c\u001c-\u001f\u0085]+ *(?=[^\s\u001c-\u001f\u0085])/g;
 
 /** The cell without control characters, and how many were removed. */
 export function cleanCell(cell: string): { value: string; removed: number } {
@@ -175,7 +179,11 @@ export function cleanCell(cell: string): { value: string; removed: number } {
     for (const char of match) if (char !== ' ') removed += 1;
   };
   const value = cell
-    .replace(separatingControls, (match) => {
+    .replace(otherControls, (match) => {
+      count(match);
+      return '';
+    })
+    .replace(separatorsBetweenWords, (match) => {
       count(match);
       return ' ';
     })

@@ -9,7 +9,7 @@ import {
 } from '../../schemas/roster';
 
 export interface CheckedRow {
-  /** Line of the record in the file, counting the header as row 1. */
+  /** The record's row as a spreadsheet shows it: the header is row 1, blank lines count. */
   rowNumber: number;
   /** Trimmed, case-folded values when valid; the raw cells otherwise. */
   values: Partial<Record<RosterField, string | null>>;
@@ -94,7 +94,10 @@ function columnsOf(mapping: ColumnMapping) {
 /** The warnings' key for values the header gives no column to (the preview shows it as is). */
 export const beyondHeaderKey = 'Past the last column';
 
-/** Decoding's warnings by row index, worded per field or extra column. */
+/**
+ * Decoding's warnings by row index: removed control characters per field or extra column (none
+ * for an ignored column), values past the header's last column per row.
+ */
 function warningsByRow(
   headers: readonly string[],
   mapping: ColumnMapping,
@@ -106,8 +109,8 @@ function warningsByRow(
       const entry = byRow.get(warning.row) ?? {};
       entry[beyondHeaderKey] =
         warning.beyondHeader === 1
-          ? 'A value past the last named column was left out. Name its column in the header, or remove it.'
-          : `${warning.beyondHeader} values past the last named column were left out. Name their columns in the header, or remove them.`;
+          ? '1 value was left out: the header has no column for it. Add a column name to the header, or remove the value.'
+          : `${warning.beyondHeader} values were left out: the header has no columns for them. Add column names to the header, or remove the values.`;
       byRow.set(warning.row, entry);
       continue;
     }

@@ -38,14 +38,14 @@ export type RosterService = ReturnType<typeof createRosterService>;
 const draftLifetimeMs = 24 * 60 * 60 * 1000;
 
 /**
- * A draft ends when its uploader sends a newer file for the client, or when it expires (a saved
- * one answers with its import).
+ * A draft ends when it is saved (asking to save it again answers with its import), when its
+ * uploader sends a newer file for the client, or when it expires.
  */
 const draftGone = () =>
   new AppError(
     'not_found',
     404,
-    'This import is no longer open: a newer upload of yours for this client replaces it, and an import is kept for 24 hours. Upload the file again.',
+    'This import is no longer open: it was saved, replaced by a newer upload of yours, or kept past its 24 hours. See the earlier imports below, or upload the file again.',
   );
 
 export function mappingProblems(mapping: ColumnMapping): string[] {
@@ -258,12 +258,20 @@ export function createRosterService(deps: { db: Db }) {
       const draft = await draftOf(clientId, draftId);
       const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error', 'conflict']);
       const rawRows = await repo.loadRawRows(db, draftId);
-      const records = errors.map((row) => [
+      // A rows-to-fix file uploaded again has the column already: its reasons are replaced.
+      const fixColumn = draft.headers.findIndex(
+        (header) => normaliseHeader(header) === normaliseHeader(fixColumnHeader),
+      );
+      const headers = fixColumn >= 0 ? draft.headers : [...draft.headers, fixColumnHeader];
+      const records = errors.map((row) => {
         // Positions count the file's rows from 1, in order (the missing people come after).
-        ...(rawRows[row.position - 1] ?? []),
-        Object.values(row.errors).join(' '),
-      ]);
-      return rowsToFixFile([[...draft.headers, fixColumnHeader], ...records], draft);
+        const cells = [...(rawRows[row.position - 1] ?? [])];
+        cells[fixColumn >= 0 ? fixColumn : draft.headers.length] = Object.values(row.errors).join(
+          ' ',
+        );
+        return cells;
+      });
+      return rowsToFixFile([headers, ...records], draft);
     },
 
     /**
@@ -299,7 +307,7 @@ export function createRosterService(deps: { db: Db }) {
           throw new AppError(
             'roster_changed',
             409,
-            'The roster changed since this preview. Check the preview again, then confirm.',
+            'The roster changed since this preview. Check the rows again, then confirm.',
           );
         }
         const result = await applyImport(trx, clientId, draft, input);

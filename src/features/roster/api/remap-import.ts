@@ -12,8 +12,11 @@ export function useRemapImport() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: remapImport,
-    // The preview rows of this draft changed.
+    // The preview rows of this draft changed, and so did the open import offered again.
     onSuccess: (_draft, input) =>
-      queryClient.invalidateQueries({ queryKey: ['roster-preview', input.draftId] }),
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: ['roster-preview', input.draftId] }),
+        queryClient.invalidateQueries({ queryKey: ['roster-open-import', input.clientId] }),
+      ]),
   });
 }

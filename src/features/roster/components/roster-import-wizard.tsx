@@ -58,7 +58,7 @@ function OpenImport({
       </p>
       <div className="mt-2">
         <Button variant="secondary" onClick={() => onResume(draft)}>
-          Take up {draft.fileName} again
+          Continue with {draft.fileName}
         </Button>
       </div>
     </Notice>
