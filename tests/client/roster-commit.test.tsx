@@ -3,30 +3,14 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { ImportSummary, RosterDraft } from '../../server/schemas/roster';
 import { PreviewStep } from '../../src/features/roster/components/preview-step';
 import { renderWithProviders } from './render';
+import { jsonResponse, sampleDraft } from './roster-fixtures';
 
 afterEach(() => {
   cleanup();
   vi.unstubAllGlobals();
 });
 
-const draft: RosterDraft = {
-  id: '00000000-0000-4000-8000-000000000001',
-  fileName: 'staff.csv',
-  encoding: 'utf-8',
-  delimiter: ',',
-  rowCount: 2,
-  headers: ['First name', 'Last name', 'E-mail'],
-  guessedColumns: [],
-  sampleRows: [],
-  mapping: ['givenName', 'familyName', 'email'],
-  mappingProblems: [],
-  mappingRemembered: true,
-  counts: { add: 2, update: 0, conflict: 0, unchanged: 0, error: 0, missing: 1 },
-  rowsWithWarnings: 0,
-  newOffices: [],
-  knownOffices: [],
-  expiresAt: '2026-12-03T10:00:00.000Z',
-};
+const draft = sampleDraft;
 
 const summary: ImportSummary = {
   id: '00000000-0000-4000-8000-000000000002',
@@ -41,8 +25,7 @@ const summary: ImportSummary = {
   officesCreated: 0,
 };
 
-const json = (status: number, body: unknown) =>
-  new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+const json = jsonResponse;
 
 describe('saving a roster import (issue 14, item 2)', () => {
   it('says the import is being saved while another request saves it, then shows its result', async () => {

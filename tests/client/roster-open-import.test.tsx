@@ -3,36 +3,20 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { RosterDraft } from '../../server/schemas/roster';
 import { RosterImportWizard } from '../../src/features/roster/components/roster-import-wizard';
 import { renderWithProviders } from './render';
+import { jsonResponse, sampleDraft } from './roster-fixtures';
 
 afterEach(() => {
   cleanup();
   vi.unstubAllGlobals();
 });
 
+// Nobody missing: the save counts only the two to add.
 const draft: RosterDraft = {
-  id: '00000000-0000-4000-8000-000000000001',
-  fileName: 'staff.csv',
-  encoding: 'utf-8',
-  delimiter: ',',
-  rowCount: 2,
-  headers: ['First name', 'Last name', 'E-mail'],
-  guessedColumns: [],
-  sampleRows: [],
-  mapping: ['givenName', 'familyName', 'email'],
-  mappingProblems: [],
-  mappingRemembered: true,
-  counts: { add: 2, update: 0, conflict: 0, unchanged: 0, error: 0, missing: 0 },
-  rowsWithWarnings: 0,
-  newOffices: [],
-  knownOffices: [],
-  expiresAt: '2026-12-04T10:00:00.000Z',
+  ...sampleDraft,
+  counts: { ...sampleDraft.counts, missing: 0 },
 };
 
-const json = (body: unknown) =>
-  new Response(JSON.stringify(body), {
-    status: 200,
-    headers: { 'Content-Type': 'application/json' },
-  });
+const json = (body: unknown) => jsonResponse(200, body);
 
 function serve(open: RosterDraft | null) {
   vi.stubGlobal(

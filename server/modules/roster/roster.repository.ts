@@ -277,24 +277,20 @@ export async function loadRawRows(db: Db, draftId: string): Promise<string[][]> 
   return row.rawRows;
 }
 
-/** Each row's row in the file, when blank lines shifted them (see ParsedRosterFile). */
-export async function loadRowNumbers(db: Db, draftId: string): Promise<number[] | null> {
+/**
+ * What a remap checks again: the file's rows, what decoding changed in them, and their rows in
+ * the file when blank lines shifted them (see ParsedRosterFile).
+ */
+export async function loadFileForRemap(
+  db: Db,
+  draftId: string,
+): Promise<{ rawRows: string[][]; warnings: DecodeWarning[]; rowNumbers: number[] | null }> {
   const row = await db
     .selectFrom('rosterImportDrafts')
-    .select('rowNumbers')
+    .select(['rawRows', 'decodeWarnings', 'rowNumbers'])
     .where('id', '=', draftId)
     .executeTakeFirstOrThrow();
-  return row.rowNumbers;
-}
-
-/** What decoding removed from cells, for the preview's warnings after a remap. */
-export async function loadDecodeWarnings(db: Db, draftId: string): Promise<DecodeWarning[]> {
-  const row = await db
-    .selectFrom('rosterImportDrafts')
-    .select('decodeWarnings')
-    .where('id', '=', draftId)
-    .executeTakeFirstOrThrow();
-  return row.decodeWarnings;
+  return { rawRows: row.rawRows, warnings: row.decodeWarnings, rowNumbers: row.rowNumbers };
 }
 
 export async function deleteDraft(db: Db, draftId: string) {

@@ -212,11 +212,7 @@ export function createRosterService(deps: { db: Db }) {
       if (mapping.length !== draft.headers.length) {
         throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
       }
-      const [rawRows, warnings, rowNumbers] = await Promise.all([
-        repo.loadRawRows(db, draftId),
-        repo.loadDecodeWarnings(db, draftId),
-        repo.loadRowNumbers(db, draftId),
-      ]);
+      const { rawRows, warnings, rowNumbers } = await repo.loadFileForRemap(db, draftId);
       const preview = await computePreview(
         db,
         clientId,
