@@ -46,6 +46,14 @@ export function preparingPool(
   }
 
   function wrap(client: pg.PoolClient): PostgresPoolClient {
+    // pg-pool listens for a connection's errors only while it is idle. Cut while checked out
+    // between two statements of a transaction (a restart, an outage), the connection would
+    // raise an 'error' nobody hears and end the process; heard here, the next statement fails
+    // instead ("Client has encountered a connection error"), which answers 503.
+    const lost = (error: Error) => {
+      process.emitWarning(`PostgreSQL connection lost while in use: ${error.message}`);
+    };
+    client.on('error', lost);
     async function run(text: string, values: ReadonlyArray<unknown>) {
       if (values.length === 1 && values[0] instanceof CopyPayload)
         return runCopy(client, values[0]);
@@ -67,7 +75,10 @@ export function preparingPool(
         typeof text === 'string'
           ? run(text, values ?? [])
           : client.query(text as never)) as unknown as PostgresPoolClient['query'],
-      release: (destroy?: boolean) => client.release(destroy),
+      release: (destroy?: boolean) => {
+        client.removeListener('error', lost);
+        client.release(destroy);
+      },
     };
   }
 
