@@ -2,6 +2,7 @@ import { sql } from 'kysely';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDatabase, type Db } from '../../server/db/database';
+import { createCrossProcessUploadLocker } from '../../server/modules/frames/upload-locker';
 import { isDatabaseUnavailable } from '../../server/lib/database-unavailable';
 import { createTestDatabase, type TestDatabase } from '../setup/test-database';
 
@@ -51,6 +52,30 @@ describe('a connection cut while a transaction holds it', () => {
       expect(rows).toEqual([{ one: 1 }]);
     } finally {
       process.off('warning', onWarning);
+      await admin.end();
+    }
+  });
+
+  it('an upload lock cut while held ends only its lock; the next upload locks again', async () => {
+    const admin = new pg.Client({ connectionString: database.url });
+    await admin.connect();
+    const locker = createCrossProcessUploadLocker(database.url);
+    try {
+      const lock = locker.newLock('card-1/frame-0001');
+      await lock.lock(new AbortController().signal, () => undefined);
+      // The lock's session, found by its advisory lock (class 7301, two-key form).
+      const { rows } = await admin.query<{ pid: number }>(
+        `select pid from pg_locks where locktype = 'advisory' and classid = 7301 and granted`,
+      );
+      expect(rows).toHaveLength(1);
+      await admin.query('select pg_terminate_backend($1)', [rows[0]?.pid]);
+      await new Promise((resolve) => setTimeout(resolve, 200));
+      await lock.unlock();
+      const again = locker.newLock('card-1/frame-0001');
+      await again.lock(new AbortController().signal, () => undefined);
+      await again.unlock();
+    } finally {
+      await locker.close();
       await admin.end();
     }
   });

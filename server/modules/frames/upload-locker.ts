@@ -8,6 +8,11 @@ const RETRY_MS = 100;
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
+// pg-pool hears a connection's errors only while it is idle; a lock connection is checked out
+// for as long as its upload writes. Cut then (a restart), its 'error' must not end the process:
+// the lock went with the session, and unlock finds the connection gone.
+const ignoreLost = () => undefined;
+
 /**
  * tus locks an upload while one request writes to it. Its own locker lives in one process's
  * memory; with several web processes a camera card resumed on another process must wait for
@@ -34,6 +39,7 @@ export function createCrossProcessUploadLocker(
           const startedAt = Date.now();
           await local.lock(signal, requestRelease);
           const client = await pool.connect();
+          client.on('error', ignoreLost);
           try {
             while (!signal.aborted && Date.now() - startedAt < timeoutMs) {
               const { rows } = await client.query<{ locked: boolean }>(
@@ -47,10 +53,12 @@ export function createCrossProcessUploadLocker(
               await sleep(RETRY_MS);
             }
           } catch (error) {
+            client.removeListener('error', ignoreLost);
             client.release(true);
             await local.unlock();
             throw error;
           }
+          client.removeListener('error', ignoreLost);
           client.release();
           await local.unlock();
           throw ERRORS.ERR_LOCK_TIMEOUT;
@@ -64,10 +72,12 @@ export function createCrossProcessUploadLocker(
                 UPLOAD_LOCK_CLASS,
                 id,
               ]);
+              client.removeListener('error', ignoreLost);
               client.release();
             }
           } catch {
             // The session is gone, and PostgreSQL released its lock with it.
+            client?.removeListener('error', ignoreLost);
             client?.release(true);
           } finally {
             await local.unlock();
