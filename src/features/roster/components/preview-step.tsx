@@ -8,6 +8,7 @@ import {
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
+import { plural } from '../../../lib/format';
 import { useCommitImport } from '../api/commit-import';
 import { useRemapImport } from '../api/remap-import';
 import { OfficeTimeZones, guessTimeZone } from './office-time-zones';
@@ -112,9 +113,8 @@ export function PreviewStep({
       </div>
       {counts.error > 0 ? (
         <Notice tone="caution">
-          {counts.error === 1
-            ? '1 row has problems and will be left out.'
-            : `${counts.error.toLocaleString()} rows have problems and will be left out.`}{' '}
+          {plural(counts.error, 'row')} {counts.error === 1 ? 'has' : 'have'} problems and will be
+          left out.{' '}
           <a
             className="font-medium underline"
             href={`/api/clients/${clientId}/roster/imports/${draft.id}/errors.csv`}
@@ -230,11 +230,7 @@ export function PreviewStep({
           busy={commit.isPending}
           disabled={changes === 0 && draft.newOffices.length === 0}
         >
-          {changes === 0
-            ? 'Nothing to change'
-            : changes === 1
-              ? 'Save 1 change to the roster'
-              : `Save ${changes.toLocaleString()} changes to the roster`}
+          {changes === 0 ? 'Nothing to change' : `Save ${plural(changes, 'change')} to the roster`}
         </Button>
         <Button variant="secondary" onClick={onBack} disabled={commit.isPending}>
           Back to the columns

@@ -4,6 +4,7 @@ import type { ImportSummary, RosterDraft } from '../../../../server/schemas/rost
 import { Card } from '../../../components/ui/card';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { formatDateTime, plural } from '../../../lib/format';
 import { useOpenImport } from '../api/get-open-import';
 import { MappingStep } from './mapping-step';
 import { PreviewStep } from './preview-step';
@@ -18,19 +19,15 @@ type Step =
 
 const stepTitles = ['Upload the file', 'Match the columns', 'Check and confirm'];
 
-const counted = (count: number, one: string, many = `${one}s`) =>
-  `${count.toLocaleString()} ${count === 1 ? one : many}`;
-
 /** "1,200 added, 3 updated, …": what the commit wrote, in the preview's number format. */
 function summaryLine(summary: ImportSummary): string {
   const parts = [
     `${summary.added.toLocaleString()} added`,
     `${summary.updated.toLocaleString()} updated`,
     `${summary.deactivated.toLocaleString()} marked inactive`,
-    `${counted(summary.skipped, 'row')} left out`,
+    `${plural(summary.skipped, 'row')} left out`,
   ];
-  if (summary.officesCreated > 0)
-    parts.push(`${counted(summary.officesCreated, 'office')} created`);
+  if (summary.officesCreated > 0) parts.push(`${plural(summary.officesCreated, 'office')} created`);
   return `${parts.join(', ')}.`;
 }
 
@@ -45,16 +42,11 @@ function OpenImport({
   const open = useOpenImport(clientId);
   const draft = open.data?.draft;
   if (!draft) return null;
-  const until = new Date(draft.expiresAt).toLocaleString(undefined, {
-    dateStyle: 'medium',
-    timeStyle: 'short',
-  });
   return (
     <Notice tone="info">
       <p>
-        Your import of {draft.fileName} ({draft.rowCount.toLocaleString()}{' '}
-        {draft.rowCount === 1 ? 'row' : 'rows'}) is not saved yet; it is kept until {until}.
-        Uploading another file replaces it.
+        Your import of {draft.fileName} ({plural(draft.rowCount, 'row')}) is not saved yet; it is
+        kept until {formatDateTime(draft.expiresAt)}. Uploading another file replaces it.
       </p>
       <div className="mt-2">
         <Button variant="secondary" onClick={() => onResume(draft)}>
