@@ -13,6 +13,11 @@ const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 // the lock went with the session, and unlock finds the connection gone.
 const ignoreLost = () => undefined;
 
+function releaseLockConnection(client: pg.PoolClient, destroy = false) {
+  client.removeListener('error', ignoreLost);
+  client.release(destroy);
+}
+
 /**
  * tus locks an upload while one request writes to it. Its own locker lives in one process's
  * memory; with several web processes a camera card resumed on another process must wait for
@@ -53,13 +58,11 @@ export function createCrossProcessUploadLocker(
               await sleep(RETRY_MS);
             }
           } catch (error) {
-            client.removeListener('error', ignoreLost);
-            client.release(true);
+            releaseLockConnection(client, true);
             await local.unlock();
             throw error;
           }
-          client.removeListener('error', ignoreLost);
-          client.release();
+          releaseLockConnection(client);
           await local.unlock();
           throw ERRORS.ERR_LOCK_TIMEOUT;
         },
@@ -72,13 +75,11 @@ export function createCrossProcessUploadLocker(
                 UPLOAD_LOCK_CLASS,
                 id,
               ]);
-              client.removeListener('error', ignoreLost);
-              client.release();
+              releaseLockConnection(client);
             }
           } catch {
             // The session is gone, and PostgreSQL released its lock with it.
-            client?.removeListener('error', ignoreLost);
-            client?.release(true);
+            if (client) releaseLockConnection(client, true);
           } finally {
             await local.unlock();
           }

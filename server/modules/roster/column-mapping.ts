@@ -19,9 +19,10 @@ export function normaliseHeader(header: string): string {
  * is made to be corrected and uploaded again, so the column is always ignored.
  */
 export const fixColumnHeader = 'What to fix';
-
-/** Columns our own export writes that are not data to keep (the rows-to-fix file's: above). */
 const fixColumnKey = normaliseHeader(fixColumnHeader);
+export const isFixColumn = (header: string) => normaliseHeader(header) === fixColumnKey;
+
+/** Columns our own export writes that are not data to keep. */
 const ignored = ['status', 'active'];
 
 const lookup = new Map<string, RosterField>();
@@ -76,7 +77,7 @@ export function suggestMapping(
     const key = normaliseHeader(header);
     let target: ColumnTarget;
     // The rows-to-fix reasons are never data, whatever an earlier import chose for them.
-    if (key === '' || key === fixColumnKey) target = 'ignore';
+    if (key === '' || isFixColumn(header)) target = 'ignore';
     else if (saved[key]) target = saved[key];
     else if (ignored.includes(key)) target = 'ignore';
     else target = fieldOfHeader(key) ?? 'extra';

@@ -19,6 +19,7 @@ import {
 import { assertClientAccess } from './client-access';
 import {
   fixColumnHeader,
+  isFixColumn,
   mappingToRemember,
   normaliseHeader,
   suggestMapping,
@@ -255,9 +256,7 @@ export function createRosterService(deps: { db: Db }) {
       const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error', 'conflict']);
       const rawRows = await repo.loadRawRows(db, draftId);
       // A rows-to-fix file uploaded again has the column already: its reasons are replaced.
-      const fixColumn = draft.headers.findIndex(
-        (header) => normaliseHeader(header) === normaliseHeader(fixColumnHeader),
-      );
+      const fixColumn = draft.headers.findIndex(isFixColumn);
       const headers = fixColumn >= 0 ? draft.headers : [...draft.headers, fixColumnHeader];
       const records = errors.map((row) => {
         // Positions count the file's rows from 1, in order (the missing people come after).
