@@ -36,8 +36,6 @@ function extrasOf(headers: readonly string[], cells: readonly string[], columns:
 
 type FieldOutcome = string | null | { message: string };
 
-const required = new Set<RosterField>(['givenName', 'familyName']);
-
 /**
  * The cells rosterRowSchema plainly accepts, told without zod: a cell whose trimmed text is
  * within personTextLimit in UTF-16 units (never more lenient than zod's code points: a longer
@@ -57,7 +55,8 @@ function plainAcceptor(
       return z.regexes.email.test(value) ? value : undefined;
     };
   }
-  const min = required.has(field) ? 1 : 0;
+  // Required or not as the schema says: an optional field takes a blank cell.
+  const min = rosterRowSchema.shape[field].safeParse('').success ? 0 : 1;
   return (cell) => {
     if (cell === undefined) return min === 0 ? null : undefined;
     const value = cell.trim();
