@@ -278,6 +278,16 @@ function cases(): Case[] {
           .send({ mapping: [NUL] }),
       field: 'mapping.0',
     },
+    {
+      name: 'open import, a NUL for the client id',
+      who: 'coordinator',
+      send: (a) => a.get('/api/clients/%00/roster/open-import'),
+    },
+    {
+      name: 'open import, a huge string for the client id',
+      who: 'coordinator',
+      send: (a) => a.get(`/api/clients/${'x'.repeat(5000)}/roster/open-import`),
+    },
     // Days and bookings
     {
       name: 'new day, NUL in the address',
