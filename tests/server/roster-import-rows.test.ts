@@ -215,7 +215,8 @@ describe('an import replaced by a newer upload', () => {
 describe('blank lines in the file', () => {
   it('leave every row numbered as a spreadsheet shows it, after a remap and in the rows to fix', async () => {
     const { client, agent } = await coordinatorOfNewClient();
-    // Rows 1 to 7 as a spreadsheet numbers them: 3 and 4 are blank, the quoted cell of row 6
+    // Rows 1 to 7 as a spreadsheet numbers them (common practice: one row per RFC 4180 record,
+    // blank records included): 3 and 4 are blank, the quoted cell of row 6
     // spans two lines of text but is one row.
     const file = [
       header,

@@ -17,7 +17,9 @@ describe('control characters in cells (issue 14, item 1)', () => {
   it('removes NUL, other C0 controls, DEL and C1, keeping tab and line breaks', () => {
     expect(cleanCell('A\u0000d\u0007a\u007f\u0085')).toEqual({ value: 'Ada', removed: 4 });
     // A separator between words (vertical tab, form feed, the information separators, next
-    // line) stands where a space or line break was: it leaves one space.
+    // line; their names and code points as in ECMA-48 / ISO 6429's C0 and C1 sets, from
+    // memory) stands where a space or line break was: it leaves one space (common practice of
+    // spreadsheet exports, which write a cell's line break as a vertical tab).
     expect(cleanCell('Marine\u000bWorks')).toEqual({ value: 'Marine Works', removed: 1 });
     expect(cleanCell('Marine \u000c\u001e Works')).toEqual({ value: 'Marine Works', removed: 2 });
     expect(cleanCell('\u000bDesign\u001f')).toEqual({ value: 'Design', removed: 2 });
