@@ -258,6 +258,26 @@ describe('blank lines in the file', () => {
     ]);
   });
 
+  it('before the header are passed over, and the rows under it keep their spreadsheet numbers', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    // Rows 1 and 2 blank (one of them only separators), the header on row 3 (common practice:
+    // one spreadsheet row per RFC 4180 record, blank records included).
+    const file = ['', ',,,', header, 'Ada,Pike,ap@hp.example,A-1', 'Bo,Reed,bad-email,A-2'].join(
+      '\r\n',
+    );
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    expect(draft.body.headers).toEqual(header.split(','));
+    const page = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=all`)
+      .expect(200);
+    expect(
+      page.body.rows.map((row: { rowNumber: number; kind: string }) => [row.rowNumber, row.kind]),
+    ).toEqual([
+      [4, 'add'],
+      [5, 'error'],
+    ]);
+  });
+
   it('are counted in the row a too-long cell is reported on', async () => {
     const { client, agent } = await coordinatorOfNewClient();
     const file = `${header}\r\n\r\n\r\nAda,${'x'.repeat(2001)},ap@hp.example,A-1\r\n`;

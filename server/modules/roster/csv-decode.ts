@@ -201,9 +201,18 @@ function refuseLongCell(rowNumber: number, column: string, length: number): AppE
   );
 }
 
+/** The first record that is not blank: files exported with a title gap start lower down. */
 function readHeader(text: string, delimiter: RosterDelimiter): string[] {
-  const first = Papa.parse<string[]>(text, { delimiter, preview: 1, skipEmptyLines: 'greedy' });
-  const cells = first.data[0] ?? [];
+  // papaparse's preview counts the blank lines it skips, so step to the first filled record.
+  let cells: string[] = [];
+  Papa.parse<string[]>(text, {
+    delimiter,
+    step: (result, parser) => {
+      if (isBlankRecord(result.data)) return;
+      cells = result.data;
+      parser.abort();
+    },
+  });
   if (cells.length > maxRosterColumns) {
     throw refuse(
       'too_many_columns',
