@@ -50,6 +50,40 @@ describe.each([true, false])('copyRows, statements prepared: %s', (prepareStatem
     expect(back).toEqual(rows.map(([id, body, tally]) => ({ id, body, tally })));
   });
 
+  it('sends many rows in chunks, each built from its row when due, all in order', async () => {
+    await sql`truncate notes`.execute(db);
+    const ids = Array.from({ length: 4_501 }, (_, index) => index);
+    await copyRows(db as unknown as Db, 'notes', ['id', 'body'], ids, (id) => [id, `note ${id}`]);
+    const back = await db.selectFrom('notes').select(['id', 'body']).orderBy('id').execute();
+    expect(back).toEqual(ids.map((id) => ({ id, body: `note ${id}` })));
+  });
+
+  it('a row refused in a later chunk writes none of the earlier ones', async () => {
+    await sql`truncate notes`.execute(db);
+    const ids = Array.from({ length: 4_501 }, (_, index) => index);
+    await expect(
+      copyRows(db as unknown as Db, 'notes', ['id', 'body'], ids, (id) => [
+        id === 4_500 ? 0 : id,
+        'x',
+      ]),
+    ).rejects.toThrow(/duplicate key/);
+    expect(await db.selectFrom('notes').select('id').execute()).toEqual([]);
+  });
+
+  it('a row that cannot be encoded stops the COPY with its error, and the connection goes on', async () => {
+    await sql`truncate notes`.execute(db);
+    const ids = Array.from({ length: 4_501 }, (_, index) => index);
+    await expect(
+      copyRows(db as unknown as Db, 'notes', ['id', 'body'], ids, (id) => {
+        if (id === 3_000) throw new Error('row 3000 cannot be encoded');
+        return [id, 'x'];
+      }),
+    ).rejects.toThrow(/row 3000 cannot be encoded/);
+    expect(await db.selectFrom('notes').select('id').execute()).toEqual([]);
+    await copyRows(db as unknown as Db, 'notes', ['id', 'body'], [[2, 'two']]);
+    expect(await db.selectFrom('notes').select('id').execute()).toEqual([{ id: 2 }]);
+  });
+
   it('belongs to the transaction it runs in: a later failure leaves nothing', async () => {
     await sql`truncate notes`.execute(db);
     await expect(

@@ -27,7 +27,7 @@ const storedColumns = [
  */
 export async function replacePreviewRows(db: Db, draftId: string, rows: readonly PreviewRow[]) {
   await db.deleteFrom('rosterImportRows').where('draftId', '=', draftId).execute();
-  const records = rows.map((row) => {
+  await copyRows(db, 'roster_import_rows', storedColumns, rows, (row) => {
     const extras = row.values.extras;
     const detail =
       (row.kind === 'add' || row.kind === 'unchanged') && Object.keys(row.warnings).length === 0
@@ -49,7 +49,6 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: readonly
       detail,
     ];
   });
-  await copyRows(db, 'roster_import_rows', storedColumns, records);
 }
 
 const previewColumns = [
