@@ -19,7 +19,6 @@ export class CopyPayload {
     readonly statement: string,
     /** The rows' text, encoded a chunk at a time as the connection takes it. */
     readonly chunks: () => AsyncIterable<string>,
-    readonly rowCount: number,
   ) {}
 }
 
@@ -48,39 +47,48 @@ export function copyText(rows: readonly (readonly CopyValue[])[]): string {
 const chunkRows = 2_000;
 
 /**
- * The rows' COPY text in chunks, each record built only when its chunk is due. Between chunks
- * the event loop turns, so the socket carries one chunk to PostgreSQL (another process, on
- * another core) while this one encodes the next: the two overlap instead of taking turns.
+ * The rows' COPY text in chunks, each chunk's rows taken from `rows` (which may be built
+ * lazily) only when it is due. Between chunks the event loop turns, so the socket carries one
+ * chunk to PostgreSQL (another process, on another core) while this one builds the next: the
+ * two overlap instead of taking turns.
  */
-async function* copyChunks<T>(rows: readonly T[], toValues: (row: T) => readonly CopyValue[]) {
-  for (let start = 0; start < rows.length; start += chunkRows) {
-    if (start > 0) await new Promise((resolve) => setImmediate(resolve));
-    yield copyText(rows.slice(start, start + chunkRows).map(toValues));
+async function* copyChunks<T>(rows: Iterable<T>, toValues: (row: T) => readonly CopyValue[]) {
+  let chunk: (readonly CopyValue[])[] = [];
+  for (const row of rows) {
+    chunk.push(toValues(row));
+    if (chunk.length < chunkRows) continue;
+    yield copyText(chunk);
+    chunk = [];
+    // The chunk goes out on the socket before the next one is built.
+    await new Promise((resolve) => setImmediate(resolve));
   }
+  if (chunk.length > 0) yield copyText(chunk);
 }
 
 /**
  * COPY the rows into the table's columns (snake_case names, as in the database); `toValues`
- * turns a row into its record, one chunk at a time, so no second copy of all rows is built.
+ * turns a row into its record, a chunk at a time, so no second copy of all rows is built.
+ * `rows` may be a generator: it is read once, as the COPY goes.
  */
 export async function copyRows<T = readonly CopyValue[]>(
   db: Db,
   table: string,
   columns: readonly string[],
-  rows: readonly T[],
+  rows: Iterable<T>,
   toValues: (row: T) => readonly CopyValue[] = (row) => row as readonly CopyValue[],
 ): Promise<void> {
-  if (rows.length === 0) return;
+  if (Array.isArray(rows) && rows.length === 0) return;
   for (const name of [table, ...columns]) {
     if (!identifier.test(name)) throw new Error(`Not a plain SQL name: ${name}`);
   }
   const statement = `copy ${table} (${columns.join(', ')}) from stdin`;
-  const payload = new CopyPayload(statement, () => copyChunks(rows, toValues), rows.length);
+  const payload = new CopyPayload(statement, () => copyChunks(rows, toValues));
   await sql`${payload}`.execute(db);
 }
 
 /** What the client wrapper does with a CopyPayload: the COPY, answered like a query. */
 export async function runCopy(client: pg.PoolClient, payload: CopyPayload) {
-  await pipeline(Readable.from(payload.chunks()), client.query(copyFrom(payload.statement)));
-  return { command: 'COPY', rowCount: payload.rowCount, rows: [] };
+  const copy = client.query(copyFrom(payload.statement));
+  await pipeline(Readable.from(payload.chunks()), copy);
+  return { command: 'COPY', rowCount: copy.rowCount, rows: [] };
 }

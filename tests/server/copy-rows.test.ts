@@ -58,6 +58,23 @@ describe.each([true, false])('copyRows, statements prepared: %s', (prepareStatem
     expect(back).toEqual(ids.map((id) => ({ id, body: `note ${id}` })));
   });
 
+  it('takes a generator, read once as the COPY goes; one that yields nothing writes nothing', async () => {
+    await sql`truncate notes`.execute(db);
+    let taken = 0;
+    function* notes(count: number) {
+      for (let id = 0; id < count; id += 1) {
+        taken += 1;
+        yield id;
+      }
+    }
+    await copyRows(db as unknown as Db, 'notes', ['id', 'body'], notes(2_500), (id) => [id, 'g']);
+    expect(taken).toBe(2_500);
+    expect(await db.selectFrom('notes').select('id').execute()).toHaveLength(2_500);
+    await sql`truncate notes`.execute(db);
+    await copyRows(db as unknown as Db, 'notes', ['id', 'body'], notes(0), (id) => [id, 'g']);
+    expect(await db.selectFrom('notes').select('id').execute()).toEqual([]);
+  });
+
   it('a row refused in a later chunk writes none of the earlier ones', async () => {
     await sql`truncate notes`.execute(db);
     const ids = Array.from({ length: 4_501 }, (_, index) => index);

@@ -287,7 +287,8 @@ export function parseRosterText(
       );
     }
     if (records === 1 || rows.length >= maxRosterRows) continue;
-    const cells: string[] = new Array<string>(width);
+    // A record as wide as the header is rewritten in place: no second array per row.
+    const cells: string[] = record.length === width ? record : new Array<string>(width);
     for (let column = 0; column < width; column += 1) {
       const cell = record[column] ?? '';
       if (cell.length > maxCellCharacters) {

@@ -66,6 +66,27 @@ export function diffRoster(
   extrasMapped: boolean,
   options: DiffOptions = {},
 ): RosterDiff {
+  const diff = createRosterDiff(existing, knownOffices, mappedFields, extrasMapped, options);
+  const rows = checked.map((item) => diff.next(item));
+  const end = diff.finish();
+  return { rows: [...rows, ...end.missing], newOffices: end.newOffices };
+}
+
+export interface RosterDiffPass {
+  /** The preview row of the file's next checked row (rows come in file order). */
+  next(item: CheckedRow): PreviewRow;
+  /** After the last row: the active people no row matched, and the offices not known yet. */
+  finish(): { missing: PreviewRow[]; newOffices: string[] };
+}
+
+/** diffRoster one row at a time, so a large file is diffed as its preview is stored. */
+export function createRosterDiff(
+  existing: readonly ExistingPerson[],
+  knownOffices: readonly string[],
+  mappedFields: ReadonlySet<RosterField>,
+  extrasMapped: boolean,
+  options: DiffOptions = {},
+): RosterDiffPass {
   const byEmployeeId = new Map<string, ExistingPerson>();
   const byEmail = new Map<string, ExistingPerson>();
   for (const person of existing) {
@@ -75,14 +96,14 @@ export function diffRoster(
   const officeKeys = new Set(knownOffices.map((name) => name.toLowerCase()));
   const newOffices = new Map<string, string>();
   const claimed = new Map<string, number>();
-  const rows: PreviewRow[] = [];
+  let position = 0;
 
   const find = (employeeId: string | null | undefined, email: string | null | undefined) =>
     (employeeId ? byEmployeeId.get(employeeId.trim()) : undefined) ??
     (email ? byEmail.get(email.trim().toLowerCase()) : undefined);
 
-  for (const item of checked) {
-    const position = rows.length + 1;
+  const nextRow = (item: CheckedRow): PreviewRow => {
+    position += 1;
     const base = { position, rowNumber: item.rowNumber, changedFields: [] as string[] };
     const match = find(item.values.employeeId, item.values.email);
     if (match) {
@@ -98,7 +119,7 @@ export function diffRoster(
       }
     }
     if (!item.row) {
-      rows.push({
+      return {
         ...base,
         kind: 'error',
         personId: null,
@@ -106,8 +127,7 @@ export function diffRoster(
         before: null,
         errors: item.errors,
         warnings: item.warnings,
-      });
-      continue;
+      };
     }
     const row = item.row;
     if (row.office && !officeKeys.has(row.office.toLowerCase())) {
@@ -119,7 +139,7 @@ export function diffRoster(
     if (match) {
       const emailOwner = byEmail.get(row.email);
       if (emailOwner && emailOwner.id !== match.id) {
-        rows.push({
+        return {
           ...base,
           kind: 'error',
           personId: null,
@@ -127,8 +147,7 @@ export function diffRoster(
           before: null,
           errors: { email: 'This e-mail belongs to another person on the roster.' },
           warnings: item.warnings,
-        });
-        continue;
+        };
       }
     }
     if (!match) {
@@ -137,7 +156,7 @@ export function diffRoster(
       const values: PreviewValues = row;
       values.extras = item.extras;
       values.active = true;
-      rows.push({
+      return {
         position,
         rowNumber: item.rowNumber,
         changedFields: base.changedFields,
@@ -147,8 +166,7 @@ export function diffRoster(
         before: null,
         errors: item.errors,
         warnings: item.warnings,
-      });
-      continue;
+      };
     }
     const before = currentValues(match);
     const after: PreviewValues = { ...before };
@@ -187,7 +205,7 @@ export function diffRoster(
     }
     const conflict = !!row.employeeId && !!match.employeeId && row.employeeId !== match.employeeId;
     const kind: PreviewKind = conflict ? 'conflict' : changed.length > 0 ? 'update' : 'unchanged';
-    rows.push({
+    return {
       ...base,
       kind,
       personId: match.id,
@@ -200,22 +218,27 @@ export function diffRoster(
           }
         : {},
       warnings,
-    });
-  }
+    };
+  };
 
-  for (const person of existing) {
-    if (!person.active || claimed.has(person.id)) continue;
-    rows.push({
-      position: rows.length + 1,
-      rowNumber: null,
-      kind: 'missing',
-      personId: person.id,
-      values: { ...currentValues(person), active: false },
-      before: currentValues(person),
-      changedFields: ['active'],
-      errors: {},
-      warnings: {},
-    });
-  }
-  return { rows, newOffices: [...newOffices.values()].sort() };
+  const finish = () => {
+    const missing: PreviewRow[] = [];
+    for (const person of existing) {
+      if (!person.active || claimed.has(person.id)) continue;
+      position += 1;
+      missing.push({
+        position,
+        rowNumber: null,
+        kind: 'missing',
+        personId: person.id,
+        values: { ...currentValues(person), active: false },
+        before: currentValues(person),
+        changedFields: ['active'],
+        errors: {},
+        warnings: {},
+      });
+    }
+    return { missing, newOffices: [...newOffices.values()].sort() };
+  };
+  return { next: nextRow, finish };
 }

@@ -1,8 +1,13 @@
 import { sql, type Selectable } from 'kysely';
-import { copyRows } from '../../db/copy-rows';
+import { copyRows, type CopyValue } from '../../db/copy-rows';
 import type { Db } from '../../db/database';
 import type { RosterImportRowsTable } from '../../db/roster-types';
-import { rosterFields, type PreviewPage, type PreviewRow } from '../../schemas/roster';
+import {
+  rosterFields,
+  type PreviewPage,
+  type PreviewRow,
+  type RosterField,
+} from '../../schemas/roster';
 
 /** The rows of a draft's preview: stored once per upload or remap, then paged for the table. */
 
@@ -25,7 +30,7 @@ const storedColumns = [
  * half the time of batched unnest inserts, most of which went into building and reading array
  * literals.
  */
-export async function replacePreviewRows(db: Db, draftId: string, rows: readonly PreviewRow[]) {
+export async function replacePreviewRows(db: Db, draftId: string, rows: Iterable<PreviewRow>) {
   await db.deleteFrom('rosterImportRows').where('draftId', '=', draftId).execute();
   await copyRows(db, 'roster_import_rows', storedColumns, rows, (row) => {
     const extras = row.values.extras;
@@ -38,16 +43,20 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: readonly
             errors: row.errors,
             warnings: row.warnings,
           });
-    return [
-      draftId,
-      row.position,
-      row.rowNumber,
-      row.kind,
-      row.personId,
-      ...rosterFields.map((field) => row.values[field] ?? null),
-      extras && Object.keys(extras).length > 0 ? JSON.stringify(extras) : null,
-      detail,
-    ];
+    // Filled in place rather than spread from a mapped array: two arrays fewer per row.
+    const record = new Array<CopyValue>(storedColumns.length);
+    record[0] = draftId;
+    record[1] = row.position;
+    record[2] = row.rowNumber;
+    record[3] = row.kind;
+    record[4] = row.personId;
+    for (let index = 0; index < rosterFields.length; index += 1) {
+      record[5 + index] = row.values[rosterFields[index] as RosterField] ?? null;
+    }
+    record[5 + rosterFields.length] =
+      extras && Object.keys(extras).length > 0 ? JSON.stringify(extras) : null;
+    record[6 + rosterFields.length] = detail;
+    return record;
   });
 }
 

@@ -128,17 +128,17 @@ function warningsByRow(
 }
 
 /**
- * Validates every row by the zod schema the hand-edit form uses (field by field, see
- * fieldChecker), then flags repeats of an e-mail (case-insensitive) or employee id inside the
- * file: the first occurrence wins.
+ * The check of one row after another, in file order: each row by the zod schema the hand-edit
+ * form uses (field by field, see fieldChecker), then repeats of an e-mail (case-insensitive)
+ * or employee id inside the file are flagged: the first occurrence wins. One row at a time, so
+ * a large file is checked as its preview is stored rather than all before it.
  */
-export function checkRows(
+export function createRowChecker(
   headers: readonly string[],
-  rows: readonly (readonly string[])[],
   mapping: ColumnMapping,
   decodeWarnings: readonly DecodeWarning[] = [],
   rowNumbers: readonly number[] | null = null,
-): CheckedRow[] {
+): (cells: readonly string[], index: number) => CheckedRow {
   const seenEmails = new Map<string, number>();
   const seenIds = new Map<string, number>();
   const rowWarnings = warningsByRow(headers, mapping, decodeWarnings);
@@ -149,9 +149,7 @@ export function checkRows(
     column: fieldColumns.get(field),
     check: fieldChecker(field),
   }));
-  const checked = new Array<CheckedRow>(rows.length);
-  for (let index = 0; index < rows.length; index += 1) {
-    const cells = rows[index] ?? [];
+  return (cells, index) => {
     const rowNumber = rowNumbers?.[index] ?? index + 2;
     const warnings = rowWarnings.get(index) ?? none;
     const extras = extrasOf(headers, cells, extraColumns);
@@ -168,8 +166,7 @@ export function checkRows(
       // "Enter a valid e-mail address" reads wrong for a blank cell in a file.
       if (errors.email && (values.email ?? '').trim() === '')
         errors.email = 'The e-mail is missing.';
-      checked[index] = { rowNumber, values, row: null, extras, errors, warnings };
-      continue;
+      return { rowNumber, values, row: null, extras, errors, warnings };
     }
     const valid = row as RosterRow;
     const earlierEmail = seenEmails.get(valid.email);
@@ -180,7 +177,7 @@ export function checkRows(
       if (earlierId) (errors ??= {}).employeeId = `The same employee id is on row ${earlierId}.`;
       else seenIds.set(valid.employeeId, rowNumber);
     }
-    checked[index] = {
+    return {
       rowNumber,
       values: errors ? { ...valid } : valid,
       row: errors ? null : valid,
@@ -188,6 +185,17 @@ export function checkRows(
       errors: errors ?? none,
       warnings,
     };
-  }
-  return checked;
+  };
+}
+
+/** Every row checked at once (see createRowChecker). */
+export function checkRows(
+  headers: readonly string[],
+  rows: readonly (readonly string[])[],
+  mapping: ColumnMapping,
+  decodeWarnings: readonly DecodeWarning[] = [],
+  rowNumbers: readonly number[] | null = null,
+): CheckedRow[] {
+  const check = createRowChecker(headers, mapping, decodeWarnings, rowNumbers);
+  return rows.map((cells, index) => check(cells, index));
 }

@@ -154,7 +154,7 @@ export async function deleteStaleDrafts(
 
 export async function insertDraft(
   db: Db,
-  draft: Omit<DraftRecord, 'id' | 'rowCount' | 'sampleRows'> & {
+  draft: Omit<DraftRecord, 'rowCount' | 'sampleRows'> & {
     createdBy: string | null;
     rawRows: string[][];
     rowNumbers: number[] | null;
@@ -164,6 +164,7 @@ export async function insertDraft(
   const row = await db
     .insertInto('rosterImportDrafts')
     .values({
+      id: draft.id,
       clientId: draft.clientId,
       createdBy: draft.createdBy,
       fileName: draft.fileName,

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { Db } from '../../db/database';
 import { recordAudit } from '../../lib/audit';
 import { AppError, notFound } from '../../lib/errors';
@@ -27,8 +28,8 @@ import {
 import type { DecodeWarning } from '../../db/roster-types';
 import { cleanCell, parseRosterFile } from './csv-decode';
 import { rowsToFixFile } from './rows-to-fix-csv';
-import { diffRoster } from './roster-diff';
-import { checkRows } from './roster-rows';
+import { createRosterDiff } from './roster-diff';
+import { createRowChecker } from './roster-rows';
 import * as previewRepo from './roster-preview.repository';
 import * as repo from './roster.repository';
 import { insertImport, listImports } from './roster-import.repository';
@@ -54,63 +55,93 @@ export function mappingProblems(mapping: ColumnMapping): string[] {
   return result.success ? [] : result.error.issues.map((issue) => issue.message);
 }
 
-function countKinds(rows: readonly PreviewRow[]): PreviewCounts {
-  const counts: PreviewCounts = {
-    add: 0,
-    update: 0,
-    conflict: 0,
-    unchanged: 0,
-    error: 0,
-    missing: 0,
-  };
-  for (const row of rows) counts[row.kind] += 1;
-  return counts;
+const noCounts = (): PreviewCounts => ({
+  add: 0,
+  update: 0,
+  conflict: 0,
+  unchanged: 0,
+  error: 0,
+  missing: 0,
+});
+
+interface DecodedFile {
+  headers: string[];
+  encoding: string;
+  warnings: readonly DecodeWarning[];
+  rowNumbers: readonly number[] | null;
 }
 
-function countWarned(rows: readonly PreviewRow[]): number {
-  let warned = 0;
-  for (const row of rows) if (Object.keys(row.warnings).length > 0) warned += 1;
-  return warned;
-}
-
-/** Validates and diffs the file against the roster as it is now. Reads only. */
-async function computePreview(
-  db: Db,
-  clientId: string,
-  file: {
-    headers: string[];
-    encoding: string;
-    warnings: readonly DecodeWarning[];
-    rowNumbers: readonly number[] | null;
-  },
-  rawRows: string[][],
-  mapping: ColumnMapping,
-) {
+/** What a preview is diffed against: the roster as it is now. Reads only. */
+async function rosterNow(db: Db, clientId: string, mapping: ColumnMapping) {
   const version = await repo.rosterVersion(db, clientId);
-  if (mappingProblems(mapping).length > 0) {
-    return { rows: [], counts: countKinds([]), rowsWithWarnings: 0, newOffices: [], version };
-  }
+  // An unfinished mapping previews nothing until it is finished.
+  if (mappingProblems(mapping).length > 0) return { version, diffed: null };
   const [existing, offices] = await Promise.all([
     repo.loadRoster(db, clientId),
     repo.listOffices(db, clientId),
   ]);
-  const checked = checkRows(file.headers, rawRows, mapping, file.warnings, file.rowNumbers);
+  return { version, diffed: { existing, offices } };
+}
+
+type RosterNow = Awaited<ReturnType<typeof rosterNow>>;
+
+interface PreviewSummary {
+  counts: PreviewCounts;
+  rowsWithWarnings: number;
+  newOffices: string[];
+}
+
+/**
+ * The preview rows of a file, each checked and diffed against the roster only when the COPY
+ * storing them asks for it, so PostgreSQL stores one chunk while the next is worked out;
+ * `summary` is complete once the last row has been taken.
+ */
+function* previewRows(
+  file: DecodedFile,
+  rawRows: readonly (readonly string[])[],
+  mapping: ColumnMapping,
+  roster: RosterNow,
+  summary: PreviewSummary,
+): Generator<PreviewRow> {
+  if (!roster.diffed) return;
+  const check = createRowChecker(file.headers, mapping, file.warnings, file.rowNumbers);
   const mapped = new Set(mapping.filter((target) => target !== 'extra' && target !== 'ignore'));
-  const diff = diffRoster(
-    checked,
-    existing,
-    offices.map((office) => office.name),
+  const diff = createRosterDiff(
+    roster.diffed.existing,
+    roster.diffed.offices.map((office) => office.name),
     mapped as Set<RosterField>,
     mapping.includes('extra'),
     { legacyEncoding: file.encoding === 'windows-1252' },
   );
-  return {
-    rows: diff.rows,
-    counts: countKinds(diff.rows),
-    rowsWithWarnings: countWarned(diff.rows),
-    newOffices: diff.newOffices,
-    version,
+  const tally = (row: PreviewRow) => {
+    summary.counts[row.kind] += 1;
+    if (Object.keys(row.warnings).length > 0) summary.rowsWithWarnings += 1;
+    return row;
   };
+  for (let index = 0; index < rawRows.length; index += 1) {
+    yield tally(diff.next(check(rawRows[index] ?? [], index)));
+  }
+  const end = diff.finish();
+  for (const row of end.missing) yield tally(row);
+  summary.newOffices = end.newOffices;
+}
+
+/** Checks, diffs and stores the draft's preview rows in one pass; what they came to. */
+async function storePreview(
+  trx: Db,
+  draftId: string,
+  file: DecodedFile,
+  rawRows: readonly (readonly string[])[],
+  mapping: ColumnMapping,
+  roster: RosterNow,
+): Promise<PreviewSummary> {
+  const summary: PreviewSummary = { counts: noCounts(), rowsWithWarnings: 0, newOffices: [] };
+  await previewRepo.replacePreviewRows(
+    trx,
+    draftId,
+    previewRows(file, rawRows, mapping, roster, summary),
+  );
+  return summary;
 }
 
 export function createRosterService(deps: { db: Db }) {
@@ -161,9 +192,13 @@ export function createRosterService(deps: { db: Db }) {
       const guessedColumns = mapping.flatMap((target, index) =>
         target === byHeaderOnly[index] ? [] : [index],
       );
-      const preview = await computePreview(db, clientId, parsed, parsed.rows, mapping);
+      const roster = await rosterNow(db, clientId, mapping);
       const draft = await db.transaction().execute(async (trx) => {
         await repo.deleteStaleDrafts(trx, clientId, viewer.id);
+        // The preview rows go first (nothing refers to the draft row yet), so that counting
+        // them is part of storing them.
+        const id = randomUUID();
+        const preview = await storePreview(trx, id, parsed, parsed.rows, mapping, roster);
         const record = {
           clientId,
           rowCount: parsed.rows.length,
@@ -178,17 +213,17 @@ export function createRosterService(deps: { db: Db }) {
           counts: preview.counts,
           rowsWithWarnings: preview.rowsWithWarnings,
           newOffices: preview.newOffices,
-          rosterVersion: preview.version,
+          rosterVersion: roster.version,
           expiresAt: new Date(Date.now() + draftLifetimeMs),
         };
-        const id = await repo.insertDraft(trx, {
+        await repo.insertDraft(trx, {
           ...record,
+          id,
           rawRows: parsed.rows,
           rowNumbers: parsed.rowNumbers,
           decodeWarnings: parsed.warnings,
           createdBy: viewer.id,
         });
-        await previewRepo.replacePreviewRows(trx, id, preview.rows);
         return { id, ...record };
       });
       return view(clientId, draft);
@@ -214,22 +249,16 @@ export function createRosterService(deps: { db: Db }) {
         throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
       }
       const { rawRows, warnings, rowNumbers } = await repo.loadFileForRemap(db, draftId);
-      const preview = await computePreview(
-        db,
-        clientId,
-        { headers: draft.headers, encoding: draft.encoding, warnings, rowNumbers },
-        rawRows,
-        mapping,
-      );
-      await db.transaction().execute(async (trx) => {
+      const file = { headers: draft.headers, encoding: draft.encoding, warnings, rowNumbers };
+      const roster = await rosterNow(db, clientId, mapping);
+      const preview = await db.transaction().execute(async (trx) => {
+        const summary = await storePreview(trx, draftId, file, rawRows, mapping, roster);
         await repo.updateDraftPreview(trx, draftId, {
           mapping,
-          counts: preview.counts,
-          rowsWithWarnings: preview.rowsWithWarnings,
-          newOffices: preview.newOffices,
-          rosterVersion: preview.version,
+          ...summary,
+          rosterVersion: roster.version,
         });
-        await previewRepo.replacePreviewRows(trx, draftId, preview.rows);
+        return summary;
       });
       return view(clientId, {
         ...draft,
