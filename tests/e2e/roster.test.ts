@@ -165,4 +165,35 @@ describe('roster import in the browser', () => {
     ]);
     await context.close();
   });
+  it('a column choice changed and then changed back is checked again, not kept from the check before', async () => {
+    const otherClient = await insertClient(env.testApp.db, { name: 'Aldermoor Housing Trust' });
+    const coordinator = await insertStaff(env.testApp.db, {
+      role: 'coordinator',
+      clientId: otherClient.id,
+    });
+    const context = await env.newContext();
+    const page = await context.newPage();
+    await signInWithPassword(page, coordinator.email, TEST_PASSWORD);
+    await page.getByRole('heading', { level: 1, name: /Welcome,/ }).waitFor();
+    await page.goto(`/clients/${otherClient.id}/people/import`);
+    await page.getByLabel('Staff list (CSV file)').setInputFiles({
+      name: 'york.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from(
+        'First name;Last name;E-mail\r\nIvy;Marlow;ivy.marlow@ah.example\r\nRex;Dunmore;rex.dunmore@ah.example\r\n',
+      ),
+    });
+    const mapping = page.getByRole('form', { name: 'Match the columns' });
+    await mapping.getByLabel('E-mail').selectOption('ignore');
+    await mapping.getByRole('button', { name: 'Check the rows' }).click();
+    await mapping.getByText('Choose the column that holds the work e-mail.').waitFor();
+    await mapping.getByLabel('E-mail').selectOption('email');
+    await mapping.getByRole('button', { name: 'Check the rows' }).click();
+
+    const table = page.getByRole('table', { name: /Preview/ });
+    await table.getByText('ivy.marlow@ah.example').waitFor();
+    await page.getByRole('button', { name: 'Save 2 changes to the roster' }).click();
+    await page.getByText('The roster is up to date.').waitFor();
+    await context.close();
+  });
 });

@@ -31,12 +31,15 @@ export function MappingStep({
 }) {
   const [mapping, setMapping] = useState<ColumnMapping>(draft.mapping);
   const remap = useRemapImport();
-  const problems = remap.data?.mappingProblems ?? draft.mappingProblems;
-  const changed = mapping.some((target, index) => target !== draft.mapping[index]);
+  // The draft as the server holds it now: after a check of another mapping, that one, so
+  // choosing the first mapping again is a change to send, not "nothing changed".
+  const latest = remap.data ?? draft;
+  const problems = latest.mappingProblems;
+  const changed = mapping.some((target, index) => target !== latest.mapping[index]);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
-    if (!changed && draft.mappingProblems.length === 0) return onMapped(draft);
+    if (!changed && latest.mappingProblems.length === 0) return onMapped(latest);
     remap.mutate(
       { clientId, draftId: draft.id, mapping },
       { onSuccess: (next) => (next.mappingProblems.length === 0 ? onMapped(next) : undefined) },
