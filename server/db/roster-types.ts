@@ -34,10 +34,13 @@ export interface RosterImportDraftsTable {
 
 /**
  * What decoding changed in a data row (row index from 0): control characters removed from a
- * cell (column index from 0), or values past the header's last column left out.
+ * cell (column index from 0), bytes of a mostly-UTF-8 file read as Windows-1252 in a cell, or
+ * values past the header's last column left out.
  */
 export type DecodeWarning =
-  { row: number; column: number; removed: number } | { row: number; beyondHeader: number };
+  | { row: number; column: number; removed: number }
+  | { row: number; column: number; strayBytes: number }
+  | { row: number; beyondHeader: number };
 
 export interface RosterImportRowsTable {
   draftId: string;

@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { decodeMostlyUtf8 } from '../../server/modules/roster/mixed-utf8';
+import { checkRows } from '../../server/modules/roster/roster-rows';
 import {
   cleanCell,
   maxCellCharacters,
@@ -98,5 +100,65 @@ describe('Windows-1252 writing (WHATWG Encoding, index-windows-1252)', () => {
     expect(isWindows1252Copy('Łukasz', 'Luke')).toBe(false);
     // The stored name fits the code page: a different spelling is a real change.
     expect(isWindows1252Copy('Zoë', 'Zoe')).toBe(false);
+  });
+});
+
+describe('a UTF-8 file with a few Windows-1252 bytes pasted in', () => {
+  const file = (...parts: (string | number[])[]) =>
+    new Uint8Array(parts.flatMap((part) => (typeof part === 'string' ? [...utf8(part)] : part)));
+
+  it('reads the UTF-8 as UTF-8 and each stray byte as its Windows-1252 character, with a warning on its cell', () => {
+    // 0xE9 is "é" in index-windows-1252 (WHATWG Encoding); "ç" is C3 A7 in UTF-8.
+    const bytes = file(
+      'First name,Last name,E-mail\r\nGonçalo,Ferraz,g.ferraz@hp.example\r\nRen',
+      [0xe9],
+      ',Aubry,r.aubry@hp.example\r\n',
+    );
+    const parsed = parseRosterFile(bytes);
+    expect(parsed.encoding).toBe('utf-8');
+    expect(parsed.rows.map((row) => row[0])).toEqual(['Gonçalo', 'René']);
+    expect(parsed.warnings).toEqual([{ row: 1, column: 0, strayBytes: 1 }]);
+    const [, rene] = checkRows(
+      parsed.headers,
+      parsed.rows,
+      ['givenName', 'familyName', 'email'],
+      parsed.warnings,
+    );
+    expect(rene?.warnings.givenName).toMatch(/not UTF-8 like the rest of the file/);
+  });
+
+  it('a file with no UTF-8 sequence at all is still read as Windows-1252', () => {
+    const parsed = parseRosterFile(file('First name,E-mail\r\nRen', [0xe9], ',r@hp.example\r\n'));
+    expect(parsed.encoding).toBe('windows-1252');
+    expect(parsed.rows[0]?.[0]).toBe('René');
+    expect(parsed.warnings).toEqual([]);
+  });
+
+  it('tells well-formed UTF-8 from stray bytes as the WHATWG decoder does (TextDecoder, fatal)', () => {
+    // Overlong forms, surrogates, lone continuation bytes, truncated sequences, F5 and above.
+    const pieces = [
+      0x41, 0x80, 0xbf, 0xc0, 0xc2, 0xdf, 0xe0, 0xa0, 0xed, 0x9f, 0xf0, 0x90, 0xf4, 0x8f, 0xf5,
+      0xff,
+    ];
+    let seed = 7;
+    const next = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31);
+    for (let trial = 0; trial < 3000; trial += 1) {
+      const tail = Array.from(
+        { length: 1 + (next() % 6) },
+        () => pieces[next() % pieces.length] ?? 0,
+      );
+      const bytes = new Uint8Array([0xc3, 0xa7, ...tail]);
+      const mixed = decodeMostlyUtf8(bytes);
+      let whatwg: string | null = null;
+      try {
+        whatwg = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+      } catch {
+        whatwg = null;
+      }
+      expect(mixed?.strayBytes === 0, `bytes ${tail.map((byte) => byte.toString(16))}`).toBe(
+        whatwg !== null,
+      );
+      if (whatwg !== null) expect(mixed?.text).toBe(whatwg);
+    }
   });
 });

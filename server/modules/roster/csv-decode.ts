@@ -1,6 +1,7 @@
 import Papa from 'papaparse';
 import type { DecodeWarning } from '../../db/roster-types';
 import { AppError } from '../../lib/errors';
+import { decodeMostlyUtf8, legacyMark } from './mixed-utf8';
 import { decodeWindows1252 } from './windows-1252';
 
 export { decodeWindows1252 } from './windows-1252';
@@ -39,8 +40,9 @@ function startsWith(bytes: Uint8Array, prefix: number[]): boolean {
 
 /**
  * Bytes to text. A byte order mark decides (UTF-8, UTF-16LE, UTF-16BE); without one the text
- * is UTF-8 if it decodes strictly as UTF-8, else Windows-1252, the usual spreadsheet export on
- * Windows (WHATWG Encoding names; TextDecoder decodes UTF-8 and UTF-16).
+ * is UTF-8 if it decodes strictly as UTF-8, UTF-8 with its stray bytes read as Windows-1252 if
+ * it holds any multi-byte UTF-8 (see decodeMostlyUtf8), else Windows-1252, the usual
+ * spreadsheet export on Windows (WHATWG Encoding names; TextDecoder decodes UTF-8 and UTF-16).
  */
 export function decodeRosterBytes(bytes: Uint8Array): {
   text: string;
@@ -88,9 +90,12 @@ export function decodeRosterBytes(bytes: Uint8Array): {
         hadByteOrderMark: false,
       };
     } catch {
+      // Mostly UTF-8 with a few stray bytes is UTF-8 with those bytes warned about: reading it
+      // all as Windows-1252 would turn every "ç" of the file into "Ã§".
+      const mixed = decodeMostlyUtf8(bytes);
       decoded = {
-        text: decodeWindows1252(bytes),
-        encoding: 'windows-1252',
+        text: mixed ? mixed.text : decodeWindows1252(bytes),
+        encoding: mixed ? 'utf-8' : 'windows-1252',
         hadByteOrderMark: false,
       };
     }
@@ -221,7 +226,7 @@ function readHeader(text: string, delimiter: RosterDelimiter): string[] {
   }
   const tooLong = cells.findIndex((cell) => cell.length > maxCellCharacters);
   if (tooLong >= 0) throw refuseLongCell(1, `Column ${tooLong + 1}`, cells[tooLong]?.length ?? 0);
-  return cells.map((cell) => cleanCell(cell).value.trim());
+  return cells.map((cell) => cleanCell(cell).value.split(legacyMark).join('').trim());
 }
 
 /** papaparse's "greedy" blank line: every cell empty or white space. */
@@ -270,6 +275,7 @@ export function parseRosterText(
   const unterminated = parsed.errors.find((error) => error.code === 'MissingQuotes');
   // One scan of the whole text says whether any cell needs cleaning at all (most files: none).
   const mayHoldControls = anyControlCharacter.test(clean);
+  const mayHoldStrayBytes = clean.includes(legacyMark);
   const rows: string[][] = [];
   const rowNumbers: number[] = [];
   const warnings: DecodeWarning[] = [];
@@ -294,7 +300,12 @@ export function parseRosterText(
       if (cell.length > maxCellCharacters) {
         throw refuseLongCell(rowNumber, headers[column] || `Column ${column + 1}`, cell.length);
       }
-      const value = readBackNeutralised(cell);
+      let value = readBackNeutralised(cell);
+      if (mayHoldStrayBytes && value.includes(legacyMark)) {
+        const parts = value.split(legacyMark);
+        warnings.push({ row: rows.length, column, strayBytes: parts.length - 1 });
+        value = parts.join('');
+      }
       if (!mayHoldControls) {
         cells[column] = value;
         continue;

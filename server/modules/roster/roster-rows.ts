@@ -119,9 +119,11 @@ function warningsByRow(
       target === 'extra' ? (headers[warning.column] ?? `Column ${warning.column + 1}`) : target;
     const entry = byRow.get(warning.row) ?? {};
     entry[key] =
-      warning.removed === 1
-        ? 'A control character (not allowed in text) was removed from this value.'
-        : `${warning.removed} control characters (not allowed in text) were removed from this value.`;
+      'strayBytes' in warning
+        ? 'This value holds a character that is not UTF-8 like the rest of the file; it was read as Windows-1252. Check its spelling.'
+        : warning.removed === 1
+          ? 'A control character (not allowed in text) was removed from this value.'
+          : `${warning.removed} control characters (not allowed in text) were removed from this value.`;
     byRow.set(warning.row, entry);
   }
   return byRow;

@@ -96,6 +96,11 @@ export function PreviewStep({
 
   return (
     <div className="flex flex-col gap-5">
+      {/* Said here too: a remembered mapping skips the step that says it first. */}
+      <p className="text-ink-muted">
+        {draft.fileName}: {plural(draft.rowCount, 'row')}, read as {draft.encoding.toUpperCase()}{' '}
+        with “{draft.delimiter === '\t' ? 'tab' : draft.delimiter}” between values.
+      </p>
       <div role="group" aria-label="Show rows" className="flex flex-wrap gap-2">
         {(['all', ...previewKinds] as const).map((item) => {
           const count = item === 'all' ? allRows : counts[item];
