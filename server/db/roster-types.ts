@@ -56,6 +56,8 @@ export interface RosterImportRowsTable {
   department: string | null;
   jobTitle: string | null;
   office: string | null;
+  /** From the file's status column; null when it does not say. */
+  active: boolean | null;
   extras: Json<Record<string, string> | null>;
   detail: Json<PreviewDetail | null>;
 }

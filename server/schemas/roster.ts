@@ -25,8 +25,11 @@ export const rosterFieldLabels: Record<RosterField, string> = {
   office: 'Office',
 };
 
-/** Each column goes to one of our fields, is kept as an extra as it is, or is left out. */
-export const columnTargetSchema = z.enum([...rosterFields, 'extra', 'ignore']);
+/**
+ * Each column goes to one of our fields, says whether the person is active ("status"), is kept
+ * as an extra as it is, or is left out.
+ */
+export const columnTargetSchema = z.enum([...rosterFields, 'status', 'extra', 'ignore']);
 export type ColumnTarget = z.infer<typeof columnTargetSchema>;
 
 export const columnMappingSchema = z
@@ -41,6 +44,9 @@ export const columnMappingSchema = z
         });
       }
     }
+    if (mapping.filter((target) => target === 'status').length > 1) {
+      context.addIssue({ code: 'custom', message: 'Only one column can be the status.' });
+    }
     for (const field of ['givenName', 'familyName', 'email'] as const) {
       if (!mapping.includes(field)) {
         context.addIssue({
@@ -51,6 +57,57 @@ export const columnMappingSchema = z
     }
   });
 export type ColumnMapping = z.infer<typeof columnMappingSchema>;
+
+/** The mapping choice for a column saying whether each person is active. */
+export const statusTargetLabel = 'Status (active or not)';
+
+// Words HR exports write for someone on staff or gone (common practice in HR exports; the
+// Dutch, German, French, Spanish and Portuguese words are from memory of everyday usage).
+const activeWords = new Set([
+  'active',
+  'yes',
+  'y',
+  'true',
+  '1',
+  'employed',
+  'current',
+  'actief',
+  'aktiv',
+  'actif',
+  'activo',
+  'ativo',
+]);
+const inactiveWords = new Set([
+  'inactive',
+  'no',
+  'n',
+  'false',
+  '0',
+  'left',
+  'leaver',
+  'terminated',
+  'former',
+  'resigned',
+  'retired',
+  'deactivated',
+  'inactief',
+  'inaktiv',
+  'inactif',
+  'inactivo',
+  'inativo',
+]);
+
+/**
+ * A status cell: true for someone on staff, false for someone gone, null when blank (the file
+ * does not say), undefined when it is neither.
+ */
+export function readStatus(cell: string | undefined): boolean | null | undefined {
+  const word = (cell ?? '').trim().toLowerCase();
+  if (word === '') return null;
+  if (activeWords.has(word)) return true;
+  if (inactiveWords.has(word)) return false;
+  return undefined;
+}
 
 /**
  * The longest name or label a person's field holds, in code points (zod counts those once a

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { insertClient, insertStaff } from '../factories/accounts';
+import { insertClient, insertPerson, insertStaff } from '../factories/accounts';
 import { uploadRoster } from '../factories/roster';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { binaryBody, signedInAgent } from './helpers';
@@ -364,5 +364,85 @@ describe('the rows to fix, uploaded again unedited', () => {
       'First name,Last name,E-mail,Employee id,What to fix',
       'Bo,Reed,bad-email,A-2,"Enter a valid e-mail address, like name@example.com."',
     ]);
+  });
+});
+
+describe('a status column (our own export writes one)', () => {
+  it('keeps a leaver in the file inactive, makes someone it calls inactive so, and refuses a word it cannot read', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    await insertPerson(t.db, client.id, {
+      email: 'left@hp.example',
+      active: false,
+      givenName: 'Lev',
+    });
+    await insertPerson(t.db, client.id, { email: 'going@hp.example', givenName: 'Gia' });
+    const file = [
+      'First name,Last name,E-mail,Status',
+      'Lev,Sample,left@hp.example,Inactive',
+      'Gia,Sample,going@hp.example,inactive',
+      'Nell,Sample,new@hp.example,Active',
+      'Max,Sample,unsure@hp.example,maybe',
+    ].join('\r\n');
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    expect(draft.body.mapping).toEqual(['givenName', 'familyName', 'email', 'status']);
+    const page = await agent
+      .get(`/api/clients/${client.id}/roster/imports/${draft.body.id}/rows?kind=all`)
+      .expect(200);
+    const byEmail = Object.fromEntries(
+      page.body.rows.map((row: { values: { email: string } }) => [row.values.email, row]),
+    );
+    // The factory's family names differ from the file's, so both rows update that field too.
+    expect(byEmail['left@hp.example'].values.active).toBe(false);
+    expect(byEmail['left@hp.example'].changedFields).not.toContain('active');
+    expect(byEmail['going@hp.example'].values.active).toBe(false);
+    expect(byEmail['going@hp.example'].changedFields).toContain('active');
+    expect(byEmail['new@hp.example']).toMatchObject({ kind: 'add', values: { active: true } });
+    expect(byEmail['unsure@hp.example']).toMatchObject({
+      kind: 'error',
+      errors: { active: 'Write Active or Inactive here, or leave it blank.' },
+    });
+    await agent
+      .post(`/api/clients/${client.id}/roster/imports/${draft.body.id}/commit`)
+      .send({ officeTimeZones: {} })
+      .expect(201);
+    expect((await people(client.id)).map((person) => [person.email, person.active])).toEqual([
+      ['going@hp.example', false],
+      ['left@hp.example', false],
+      ['new@hp.example', true],
+    ]);
+  });
+
+  it('without one, being in the file still makes an inactive person active again', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    await insertPerson(t.db, client.id, { email: 'back@hp.example', active: false });
+    await importFile(
+      agent,
+      client.id,
+      'First name,Last name,E-mail\r\nBea,Sample,back@hp.example\r\n',
+    );
+    expect((await people(client.id)).map((person) => person.active)).toEqual([true]);
+  });
+});
+
+describe('the directory export imported again', () => {
+  it('changes nobody: leavers stay inactive', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    await importFile(
+      agent,
+      client.id,
+      'First name,Last name,E-mail\r\nAda,Pike,ada@hp.example\r\nBo,Reed,bo@hp.example\r\n',
+    );
+    await t.db
+      .updateTable('people')
+      .set({ active: false })
+      .where('email', '=', 'bo@hp.example')
+      .execute();
+    const exported = await agent
+      .get(`/api/clients/${client.id}/people/export.csv?status=all`)
+      .buffer(true)
+      .parse(binaryBody)
+      .expect(200);
+    const draft = await uploadRoster(agent, client.id, exported.body as Buffer).expect(201);
+    expect(draft.body.counts).toMatchObject({ add: 0, update: 0, unchanged: 2, error: 0 });
   });
 });

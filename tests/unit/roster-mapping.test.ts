@@ -36,8 +36,13 @@ describe('suggesting a column mapping', () => {
     ]);
   });
 
-  it('keeps unknown columns as extras, ignores blanks and our own Status column', () => {
-    expect(suggestMapping(['T-shirt size', '', 'Status'])).toEqual(['extra', 'ignore', 'ignore']);
+  it('keeps unknown columns as extras, ignores blanks and reads our own Status column as the status', () => {
+    expect(suggestMapping(['T-shirt size', '', 'Status'])).toEqual(['extra', 'ignore', 'status']);
+  });
+
+  it('takes a Status column remembered as left out (the old default) for the status, but not another choice', () => {
+    expect(suggestMapping(['Status'], { status: 'ignore' })).toEqual(['status']);
+    expect(suggestMapping(['Status'], { status: 'extra' })).toEqual(['extra']);
   });
 
   it('ignores the "What to fix" column of its own rows-to-fix file, uploaded again', () => {

@@ -22,8 +22,8 @@ export const fixColumnHeader = 'What to fix';
 const fixColumnKey = normaliseHeader(fixColumnHeader);
 export const isFixColumn = (header: string) => normaliseHeader(header) === fixColumnKey;
 
-/** Columns our own export writes that are not data to keep. */
-const ignored = ['status', 'active'];
+/** Headers of a column saying whether each person is active (our own export writes "Status"). */
+const statusHeaders = ['status', 'active', 'employment status', 'employee status', 'active status'];
 
 const lookup = new Map<string, RosterField>();
 for (const [field, words] of Object.entries(headerSynonyms) as [RosterField, string[]][]) {
@@ -78,8 +78,11 @@ export function suggestMapping(
     let target: ColumnTarget;
     // The rows-to-fix reasons are never data, whatever an earlier import chose for them.
     if (key === '' || isFixColumn(header)) target = 'ignore';
+    // Status columns were once always left out: a remembered "leave out" for one is that old
+    // default, not a choice, and leaving it out would make every leaver in the file active.
+    else if (statusHeaders.includes(key) && (!saved[key] || saved[key] === 'ignore'))
+      target = 'status';
     else if (saved[key]) target = saved[key];
-    else if (ignored.includes(key)) target = 'ignore';
     else target = fieldOfHeader(key) ?? 'extra';
     if (target !== 'extra' && target !== 'ignore' && taken.has(target)) target = 'extra';
     if (target === 'extra' && !saved[key]) unknown.push(index);

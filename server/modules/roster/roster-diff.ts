@@ -155,7 +155,7 @@ export function createRosterDiff(
       // garbage was most of the diff's time). The checked row is not read again.
       const values: PreviewValues = row;
       values.extras = item.extras;
-      values.active = true;
+      values.active = item.active ?? true;
       return {
         position,
         rowNumber: item.rowNumber,
@@ -199,8 +199,10 @@ export function createRosterDiff(
       after.extras = item.extras;
       changed.push('extras');
     }
-    if (!match.active) {
-      after.active = true;
+    // In the file means on staff, unless its status column says otherwise.
+    const active = item.active ?? true;
+    if (match.active !== active) {
+      after.active = active;
       changed.push('active');
     }
     const conflict = !!row.employeeId && !!match.employeeId && row.employeeId !== match.employeeId;

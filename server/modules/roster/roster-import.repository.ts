@@ -27,7 +27,7 @@ type WrittenKind = 'add' | 'update' | 'conflict';
 const previewValues = (clientId: string, draftId: string, kinds: readonly WrittenKind[]) => sql`
   select r.person_id, r.position, r.given_name, r.family_name, r.preferred_name, r.email,
          r.employee_id, r.department, r.job_title, o.id as office_id,
-         coalesce(r.extras, '{}') as extras
+         coalesce(r.extras, '{}') as extras, coalesce(r.active, true) as active
   from roster_import_rows r
   left join offices o on o.client_id = ${clientId}::uuid and lower(o.name) = lower(r.office)
   where r.draft_id = ${draftId}::uuid and r.kind = any(${kinds}::text[])`;
@@ -35,9 +35,9 @@ const previewValues = (clientId: string, draftId: string, kinds: readonly Writte
 export async function insertPreviewedPeople(db: Db, clientId: string, draftId: string) {
   const result = await sql`
     insert into people (client_id, given_name, family_name, preferred_name, email, employee_id,
-                        department, job_title, office_id, extras)
+                        department, job_title, office_id, extras, active)
     select ${clientId}::uuid, given_name, family_name, preferred_name, email, employee_id,
-           department, job_title, office_id, extras
+           department, job_title, office_id, extras, active
     from (${previewValues(clientId, draftId, ['add'])}) as added`.execute(db);
   return Number(result.numAffectedRows ?? 0);
 }
@@ -54,7 +54,7 @@ export async function updatePreviewedPeople(
       given_name = u.given_name, family_name = u.family_name, preferred_name = u.preferred_name,
       email = u.email, employee_id = u.employee_id, department = u.department,
       job_title = u.job_title, office_id = u.office_id, extras = u.extras,
-      active = true, updated_at = now()
+      active = u.active, updated_at = now()
     from (${previewValues(clientId, draftId, kinds)}) as u
     where p.id = u.person_id and p.client_id = ${clientId}::uuid`.execute(db);
   return Number(result.numAffectedRows ?? 0);

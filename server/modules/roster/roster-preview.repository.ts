@@ -23,6 +23,7 @@ const storedColumns = [
   ...rosterFields.map(columnOf),
   'extras',
   'detail',
+  'active',
 ];
 
 /**
@@ -56,6 +57,8 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: Iterable
     record[5 + rosterFields.length] =
       extras && Object.keys(extras).length > 0 ? JSON.stringify(extras) : null;
     record[6 + rosterFields.length] = detail;
+    // Error rows say nothing (their values are the cells as read); missing people are false.
+    record[7 + rosterFields.length] = row.kind === 'error' ? null : (row.values.active ?? null);
     return record;
   });
 }
@@ -73,6 +76,7 @@ const previewColumns = [
   'department',
   'jobTitle',
   'office',
+  'active',
   'extras',
   'detail',
 ] as const;
@@ -80,13 +84,13 @@ const previewColumns = [
 type StoredPreviewRow = Pick<Selectable<RosterImportRowsTable>, (typeof previewColumns)[number]>;
 
 function toPreviewRow(row: StoredPreviewRow): PreviewRow {
-  const { position, rowNumber, kind, personId, extras, detail, ...values } = row;
+  const { position, rowNumber, kind, personId, extras, detail, active, ...values } = row;
   return {
     position,
     rowNumber,
     kind,
     personId,
-    values: { ...values, extras: extras ?? {}, active: kind !== 'missing' },
+    values: { ...values, extras: extras ?? {}, active: active ?? kind !== 'missing' },
     before: (detail?.before as PreviewRow['before']) ?? null,
     changedFields: detail?.changedFields ?? [],
     errors: detail?.errors ?? {},

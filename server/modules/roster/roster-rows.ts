@@ -2,6 +2,7 @@ import type { DecodeWarning } from '../../db/roster-types';
 import { z } from 'zod';
 import {
   personTextLimit,
+  readStatus,
   rosterRowSchema,
   type ColumnMapping,
   type RosterField,
@@ -15,6 +16,8 @@ export interface CheckedRow {
   values: Partial<Record<RosterField, string | null>>;
   row: RosterRow | null;
   extras: Record<string, string>;
+  /** What the status column says: active or not; null when there is none or it is blank. */
+  active: boolean | null;
   errors: Record<string, string>;
   /** Per field (or extra column's header): what decoding or matching changed or kept. */
   warnings: Record<string, string>;
@@ -83,11 +86,13 @@ function fieldChecker(field: RosterField) {
 function columnsOf(mapping: ColumnMapping) {
   const fieldColumns = new Map<RosterField, number>();
   const extraColumns: number[] = [];
+  let statusColumn: number | undefined;
   mapping.forEach((target, index) => {
     if (target === 'extra') extraColumns.push(index);
+    else if (target === 'status') statusColumn = index;
     else if (target !== 'ignore') fieldColumns.set(target, index);
   });
-  return { fieldColumns, extraColumns };
+  return { fieldColumns, extraColumns, statusColumn };
 }
 
 /** The warnings' key for values the header gives no column to (the preview shows it as is). */
@@ -116,7 +121,11 @@ function warningsByRow(
     const target = mapping[warning.column];
     if (!target || target === 'ignore') continue;
     const key =
-      target === 'extra' ? (headers[warning.column] ?? `Column ${warning.column + 1}`) : target;
+      target === 'extra'
+        ? (headers[warning.column] ?? `Column ${warning.column + 1}`)
+        : target === 'status'
+          ? 'active'
+          : target;
     const entry = byRow.get(warning.row) ?? {};
     entry[key] =
       'strayBytes' in warning
@@ -144,7 +153,7 @@ export function createRowChecker(
   const seenEmails = new Map<string, number>();
   const seenIds = new Map<string, number>();
   const rowWarnings = warningsByRow(headers, mapping, decodeWarnings);
-  const { fieldColumns, extraColumns } = columnsOf(mapping);
+  const { fieldColumns, extraColumns, statusColumn } = columnsOf(mapping);
   const fields = Object.keys(rosterRowSchema.shape) as RosterField[];
   const checkers = fields.map((field) => ({
     field,
@@ -162,13 +171,18 @@ export function createRowChecker(
       if (outcome !== null && typeof outcome === 'object') (errors ??= {})[field] = outcome.message;
       else row[field] = outcome;
     }
+    const active = statusColumn === undefined ? null : readStatus(cells[statusColumn]);
+    if (active === undefined) {
+      // Keyed "active" as the preview names that field "Status".
+      (errors ??= {}).active = 'Write Active or Inactive here, or leave it blank.';
+    }
     if (errors) {
       const values: Partial<Record<RosterField, string>> = {};
       for (const [field, column] of fieldColumns) values[field] = cells[column] ?? '';
       // "Enter a valid e-mail address" reads wrong for a blank cell in a file.
       if (errors.email && (values.email ?? '').trim() === '')
         errors.email = 'The e-mail is missing.';
-      return { rowNumber, values, row: null, extras, errors, warnings };
+      return { rowNumber, values, row: null, extras, active: active ?? null, errors, warnings };
     }
     const valid = row as RosterRow;
     const earlierEmail = seenEmails.get(valid.email);
@@ -184,6 +198,7 @@ export function createRowChecker(
       values: errors ? { ...valid } : valid,
       row: errors ? null : valid,
       extras,
+      active: active ?? null,
       errors: errors ?? none,
       warnings,
     };

@@ -105,7 +105,9 @@ function* previewRows(
 ): Generator<PreviewRow> {
   if (!roster.diffed) return;
   const check = createRowChecker(file.headers, mapping, file.warnings, file.rowNumbers);
-  const mapped = new Set(mapping.filter((target) => target !== 'extra' && target !== 'ignore'));
+  const mapped = new Set(
+    mapping.filter((target) => target !== 'extra' && target !== 'ignore' && target !== 'status'),
+  );
   const diff = createRosterDiff(
     roster.diffed.existing,
     roster.diffed.offices.map((office) => office.name),

@@ -2,6 +2,7 @@ import { useState, type FormEvent } from 'react';
 import {
   rosterFieldLabels,
   rosterFields,
+  statusTargetLabel,
   type ColumnMapping,
   type ColumnTarget,
   type RosterDraft,
@@ -13,6 +14,7 @@ import { useRemapImport } from '../api/remap-import';
 
 const targetOptions: Array<{ value: ColumnTarget; label: string }> = [
   ...rosterFields.map((field) => ({ value: field, label: rosterFieldLabels[field] })),
+  { value: 'status', label: statusTargetLabel },
   { value: 'extra', label: 'Keep as an extra column' },
   { value: 'ignore', label: 'Leave out' },
 ];
