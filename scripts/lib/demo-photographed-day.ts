@@ -55,6 +55,9 @@ export async function loadDemoPhotographedDay(deps: {
     clockOffsetMs: 3 * 60_000 + 12_000, // the camera runs a little fast, as cameras do
     firstNumber: 412,
     serial: 'CV-58213',
+    // Upright 2:3 frames, as a camera held for a portrait gives: with the hand marks where they
+    // start, every preset rendition fits without enlarging the photo (tests/server/days-demo).
+    frame: { width: 1600, height: 2400 },
   });
 
   const { dayId, stationId } = await db.transaction().execute(async (trx) => {

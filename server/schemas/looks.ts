@@ -87,6 +87,19 @@ export type LookInput = z.input<typeof lookSchema>;
 export const pointSchema = z.object({ x: z.number(), y: z.number() });
 export type Point = z.infer<typeof pointSchema>;
 
+/**
+ * Where the hand marks start on a photo with no eyes found: either side of the middle, 16 % of
+ * the shorter side apart, two fifths down (a head-and-shoulders frame, common practice; the
+ * shorter side, so a landscape frame does not start with a face too large for its framing).
+ */
+export function startingEyeMarks(width: number, height: number): { left: Point; right: Point } {
+  const half = (Math.min(width, height) * 0.16) / 2;
+  return {
+    left: { x: width / 2 - half, y: height * 0.4 },
+    right: { x: width / 2 + half, y: height * 0.4 },
+  };
+}
+
 /** What the client is told about one planned rendition (plan, or the reason it was refused). */
 export const cropRefusalReasons = [
   'eyes_outside_image',

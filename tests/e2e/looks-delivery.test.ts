@@ -122,6 +122,16 @@ describe('looks and delivery', () => {
     await page.getByText(/Eye marks saved for/).waitFor();
     await runQueuedJobs(env.testApp);
     await grid.getByText('eyes marked by hand').waitFor({ timeout: 15_000 });
+    // A mark put down wrongly can be moved again, starting from where it is.
+    const markedRow = grid.getByRole('row').filter({ hasText: 'eyes marked by hand' });
+    await markedRow.getByRole('button', { name: /Move the eye marks of/ }).click();
+    const again = grid.getByRole('button', { name: /Right eye mark/ });
+    await again.focus();
+    await page.keyboard.press('Shift+ArrowRight');
+    await grid.getByRole('button', { name: 'Save the eye marks' }).click();
+    await page.getByText(/Eye marks saved for/).waitFor();
+    await runQueuedJobs(env.testApp);
+    await markedRow.getByRole('button', { name: /Move the eye marks of/ }).waitFor();
     await page.getByRole('button', { name: 'Release the set to HR and the sitters' }).click();
     await page.getByText(/^Release 1: /).waitFor();
     await context.close();

@@ -1,5 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadDemoPhotographedDay } from '../../scripts/lib/demo-photographed-day';
+import { planCrop } from '../../server/modules/looks/crop-geometry';
+import { lookPresets } from '../../server/modules/looks/look-presets';
+import { startingEyeMarks } from '../../server/schemas/looks';
 import { DEMO_PASSWORD, loadDemoScenario } from '../../scripts/lib/demo-scenario';
 import { runQueuedJobs } from './booking-jobs';
 import { startTestApp, type TestApp } from '../setup/test-app';
@@ -66,5 +69,28 @@ describe('demo shoot days', () => {
     // Six sitters, each with a slate and four frames (the generated card's plan).
     expect([...perPerson.keys()].sort()).toEqual(aldermoor.map((person) => person.id).sort());
     for (const count of perPerson.values()) expect(count).toBe(5);
+
+    // Tried at once: with the hand marks where they start, every preset rendition fits the
+    // demo's frames (the refusals are the look's own rules, see crop-geometry.ts).
+    const sizes = await t.db
+      .selectFrom('frames')
+      .select(['pixelWidth as width', 'pixelHeight as height'])
+      .where('dayId', '=', loaded!.dayId)
+      .execute();
+    expect(sizes.length).toBeGreaterThan(0);
+    for (const { width, height } of sizes) {
+      expect(width, 'frame read').not.toBeNull();
+      const marks = startingEyeMarks(width!, height!);
+      for (const { rendition } of lookPresets) {
+        const plan = planCrop({
+          imageWidth: width!,
+          imageHeight: height!,
+          leftEye: marks.left,
+          rightEye: marks.right,
+          rendition,
+        });
+        expect(plan.ok ? 'fits' : plan.message, rendition.name).toBe('fits');
+      }
+    }
   });
 });

@@ -30,6 +30,8 @@ export function planCard(options: {
   /** One more frame of this sitting, shot just after it was finished on the console. */
   lateFrameIn?: number;
   serial?: string;
+  /** Pixel size of every frame; small by default, which keeps the tests quick. */
+  frame?: { width: number; height: number };
 }): CardPlan {
   const serial = options.serial ?? 'CV-40117';
   let position = { folder: 100, number: options.firstNumber };
@@ -40,8 +42,8 @@ export function planCard(options: {
     files.push({
       cardPath: dcfName(position.folder, position.number),
       spec: {
-        width: 640,
-        height: 480,
+        width: options.frame?.width ?? 640,
+        height: options.frame?.height ?? 480,
         dateTimeOriginal: camera.slice(0, 19).replace('T', ' ').replace(/-/g, ':'),
         subSecTimeOriginal: camera.slice(20, 23),
         serial,

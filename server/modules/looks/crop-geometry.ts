@@ -165,7 +165,7 @@ export function planCrop(request: CropRequest): CropResult {
     return refuse(
       'rotation_too_large',
       `The head is tilted ${Math.abs(roll).toFixed(1)}°; ${rendition.name} levels at most ` +
-        `${rendition.maxRotationDeg}°. Choose another frame or allow a larger rotation.`,
+        `${rendition.maxRotationDeg}°. Move the eye marks if they are off the eyes, or choose another frame.`,
     );
   }
   const rotationDeg = roll === 0 ? 0 : -roll;

@@ -1,7 +1,7 @@
 import { useRef, useState, type PointerEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 
-type Point = { x: number; y: number };
+import { startingEyeMarks, type Point } from '../../../../server/schemas/looks';
 
 /**
  * Two eye marks dragged onto a downscaled copy of the portrait (pointer: mouse, pen or touch;
@@ -23,13 +23,7 @@ export function EyeMarker({
   busy: boolean;
 }) {
   const frame = useRef<HTMLDivElement>(null);
-  const [marks, setMarks] = useState(
-    () =>
-      initial ?? {
-        left: { x: imageWidth * 0.42, y: imageHeight * 0.4 },
-        right: { x: imageWidth * 0.58, y: imageHeight * 0.4 },
-      },
-  );
+  const [marks, setMarks] = useState(() => initial ?? startingEyeMarks(imageWidth, imageHeight));
   const [dragging, setDragging] = useState<'left' | 'right' | null>(null);
 
   const toSource = (event: PointerEvent) => {

@@ -18,6 +18,41 @@ export function SetGrid({ set }: { set: DaySet }) {
   const [fixing, setFixing] = useState<string | null>(null);
   const [message, setMessage] = useState<{ tone: 'success' | 'danger'; text: string } | null>(null);
   const needHand = set.sitters.filter((sitter) => sitter.needsAHand);
+  type Sitter = DaySet['sitters'][number];
+  // The marks start where they are (found or marked before), so a wrong mark can be moved.
+  const markerFor = (sitter: Sitter) =>
+    sitter.eyes?.imageWidth && sitter.eyes.imageHeight ? (
+      <EyeMarker
+        pickId={sitter.pickId}
+        imageWidth={sitter.eyes.imageWidth}
+        imageHeight={sitter.eyes.imageHeight}
+        initial={
+          sitter.eyes.left && sitter.eyes.right
+            ? { left: sitter.eyes.left, right: sitter.eyes.right }
+            : null
+        }
+        busy={mark.isPending}
+        onSave={(marks) =>
+          mark.mutate(
+            { pickId: sitter.pickId, ...marks },
+            {
+              onSuccess: () => {
+                setFixing(null);
+                setMessage({
+                  tone: 'success',
+                  text: `Eye marks saved for ${sitter.name}: rendering.`,
+                });
+              },
+              onError: (error) =>
+                setMessage({
+                  tone: 'danger',
+                  text: error instanceof ApiError ? error.message : 'Not saved.',
+                }),
+            },
+          )
+        }
+      />
+    ) : null;
   return (
     <div className="flex flex-col gap-4">
       <div className="flex flex-wrap items-center gap-3">
@@ -62,33 +97,8 @@ export function SetGrid({ set }: { set: DaySet }) {
                   {sitter.name} · {sitter.fileName}:{' '}
                   {eyeWords[sitter.eyes?.status ?? ''] ?? 'Not looked at yet'}
                 </span>
-                {fixing === sitter.pickId && sitter.eyes?.imageWidth && sitter.eyes.imageHeight ? (
-                  <EyeMarker
-                    pickId={sitter.pickId}
-                    imageWidth={sitter.eyes.imageWidth}
-                    imageHeight={sitter.eyes.imageHeight}
-                    initial={null}
-                    busy={mark.isPending}
-                    onSave={(marks) =>
-                      mark.mutate(
-                        { pickId: sitter.pickId, ...marks },
-                        {
-                          onSuccess: () => {
-                            setFixing(null);
-                            setMessage({
-                              tone: 'success',
-                              text: `Eye marks saved for ${sitter.name}: rendering.`,
-                            });
-                          },
-                          onError: (error) =>
-                            setMessage({
-                              tone: 'danger',
-                              text: error instanceof ApiError ? error.message : 'Not saved.',
-                            }),
-                        },
-                      )
-                    }
-                  />
+                {fixing === sitter.pickId ? (
+                  markerFor(sitter)
                 ) : (
                   <div>
                     <Button variant="secondary" onClick={() => setFixing(sitter.pickId)}>
@@ -123,6 +133,19 @@ export function SetGrid({ set }: { set: DaySet }) {
                 <div className="font-normal text-ink-muted">{sitter.employeeId}</div>
                 {sitter.eyes?.status === 'marked' ? (
                   <div className="font-normal text-spruce-700">eyes marked by hand</div>
+                ) : null}
+                {!sitter.needsAHand && sitter.eyes?.left && sitter.eyes.right ? (
+                  fixing === sitter.pickId ? (
+                    markerFor(sitter)
+                  ) : (
+                    <Button
+                      variant="secondary"
+                      className="mt-1"
+                      onClick={() => setFixing(sitter.pickId)}
+                    >
+                      Move the eye marks of {sitter.name}
+                    </Button>
+                  )
                 ) : null}
               </th>
               {set.renditions.map((rendition) => {
