@@ -221,6 +221,35 @@ describe('the delivery set', () => {
     expect(again.body).toMatchObject({ release: 2, files: 6, changed: 3 });
   });
 
+  it('will not release while a new final is not rendered yet, then releases its renditions', async () => {
+    const placed = await placePortrait(await debianPortrait(), {
+      frameWidth: 4000,
+      frameHeight: 5000,
+      left: 760,
+      top: 1240,
+      scale: 5,
+      rollDeg: 0.5,
+    });
+    await sendFinal(pickIds[0]!, 'HPE_0120-Edit2.jpg', placed.frame);
+    await runQueuedJobs(t);
+    const refused = await ready.studio
+      .post(`/api/days/${ready.day.dayId}/delivery/release`)
+      .expect(409);
+    expect(refused.body.error.code).toBe('set_not_rendered');
+    const [first] = await t.db
+      .selectFrom('people')
+      .select(['givenName', 'familyName'])
+      .where('id', '=', ready.sitters[0]!.id)
+      .execute();
+    expect(refused.body.error.message).toContain(`${first!.givenName} ${first!.familyName}`);
+    await ready.studio.post(`/api/days/${ready.day.dayId}/set/prepare`).expect(202);
+    await runQueuedJobs(t);
+    const released = await ready.studio
+      .post(`/api/days/${ready.day.dayId}/delivery/release`)
+      .expect(201);
+    expect(released.body).toMatchObject({ release: 3, files: 6, changed: 3 });
+  });
+
   it('keeps the set from those who may not have it', async () => {
     await ready.studio.get(`/api/days/${ready.day.dayId}/delivery.zip`).expect(403);
     const otherCoordinator = await signedInAgent(

@@ -8,41 +8,70 @@ type Executor = Db | Transaction<Database>;
 
 /** Every rendered rendition of a day's picks, with what a file name and the manifest need. */
 export async function renderedSet(db: Executor, dayId: string, lookVersion: number) {
-  return db
-    .selectFrom('portraitRenditions as rendition')
-    .innerJoin('picks', 'picks.id', 'rendition.pickId')
-    .innerJoin('people', 'people.id', 'picks.personId')
-    .leftJoin('offices', 'offices.id', 'people.officeId')
-    .innerJoin('frames', 'frames.id', 'picks.frameId')
-    .innerJoin('stations', 'stations.id', 'frames.stationId')
-    .where('picks.dayId', '=', dayId)
-    .where('rendition.status', '=', 'rendered')
-    .where('rendition.lookVersion', '=', lookVersion)
-    .select([
-      'picks.id as pickId',
-      'picks.personId',
-      'picks.position',
-      'rendition.renditionName',
-      'rendition.key',
-      'rendition.byteSize',
-      'rendition.sha256',
-      'people.employeeId',
-      'people.email',
-      'people.givenName',
-      'people.familyName',
-      'people.preferredName',
-      'people.department',
-      'offices.name as officeName',
-      'stations.name as stationName',
-      sql<string | null>`to_char(frames.captured_local, 'YYYY-MM-DD"T"HH24:MI:SS')`.as(
-        'capturedLocal',
-      ),
-    ])
-    .orderBy('people.familyName')
-    .orderBy('people.givenName')
-    .orderBy('picks.position')
-    .orderBy('rendition.renditionName')
-    .execute();
+  return (
+    db
+      .selectFrom('portraitRenditions as rendition')
+      .innerJoin('picks', 'picks.id', 'rendition.pickId')
+      .innerJoin('people', 'people.id', 'picks.personId')
+      .leftJoin('offices', 'offices.id', 'people.officeId')
+      .innerJoin('frames', 'frames.id', 'picks.frameId')
+      .innerJoin('stations', 'stations.id', 'frames.stationId')
+      .where('picks.dayId', '=', dayId)
+      .where('rendition.status', '=', 'rendered')
+      .where('rendition.lookVersion', '=', lookVersion)
+      // Rendered from what the pick is now: after a retouched final, the original's are stale.
+      .where(sql<boolean>`rendition.source_key = coalesce(picks.final_key, frames.original_key)`)
+      .select([
+        'picks.id as pickId',
+        'picks.personId',
+        'picks.position',
+        'rendition.renditionName',
+        'rendition.key',
+        'rendition.byteSize',
+        'rendition.sha256',
+        'people.employeeId',
+        'people.email',
+        'people.givenName',
+        'people.familyName',
+        'people.preferredName',
+        'people.department',
+        'offices.name as officeName',
+        'stations.name as stationName',
+        sql<string | null>`to_char(frames.captured_local, 'YYYY-MM-DD"T"HH24:MI:SS')`.as(
+          'capturedLocal',
+        ),
+      ])
+      .orderBy('people.familyName')
+      .orderBy('people.givenName')
+      .orderBy('picks.position')
+      .orderBy('rendition.renditionName')
+      .execute()
+  );
+}
+
+/**
+ * The sitters with a pick lacking one of the look's renditions (rendered or refused) in this
+ * look version from the pick's current source: a new final, or eyes still to be marked.
+ */
+export async function sittersNotRendered(
+  db: Executor,
+  dayId: string,
+  lookVersion: number,
+  renditionNames: readonly string[],
+): Promise<string[]> {
+  const result = await sql<{ name: string }>`
+    select distinct people.family_name, people.given_name,
+           people.given_name || ' ' || people.family_name as name
+    from picks
+    join people on people.id = picks.person_id
+    join frames on frames.id = picks.frame_id
+    where picks.day_id = ${dayId}::uuid
+      and (select count(distinct r.rendition_name) from portrait_renditions r
+           where r.pick_id = picks.id and r.look_version = ${lookVersion}
+             and r.source_key = coalesce(picks.final_key, frames.original_key)
+             and r.rendition_name = any(${renditionNames}::text[])) < ${renditionNames.length}
+    order by people.family_name, people.given_name`.execute(db);
+  return result.rows.map((row) => row.name);
 }
 
 export async function currentSet(db: Executor, dayId: string) {

@@ -11,6 +11,7 @@ import { findDay, type DayRecord } from '../days/days.repository';
 import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import * as mailings from '../invitations/invitations.repository';
 import { findLook } from '../looks/looks.repository';
+import { lookSchema } from '../../schemas/looks';
 import { manifestCsv, missingListCsv } from './delivery-csv';
 import * as repo from './delivery.repository';
 import { uniqueFileNames } from './file-names';
@@ -54,6 +55,20 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
       const day = await findStudioDay(db, viewer, dayId);
       const look = await findLook(db, day.clientId);
       if (!look) throw new AppError('no_look', 409, 'Set up the client’s look first.');
+      const renditionNames = lookSchema
+        .parse({ name: look.name, renditions: look.renditions })
+        .renditions.map((rendition) => rendition.name);
+      // A release is the whole set as it is now: never an older file in place of a new final.
+      const waiting = await repo.sittersNotRendered(db, day.id, look.version, renditionNames);
+      if (waiting.length > 0) {
+        const shown = waiting.slice(0, 5).join(', ');
+        const more = waiting.length > 5 ? ` and ${waiting.length - 5} more` : '';
+        throw new AppError(
+          'set_not_rendered',
+          409,
+          `Not every portrait is rendered in the current look from its latest file: ${shown}${more}. Press "Find eyes and render the set" (and mark any eyes it asks for), then release.`,
+        );
+      }
       const rendered = await repo.renderedSet(db, day.id, look.version);
       if (rendered.length === 0) {
         throw new AppError(
