@@ -180,6 +180,8 @@ export interface MailingLog {
 /** One reminder per person and day within the cool-down; the panel shows what is possible. */
 export interface ReminderState {
   cooldownHours: number;
+  /** Booking has closed: there is nothing left to remind anyone to do. */
+  bookingClosed: boolean;
   /** Unbooked people a reminder would go to now. */
   dueNow: number;
   /** Unbooked people reminded within the cool-down. */

@@ -88,6 +88,7 @@ describe('reminders', () => {
     const log = await coordinator.get(`/api/days/${day.id}/mailings`).expect(200);
     expect(log.body.reminders).toEqual({
       cooldownHours: 24,
+      bookingClosed: false,
       dueNow: 0,
       coolingDown: 2,
       nextAt: first.body.nextReminderAt,

@@ -127,6 +127,14 @@ describe('invitations, reminders and day-before mail through the job queue', () 
     expect(tomorrow[0]!.text).toContain('Solid, mid-tone colours');
     expect(tomorrow[0]!.attachments.some((a) => a.contentType === 'image/png')).toBe(true);
 
+    // Once booking has closed (at the start of the day's date here) no reminder to book goes out.
+    t.clock.advance(Date.parse(`${day.date}T00:00:00Z`) + 60_000 - t.clock.now().getTime());
+    const later = await signedInAgent(t, coordinatorAccount.email);
+    const closed = await later.post(`/api/days/${day.id}/reminders`).expect(409);
+    expect(closed.body.error.code).toBe('booking_closed');
+    const state = await later.get(`/api/days/${day.id}/mailings`).expect(200);
+    expect(state.body.reminders).toMatchObject({ bookingClosed: true, dueNow: 0 });
+
     // Another client's coordinator sees nothing of this day.
     const otherClient = await insertClient(t.db);
     const stranger = await insertStaff(t.db, { role: 'coordinator', clientId: otherClient.id });

@@ -121,6 +121,16 @@ export async function bookedPersonIds(db: Executor, dayId: string): Promise<Set<
   return new Set(rows.map((row) => row.personId));
 }
 
+/** People who came to the day (checked in at a station, booked or not). */
+export async function checkedInPersonIds(db: Executor, dayId: string): Promise<Set<string>> {
+  const rows = await db
+    .selectFrom('checkIns')
+    .select('personId')
+    .where('dayId', '=', dayId)
+    .execute();
+  return new Set(rows.map((row) => row.personId));
+}
+
 /** Confirmed days whose date is within the next two calendar days: candidates for day-before mail. */
 export async function upcomingDayIds(db: Executor, now: Date): Promise<string[]> {
   const rows = await db

@@ -33,7 +33,9 @@ export function createInvitationsService(deps: {
   /** Who a reminder would reach now, and who waits out the cool-down (until when). */
   async function reminderPlan(executor: Db, day: daysRepo.DayRecord) {
     const booked = await repo.bookedPersonIds(executor, day.id);
-    const unbooked = (await invitedIds(day)).filter((id) => !booked.has(id));
+    // Someone who already sat (a walk-in, say) is not asked to book.
+    const came = await repo.checkedInPersonIds(executor, day.id);
+    const unbooked = (await invitedIds(day)).filter((id) => !booked.has(id) && !came.has(id));
     const last = await repo.lastRemindedAt(executor, day.id);
     const now = clock.now().getTime();
     const due: string[] = [];
@@ -158,6 +160,13 @@ export function createInvitationsService(deps: {
      */
     async remind(viewer: Viewer, dayId: string): Promise<QueuedMailings> {
       const day = await confirmedDay(viewer, dayId);
+      if (clock.now().getTime() >= new Date(day.bookingClosesAt).getTime()) {
+        throw new AppError(
+          'booking_closed',
+          409,
+          'Booking for this day has closed, so a reminder would ask people to book a slot they can no longer book.',
+        );
+      }
       return db.transaction().execute(async (trx) => {
         // Under the day's lock, so two presses at once cannot both find the same people due.
         await daysRepo.lockDay(trx, day.id);
@@ -217,12 +226,14 @@ export function createInvitationsService(deps: {
           nextReminderAt: new Date(reminded.getTime() + cooldownMs).toISOString(),
         };
       });
+      const bookingClosed = clock.now().getTime() >= new Date(day.bookingClosesAt).getTime();
       return {
         ...log,
         entries,
         reminders: {
           cooldownHours: cooldownMs / 3_600_000,
-          dueNow: day.status === 'confirmed' ? plan.due.length : 0,
+          bookingClosed,
+          dueNow: day.status === 'confirmed' && !bookingClosed ? plan.due.length : 0,
           coolingDown: plan.coolingDown,
           nextAt: plan.nextAt?.toISOString() ?? null,
         },

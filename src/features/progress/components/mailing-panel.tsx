@@ -66,6 +66,7 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
       </div>
       {reminders ? (
         <p id={`${dayId}-reminder-state`} className="text-sm text-ink-muted">
+          {reminders.bookingClosed ? 'Booking has closed: reminders to book are over. ' : ''}
           One reminder per person every {reminders.cooldownHours} hours.
           {reminders.nextAt
             ? ` ${reminders.coolingDown} reminded recently; the next reminder is possible from ${whenLocal(reminders.nextAt)}.`
