@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseEnvironment, toAppConfig } from '../../server/config';
 import { insertClient, insertOffice, insertPerson, insertStaff } from '../factories/accounts';
 import { insertDay } from '../factories/days';
+import { insertSitting } from '../factories/sittings';
 import { startTestApp, type TestApp } from '../setup/test-app';
 import { runQueuedJobs } from './booking-jobs';
 import { signedInAgent } from './helpers';
@@ -68,6 +69,25 @@ describe('the invited count', () => {
 });
 
 describe('reminders', () => {
+  it('never ask someone who already sat (checked in without a booking) to book', async () => {
+    const { day, invited, coordinatorAccount } = await officeDay(2);
+    await insertSitting(t.db, {
+      dayId: day.id,
+      stationId: day.stations[0]!.id,
+      personId: invited[0]!.id,
+      startedAt: t.clock.now(),
+      firstFrame: 1,
+    });
+    const coordinator = await signedInAgent(t, coordinatorAccount.email);
+    const sent = await coordinator.post(`/api/days/${day.id}/reminders`).expect(202);
+    expect(sent.body).toMatchObject({ queued: 1 });
+    const log = await coordinator.get(`/api/days/${day.id}/mailings`).expect(200);
+    const reminded = log.body.entries
+      .filter((entry: { kind: string }) => entry.kind === 'reminder')
+      .map((entry: { personId: string }) => entry.personId);
+    expect(reminded).toEqual([invited[1]!.id]);
+  });
+
   it('go once per person and day within the cool-down; the log says when the next is possible', async () => {
     const { day, invited, coordinatorAccount } = await officeDay(2);
     const coordinator = await signedInAgent(t, coordinatorAccount.email);
