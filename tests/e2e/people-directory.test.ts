@@ -74,7 +74,7 @@ describe('people directory', () => {
     expect(heights).toHaveLength(24);
     expect(Math.max(...heights)).toBeLessThanOrEqual(52);
 
-    const firstEmail = () => rows.first().locator('td').nth(1).innerText();
+    const firstEmail = () => rows.first().locator('td').nth(2).innerText();
     const sorted = [...emails].sort();
     const header = table.getByRole('columnheader', { name: /Work e-mail/ });
     await header.getByRole('button').click();
@@ -89,8 +89,24 @@ describe('people directory', () => {
       .getByRole('button')
       .click();
     await table.locator('th[aria-sort="ascending"]', { hasText: 'Office' }).waitFor();
-    await expect.poll(() => rows.first().locator('td').nth(5).innerText()).toBe('Leeds');
+    await expect.poll(() => rows.first().locator('td').nth(6).innerText()).toBe('Leeds');
     expect(await seriousAxeViolations(page)).toEqual([]);
+
+    // A row's actions sit beside its name, on screen without scrolling sideways; the form a
+    // row opens comes into view, and deactivating says what happened.
+    const last = rows.nth(23);
+    const edit = last.getByRole('button', { name: /^Edit / });
+    const box = await edit.boundingBox();
+    expect(box!.x + box!.width).toBeLessThanOrEqual(1366);
+    await edit.click();
+    const form = page.getByRole('heading', { name: 'Edit a person' });
+    await form.waitFor();
+    await expect
+      .poll(() => form.evaluate((element) => element.getBoundingClientRect().top))
+      .toBeLessThan(768);
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    await last.getByRole('button', { name: /^Deactivate / }).click();
+    await page.getByText(/is inactive now: listed under Status/).waitFor();
     await context.close();
   });
 });

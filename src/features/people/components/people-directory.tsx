@@ -1,5 +1,5 @@
 import type { ColumnDef, SortingState } from '@tanstack/react-table';
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { PeopleQuery, PeopleSortColumn, Person } from '../../../../server/schemas/people';
 import { Button } from '../../../components/ui/button';
@@ -35,6 +35,13 @@ export function PeopleDirectory({
   const [panel, setPanel] = useState<Panel>(null);
   const [message, setMessage] = useState<string | null>(null);
   const setActive = useSetPersonActive();
+  // The form opens above the table: bring it into view, wherever the row was on the page.
+  const panelRef = useRef<HTMLElement>(null);
+  useEffect(() => {
+    if (!panel) return;
+    panelRef.current?.scrollIntoView({ block: 'start' });
+    panelRef.current?.querySelector<HTMLElement>('input, select, textarea, button')?.focus();
+  }, [panel]);
 
   const filters = { q: search, officeId, department, status, booking };
   const query: PeopleQuery = {
@@ -65,6 +72,54 @@ export function PeopleDirectory({
             ) : null}
           </span>
         ),
+      },
+      {
+        id: 'actions',
+        header: 'Actions',
+        enableSorting: false,
+        cell: ({ row: { original: p } }) => {
+          const name = `${p.givenName} ${p.familyName}`;
+          return (
+            <div className="flex gap-1">
+              <Button
+                variant="quiet"
+                aria-label={`Edit ${name}`}
+                onClick={() => {
+                  setMessage(null);
+                  setPanel({ mode: 'edit', person: p });
+                }}
+              >
+                Edit
+              </Button>
+              <Button
+                variant="quiet"
+                aria-label={`${p.active ? 'Deactivate' : 'Reactivate'} ${name}`}
+                onClick={() =>
+                  setActive.mutate(
+                    { clientId, personId: p.id, active: !p.active },
+                    {
+                      onSuccess: () =>
+                        setMessage(
+                          p.active
+                            ? `${name} is inactive now: listed under Status “Inactive” or “Everyone”, bookings and photos kept. Reactivate there to undo.`
+                            : `${name} is active again.`,
+                        ),
+                    },
+                  )
+                }
+              >
+                {p.active ? 'Deactivate' : 'Reactivate'}
+              </Button>
+              <Button
+                variant="quiet"
+                aria-label={`Erase ${name}`}
+                onClick={() => setPanel({ mode: 'erase', person: p })}
+              >
+                Erase
+              </Button>
+            </div>
+          );
+        },
       },
       {
         id: 'email',
@@ -109,39 +164,6 @@ export function PeopleDirectory({
         enableSorting: false,
         cell: ({ row }) => (row.original.booked ? 'Booked' : 'Not booked'),
       },
-      {
-        id: 'actions',
-        header: 'Actions',
-        enableSorting: false,
-        cell: ({ row: { original: p } }) => {
-          const name = `${p.givenName} ${p.familyName}`;
-          return (
-            <div className="flex gap-1">
-              <Button
-                variant="quiet"
-                aria-label={`Edit ${name}`}
-                onClick={() => setPanel({ mode: 'edit', person: p })}
-              >
-                Edit
-              </Button>
-              <Button
-                variant="quiet"
-                aria-label={`${p.active ? 'Deactivate' : 'Reactivate'} ${name}`}
-                onClick={() => setActive.mutate({ clientId, personId: p.id, active: !p.active })}
-              >
-                {p.active ? 'Deactivate' : 'Reactivate'}
-              </Button>
-              <Button
-                variant="quiet"
-                aria-label={`Erase ${name}`}
-                onClick={() => setPanel({ mode: 'erase', person: p })}
-              >
-                Erase
-              </Button>
-            </div>
-          );
-        },
-      },
     ],
     [clientId, setActive],
   );
@@ -178,6 +200,7 @@ export function PeopleDirectory({
       {setActive.isError ? <Notice tone="danger">{setActive.error.message}</Notice> : null}
       {panel ? (
         <Card
+          ref={panelRef}
           title={
             panel.mode === 'add'
               ? 'Add a person'
