@@ -162,3 +162,25 @@ describe('a UTF-8 file with a few Windows-1252 bytes pasted in', () => {
     }
   });
 });
+
+describe('lines above the header', () => {
+  it('passes over a title line and a "sep=" line, and numbers the rows as a spreadsheet does', () => {
+    // Row numbers: one spreadsheet row per RFC 4180 record (common practice).
+    const titled = parseRosterText(
+      // A spreadsheet quotes the title's comma: one value in its row.
+      '"Staff export, 1 December",,\r\n\r\nFirst name,Last name,E-mail\r\nAda,Quill,ada@hp.example\r\n',
+    );
+    expect(titled.headers).toEqual(['First name', 'Last name', 'E-mail']);
+    expect(titled.rowNumbers).toEqual([4]);
+    // "sep=;" names the separator (common practice in files written for spreadsheets).
+    const hinted = parseRosterText(
+      'sep=;\r\nFirst name;Last name;E-mail\r\nAda;Quill;a@hp.example\r\n',
+    );
+    expect([hinted.delimiter, hinted.rows]).toEqual([';', [['Ada', 'Quill', 'a@hp.example']]]);
+  });
+
+  it("reads a number kept as text with a leading ' as the number, and leaves other apostrophes", () => {
+    const parsed = parseRosterText("First name,Last name,Id\r\n'Apo,Quill,'00123\r\n");
+    expect(parsed.rows).toEqual([["'Apo", 'Quill', '00123']]);
+  });
+});

@@ -139,10 +139,16 @@ const candidates: RosterDelimiter[] = [',', ';', '\t'];
  * in locales with a decimal comma write `;` (common practice); HR tools also write tabs.
  */
 export function detectDelimiter(text: string): RosterDelimiter {
+  // A spreadsheet's "sep=;" first line says it outright (common practice in exports for Excel).
+  const firstLine = text.split(/\r\n|\n|\r/, 50).find((line) => line.trim() !== '') ?? '';
+  const hint = /^"?sep=([,;\t])"?\s*$/i.exec(firstLine)?.[1] as RosterDelimiter | undefined;
+  if (hint) return hint;
   let best: { delimiter: RosterDelimiter; score: number } = { delimiter: ',', score: 0 };
   for (const delimiter of candidates) {
     const sample = Papa.parse<string[]>(text, { delimiter, preview: 20, skipEmptyLines: 'greedy' });
-    const widths = sample.data.map((row) => row.length);
+    // Title lines above the header (one value each) say nothing about the separator.
+    const start = sample.data.findIndex((row) => !isTitleRecord(row));
+    const widths = sample.data.slice(Math.max(0, start)).map((row) => row.length);
     const headerWidth = widths[0] ?? 0;
     if (headerWidth < 2) continue;
     const consistent = widths.filter((width) => width === headerWidth).length / widths.length;
@@ -206,14 +212,32 @@ function refuseLongCell(rowNumber: number, column: string, length: number): AppE
   );
 }
 
-/** The first record that is not blank: files exported with a title gap start lower down. */
-function readHeader(text: string, delimiter: RosterDelimiter): string[] {
-  // papaparse's preview counts the blank lines it skips, so step to the first filled record.
+/** At most one value: a blank line, or a title line such as "Staff export 1 December". */
+function isTitleRecord(cells: readonly string[]): boolean {
+  let values = 0;
+  for (const cell of cells) if (cell.trim() !== '' && (values += 1) > 1) return false;
+  return true;
+}
+
+/** How many title lines a file may have above its header before it is taken for no header. */
+const maxTitleRecords = 5;
+
+/**
+ * The header: the first record with two values or more, after blank lines and up to
+ * maxTitleRecords title lines (or a "sep=" line); `before` counts the non-blank records above.
+ */
+function readHeader(text: string, delimiter: RosterDelimiter): { cells: string[]; before: number } {
+  // papaparse's preview counts the blank lines it skips, so step to the header instead.
   let cells: string[] = [];
+  let before = 0;
   Papa.parse<string[]>(text, {
     delimiter,
     step: (result, parser) => {
       if (isBlankRecord(result.data)) return;
+      if (isTitleRecord(result.data) && before < maxTitleRecords) {
+        before += 1;
+        return;
+      }
       cells = result.data;
       parser.abort();
     },
@@ -226,7 +250,10 @@ function readHeader(text: string, delimiter: RosterDelimiter): string[] {
   }
   const tooLong = cells.findIndex((cell) => cell.length > maxCellCharacters);
   if (tooLong >= 0) throw refuseLongCell(1, `Column ${tooLong + 1}`, cells[tooLong]?.length ?? 0);
-  return cells.map((cell) => cleanCell(cell).value.split(legacyMark).join('').trim());
+  return {
+    cells: cells.map((cell) => cleanCell(cell).value.split(legacyMark).join('').trim()),
+    before,
+  };
 }
 
 /** papaparse's "greedy" blank line: every cell empty or white space. */
@@ -249,7 +276,7 @@ export function parseRosterText(
   if (clean.trim() === '')
     throw refuse('empty_file', 'The file has no rows. Choose the CSV export of your staff list.');
   const delimiter = detectDelimiter(clean);
-  const headers = readHeader(clean, delimiter);
+  const { cells: headers, before: titleRecords } = readHeader(clean, delimiter);
   const named = headers.filter((header) => header !== '');
   if (
     named.length === 0 ||
@@ -292,7 +319,8 @@ export function parseRosterText(
         `A quoted value starting on row ${rowNumber} never ends. Check the quotation marks there.`,
       );
     }
-    if (records === 1 || rows.length >= maxRosterRows) continue;
+    // Title lines, then the header; after them the data.
+    if (records <= titleRecords + 1 || rows.length >= maxRosterRows) continue;
     // A record as wide as the header is rewritten in place: no second array per row.
     const cells: string[] = record.length === width ? record : new Array<string>(width);
     for (let column = 0; column < width; column += 1) {
@@ -324,7 +352,7 @@ export function parseRosterText(
     rows.push(cells);
     rowNumbers.push(rowNumber);
   }
-  const dataRows = records - 1;
+  const dataRows = records - 1 - titleRecords;
   if (dataRows <= 0)
     throw refuse('empty_file', 'The file has a header row but no people under it.');
   if (dataRows > maxRosterRows) {
@@ -351,9 +379,13 @@ function countRecords(text: string, delimiter: RosterDelimiter): number {
   return records - 1;
 }
 
-/** A cell our own export neutralised (OWASP CSV Injection: a leading ') reads back as it was. */
+/**
+ * A cell our own export neutralised (OWASP CSV Injection: a leading ') reads back as it was; so
+ * does a number kept as text with a leading ' (a spreadsheet's way to keep "00123" from
+ * becoming 123, common practice), so it still matches the id stored without it.
+ */
 export function readBackNeutralised(cell: string): string {
-  return cell.charCodeAt(0) === 39 && /^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell;
+  return cell.charCodeAt(0) === 39 && /^'[=+\-@\t\r0-9]/.test(cell) ? cell.slice(1) : cell;
 }
 
 export function parseRosterFile(bytes: Uint8Array): ParsedRosterFile {

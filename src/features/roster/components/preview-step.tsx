@@ -127,7 +127,11 @@ export function PreviewStep({
           >
             Download the rows to fix (CSV)
           </a>
-          , correct them and upload again, or go on without them.
+          {counts.conflict > 0
+            ? ` (with the ${plural(counts.conflict, 'row')} whose e-mail belongs to someone else)`
+            : ''}
+          : save the other rows first, then correct these and upload them as a new import; or go on
+          without them. (Uploading now replaces this preview.)
         </Notice>
       ) : null}
       {draft.rowsWithWarnings > 0 ? (

@@ -75,7 +75,11 @@ export function UploadStep({
           accept=".csv,.txt,text/csv,text/plain"
           aria-describedby={hintId}
           disabled={upload.isPending}
-          onChange={(event) => send(event.target.files?.[0])}
+          onChange={(event) => {
+            send(event.target.files?.[0]);
+            // Cleared, so choosing the same file again (corrected after a refusal) uploads it.
+            event.target.value = '';
+          }}
           className="min-h-touch text-sm file:mr-3 file:min-h-touch file:rounded-control file:border-0 file:bg-spruce-600 file:px-4 file:font-medium file:text-paper-raised"
         />
       </div>
