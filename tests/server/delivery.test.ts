@@ -244,10 +244,26 @@ describe('the delivery set', () => {
     expect(refused.body.error.message).toContain(`${first!.givenName} ${first!.familyName}`);
     await ready.studio.post(`/api/days/${ready.day.dayId}/set/prepare`).expect(202);
     await runQueuedJobs(t);
-    const released = await ready.studio
+    // A double click: two requests at once make one release, and both answer with it.
+    const both = await Promise.all(
+      [1, 2].map(() =>
+        ready.studio.post(`/api/days/${ready.day.dayId}/delivery/release`).expect(201),
+      ),
+    );
+    expect(both.map((answer) => answer.body.release)).toEqual([3, 3]);
+    const made = both.find((answer) => !answer.body.unchanged);
+    expect(made?.body).toMatchObject({ release: 3, files: 6, changed: 3 });
+    const again = await ready.studio
       .post(`/api/days/${ready.day.dayId}/delivery/release`)
       .expect(201);
-    expect(released.body).toMatchObject({ release: 3, files: 6, changed: 3 });
+    expect(again.body).toMatchObject({ release: 3, unchanged: true, changed: 0 });
+    expect(
+      await t.db
+        .selectFrom('deliveries')
+        .select('release')
+        .where('dayId', '=', ready.day.dayId)
+        .execute(),
+    ).toHaveLength(3);
   });
 
   it('keeps the set from those who may not have it', async () => {

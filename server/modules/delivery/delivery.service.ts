@@ -7,7 +7,7 @@ import { addJob, addJobs, type JobHandlers } from '../../jobs/job-queue';
 import { recordAudit } from '../../lib/audit';
 import { AppError, forbidden, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
-import { findDay, type DayRecord } from '../days/days.repository';
+import { findDay, lockDay, type DayRecord } from '../days/days.repository';
 import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import * as mailings from '../invitations/invitations.repository';
 import { findLook } from '../looks/looks.repository';
@@ -96,7 +96,7 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
       const before = new Map(
         (await repo.currentSet(db, day.id)).map((row) => [
           `${row.pickId}:${row.renditionName}`,
-          row.sha256,
+          { sha256: row.sha256, fileName: row.fileName },
         ]),
       );
       const rows = rendered.map((row, index) => ({
@@ -108,13 +108,28 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
         key: row.key!,
         byteSize: row.byteSize ?? '0',
         sha256: row.sha256!,
-        changed: before.get(`${row.pickId}:${row.renditionName}`) !== row.sha256,
+        // A new file, or the same one under a new name (HR's systems go by the name).
+        changed:
+          before.get(`${row.pickId}:${row.renditionName}`)?.sha256 !== row.sha256 ||
+          before.get(`${row.pickId}:${row.renditionName}`)?.fileName !== names[index],
       }));
       const changed = rows.filter((row) => row.changed).length;
       const previous = await repo.latestRelease(db, day.id);
+      const summary = {
+        files: rows.length,
+        people: new Set(rows.map((row) => row.personId)).size,
+      };
+      // Nothing new since the last release (a second click, say): that release stands.
+      if (previous && changed === 0 && rows.length === before.size) {
+        return { release: previous.release, changed: 0, unchanged: true, ...summary };
+      }
       const release = (previous?.release ?? 0) + 1;
       const people = [...new Set(rows.filter((row) => row.changed).map((row) => row.personId))];
-      await db.transaction().execute(async (trx) => {
+      const made = await db.transaction().execute(async (trx) => {
+        // Two releases at once: the second finds the first and answers with it.
+        await lockDay(trx, day.id);
+        const latest = await repo.latestRelease(trx, day.id);
+        if ((latest?.release ?? 0) !== (previous?.release ?? 0)) return latest?.release ?? 0;
         await repo.replaceSet(
           trx,
           { id: randomUUID(), dayId: day.id, release, userId: viewer.id, changed },
@@ -142,13 +157,10 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
           subjectId: day.id,
           details: { release, files: rows.length, changed },
         });
+        return release;
       });
-      return {
-        release,
-        files: rows.length,
-        changed,
-        people: new Set(rows.map((row) => row.personId)).size,
-      };
+      if (made !== release) return { release: made, changed: 0, unchanged: true, ...summary };
+      return { release, changed, unchanged: false, ...summary };
     },
 
     async status(viewer: Viewer, dayId: string) {

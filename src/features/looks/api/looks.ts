@@ -134,7 +134,7 @@ export const useDeliveryStatus = (dayId: string) =>
 
 export const useReleaseSet = (dayId: string) =>
   useSetMutation(dayId, () =>
-    api<{ release: number; files: number; changed: number; people: number }>(
+    api<{ release: number; files: number; changed: number; people: number; unchanged: boolean }>(
       `/days/${dayId}/delivery/release`,
       { method: 'POST' },
     ),

@@ -38,7 +38,9 @@ export function DeliveryPanel({
                 onSuccess: (result) =>
                   setMessage({
                     tone: 'success',
-                    text: `Release ${result.release}: ${result.files} files, ${result.changed} new or changed. Sitters whose portraits changed get their link by e-mail.`,
+                    text: result.unchanged
+                      ? `Nothing changed since release ${result.release}: it stands, and nobody is mailed again.`
+                      : `Release ${result.release}: ${result.files} files, ${result.changed} new or changed. Sitters whose portraits changed get their link by e-mail.`,
                   }),
                 onError: (error) =>
                   setMessage({
