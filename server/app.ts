@@ -242,7 +242,7 @@ export function createApp(deps: AppDeps) {
   );
   registerProofsRoutes(
     routes,
-    proofsServiceFor({ db, clock, mailer, auth }),
+    proofsServiceFor({ db, clock, mailer, auth, reminderCooldownMs: config.reminderCooldownMs }),
     createSitterProofsService({
       db,
       clock,

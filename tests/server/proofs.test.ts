@@ -146,11 +146,17 @@ describe('proofs and picks', () => {
   it('shows the coordinator counts, reminds only those who have not picked, and keeps proofs from HR', async () => {
     const progress = await coordinator.get(`/api/days/${day.dayId}/proofs`).expect(200);
     expect(progress.body).toMatchObject({ released: true, withProofs: 2, picked: 1, notPicked: 1 });
-    const reminded = await coordinator.post(`/api/days/${day.dayId}/proofs/remind`).expect(201);
-    expect(reminded.body).toEqual({ queued: 1 });
+    // A double click reminds once: the second finds that person reminded a moment ago.
+    const [first, second] = await Promise.all(
+      [1, 2].map(() => coordinator.post(`/api/days/${day.dayId}/proofs/remind`).expect(201)),
+    );
+    expect([first!.body.queued, second!.body.queued].sort()).toEqual([0, 1]);
     await runQueuedJobs(t);
     const reminders = t.mail.list().filter((mail) => /Reminder: choose/.test(mail.subject));
     expect(reminders.map((mail) => mail.to)).toEqual([[sitters[1]!.email]]);
+    const soon = await coordinator.post(`/api/days/${day.dayId}/proofs/remind`).expect(201);
+    expect(soon.body).toMatchObject({ queued: 0, coolingDown: 1 });
+    expect(Date.parse(soon.body.nextReminderAt)).toBeGreaterThan(t.clock.now().getTime());
     const hr = await coordinator.get(`/api/days/${day.dayId}/proofs/people/${sitters[1]!.id}`);
     expect(hr.status).toBe(409);
     expect(hr.body.error.code).toBe('hr_choice_off');

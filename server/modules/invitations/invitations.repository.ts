@@ -145,12 +145,16 @@ export async function upcomingDayIds(db: Executor, now: Date): Promise<string[]>
 }
 
 /** When each person of the day was last reminded (queued), for the reminder cool-down. */
-export async function lastRemindedAt(db: Executor, dayId: string): Promise<Map<string, Date>> {
+export async function lastRemindedAt(
+  db: Executor,
+  dayId: string,
+  kind: 'reminder' | 'proofs_reminder' = 'reminder',
+): Promise<Map<string, Date>> {
   const rows = await db
     .selectFrom('dayMailings')
     .select(['personId', (eb) => eb.fn.max('queuedAt').as('last')])
     .where('dayId', '=', dayId)
-    .where('kind', '=', 'reminder')
+    .where('kind', '=', kind)
     .groupBy('personId')
     .execute();
   return new Map(rows.map((row) => [row.personId, new Date(row.last)]));

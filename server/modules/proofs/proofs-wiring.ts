@@ -10,11 +10,13 @@ export function proofsServiceFor(deps: {
   clock: Clock;
   mailer: Mailer;
   auth: AuthService;
+  reminderCooldownMs?: number;
 }) {
   return createProofsService({
     db: deps.db,
     clock: deps.clock,
     mailer: deps.mailer,
+    reminderCooldownMs: deps.reminderCooldownMs,
     // The sign-in link lands the sitter straight on their proofs.
     issueSitterLink: async (personId, next) =>
       `${await deps.auth.issueSitterInvitationLink(personId)}?next=${encodeURIComponent(next)}`,

@@ -1,13 +1,15 @@
 import { randomUUID } from 'node:crypto';
+import type { Transaction } from 'kysely';
 import type { Clock } from '../../adapters/clock';
 import type { Mailer } from '../../adapters/mail/mailer';
 import type { Db } from '../../db/database';
+import type { Database } from '../../db/types';
 import { addJob, addJobs, type JobHandlers } from '../../jobs/job-queue';
 import { recordAudit } from '../../lib/audit';
 import { AppError, forbidden, notFound } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import type { ProofProgress, ProofSettingsInput } from '../../schemas/proofs';
-import { findDay, type DayRecord } from '../days/days.repository';
+import { findDay, lockDay, type DayRecord } from '../days/days.repository';
 import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import { zonedTimeToInstant } from '../days/zoned-time';
 import * as mailings from '../invitations/invitations.repository';
@@ -18,6 +20,7 @@ import * as repo from './proofs.repository';
 export const PROOF_MAIL_TASK = 'proof-mail';
 export const SETTLE_PICKS_TASK = 'settle-picks';
 const DAY = 24 * 3_600_000;
+type Trx = Transaction<Database>;
 
 export type ProofsService = ReturnType<typeof createProofsService>;
 
@@ -27,8 +30,11 @@ export function createProofsService(deps: {
   clock: Clock;
   mailer: Mailer;
   issueSitterLink: (personId: string, next: string) => Promise<string>;
+  /** One proof reminder per person and day within this time (REMINDER_COOLDOWN_HOURS). */
+  reminderCooldownMs?: number;
 }) {
   const { db, clock } = deps;
+  const cooldownMs = deps.reminderCooldownMs ?? DAY;
 
   const visibleDay = (viewer: Viewer, dayId: string) => findFollowedDay(db, viewer, dayId);
 
@@ -38,32 +44,43 @@ export function createProofsService(deps: {
     kind: 'proofs' | 'proofs_reminder',
     personIds: string[],
   ) {
-    return db.transaction().execute(async (trx) => {
-      let round = 1;
-      if (kind === 'proofs_reminder') {
-        const bumped = await trx
-          .updateTable('dayProofs')
-          .set((eb) => ({ reminderRounds: eb('reminderRounds', '+', 1) }))
-          .where('dayId', '=', day.id)
-          .returning('reminderRounds')
-          .executeTakeFirstOrThrow();
-        round = bumped.reminderRounds;
-      }
-      const ids = await mailings.insertMailings(trx, day.id, personIds, kind, round);
-      await addJobs(
-        trx,
-        PROOF_MAIL_TASK,
-        ids.map((mailingId) => ({ payload: { mailingId }, jobKey: `proof-mail:${mailingId}` })),
-      );
-      await recordAudit(trx, {
-        actorUserId: viewer.id,
-        action: `proofs.${kind}_queued`,
-        subjectType: 'shoot_day',
-        subjectId: day.id,
-        details: { count: ids.length },
-      });
-      return ids.length;
+    return db.transaction().execute((trx) => queueMailWith(trx, viewer, day, kind, personIds));
+  }
+
+  const queueMailIn = (trx: Trx, viewer: Viewer, day: DayRecord, personIds: string[]) =>
+    queueMailWith(trx, viewer, day, 'proofs_reminder', personIds);
+
+  async function queueMailWith(
+    trx: Trx,
+    viewer: Viewer,
+    day: DayRecord,
+    kind: 'proofs' | 'proofs_reminder',
+    personIds: string[],
+  ) {
+    let round = 1;
+    if (kind === 'proofs_reminder') {
+      const bumped = await trx
+        .updateTable('dayProofs')
+        .set((eb) => ({ reminderRounds: eb('reminderRounds', '+', 1) }))
+        .where('dayId', '=', day.id)
+        .returning('reminderRounds')
+        .executeTakeFirstOrThrow();
+      round = bumped.reminderRounds;
+    }
+    const ids = await mailings.insertMailings(trx, day.id, personIds, kind, round);
+    await addJobs(
+      trx,
+      PROOF_MAIL_TASK,
+      ids.map((mailingId) => ({ payload: { mailingId }, jobKey: `proof-mail:${mailingId}` })),
+    );
+    await recordAudit(trx, {
+      actorUserId: viewer.id,
+      action: `proofs.${kind}_queued`,
+      subjectType: 'shoot_day',
+      subjectId: day.id,
+      details: { count: ids.length },
     });
+    return ids.length;
   }
 
   const sendMail = (mailingId: string, lastAttempt: boolean) =>
@@ -217,9 +234,29 @@ export function createProofsService(deps: {
         repo.peopleWithProofs(db, day.id),
         repo.pickedPersonIds(db, day.id),
       ]);
-      const due = people.filter((person) => !picked.has(person.id)).map((person) => person.id);
-      if (due.length === 0) return { queued: 0 };
-      return { queued: await queueMail(viewer, day, 'proofs_reminder', due) };
+      const unpicked = people.filter((person) => !picked.has(person.id));
+      // Under the day's lock, so a double click cannot find the same people due twice; anyone
+      // reminded within the cool-down waits (as booking reminders do).
+      return db.transaction().execute(async (trx) => {
+        await lockDay(trx, day.id);
+        const last = await mailings.lastRemindedAt(trx, day.id, 'proofs_reminder');
+        const now = clock.now().getTime();
+        const due: string[] = [];
+        let nextAt: number | null = null;
+        for (const person of unpicked) {
+          const freeAt = (last.get(person.id)?.getTime() ?? -Infinity) + cooldownMs;
+          if (freeAt <= now) due.push(person.id);
+          else nextAt = nextAt === null ? freeAt : Math.min(nextAt, freeAt);
+        }
+        const coolingDown = unpicked.length - due.length;
+        const queued = due.length > 0 ? await queueMailIn(trx, viewer, day, due) : 0;
+        if (queued > 0) nextAt = Math.min(nextAt ?? Infinity, now + cooldownMs);
+        return {
+          queued,
+          coolingDown,
+          nextReminderAt: nextAt === null ? null : new Date(nextAt).toISOString(),
+        };
+      });
     },
 
     async progress(viewer: Viewer, dayId: string): Promise<ProofProgress> {

@@ -31,7 +31,10 @@ export const useReleaseProofs = (dayId: string) =>
 
 export const useRemindProofs = (dayId: string) =>
   useDayProofsMutation(dayId, () =>
-    api<{ queued: number }>(`/days/${dayId}/proofs/remind`, { method: 'POST' }),
+    api<{ queued: number; coolingDown: number; nextReminderAt: string | null }>(
+      `/days/${dayId}/proofs/remind`,
+      { method: 'POST' },
+    ),
   );
 
 export const useStudioPick = (dayId: string) =>

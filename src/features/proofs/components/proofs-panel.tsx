@@ -94,7 +94,13 @@ export function ProofsPanel({
             onClick={() =>
               remind.mutate(undefined, {
                 onSuccess: (result) =>
-                  setMessage({ tone: 'success', text: `Reminder queued for ${result.queued}.` }),
+                  setMessage({
+                    tone: 'success',
+                    text:
+                      result.queued > 0
+                        ? `Reminder queued for ${result.queued}.`
+                        : `Nobody was reminded: the ${result.coolingDown} not chosen yet had a reminder lately${result.nextReminderAt ? `; the next is possible from ${new Date(result.nextReminderAt).toLocaleString()}` : ''}.`,
+                  }),
                 onError: failed,
               })
             }
