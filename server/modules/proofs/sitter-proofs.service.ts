@@ -33,7 +33,7 @@ export function createSitterProofsService(deps: {
     if (!day) throw notFound('That shoot day');
     if (viewer.role === 'sitter') {
       if (viewer.id !== personId || viewer.clientId !== day.clientId)
-        throw notFound('Those proofs');
+        throw notFound('That set of proofs');
     } else if (viewer.role === 'coordinator') {
       const settings = await repo.proofSettings(db, day.clientId);
       if (viewer.clientId !== day.clientId) throw notFound('That shoot day');
@@ -49,7 +49,7 @@ export function createSitterProofsService(deps: {
       throw forbidden('Proofs are chosen by the sitter.');
     }
     const proofs = await repo.dayProofs(db, day.id);
-    if (!proofs) throw notFound('Those proofs');
+    if (!proofs) throw notFound('That set of proofs');
     return { day, proofs };
   }
 
@@ -59,7 +59,7 @@ export function createSitterProofsService(deps: {
       repo.picksOf(db, day.id, personId),
       repo.proofSettings(db, day.clientId),
     ]);
-    if (frames.length === 0) throw notFound('Those proofs');
+    if (frames.length === 0) throw notFound('That set of proofs');
     const now = clock.now().getTime();
     const result: SitterProofs = {
       dayId: day.id,
