@@ -6,6 +6,7 @@ import type { ObjectStorage } from '../../server/adapters/storage/storage';
 import type { Db } from '../../server/db/database';
 import type { Viewer } from '../../server/lib/viewer';
 import { wallClockAt, zonedTimeToInstant } from '../../server/modules/days/zoned-time';
+import { newPassToken } from '../../server/modules/booking/pass';
 import { createFramesService } from '../../server/modules/frames/frames.service';
 // The generated camera card the tests use: invented camera, DCF names, slates as QR codes.
 import { cardFileBytes, planCard } from '../../tests/support/shoot-day-card';
@@ -91,15 +92,41 @@ export async function loadDemoPhotographedDay(deps: {
       .executeTakeFirstOrThrow();
     for (const sitting of plan.sittings) {
       const personId = people[sitting.index]!.id;
+      // As the day went: each sitter was invited (the mail sent a week before), booked the slot
+      // they sat in and was checked in by their pass, so every page's figures agree.
+      const invitedAt = new Date(at('09:00').getTime() - 7 * 24 * 3_600_000);
+      await trx
+        .insertInto('dayMailings')
+        .values({
+          dayId: day.id,
+          personId,
+          kind: 'invitation',
+          status: 'sent',
+          queuedAt: invitedAt,
+          sentAt: invitedAt,
+        })
+        .execute();
+      const booking = await trx
+        .insertInto('bookings')
+        .values({
+          dayId: day.id,
+          stationId: station.id,
+          personId,
+          startsAt: sitting.startedAt,
+          passToken: newPassToken(),
+          calendarUid: `${randomUUID()}@likeness`,
+        })
+        .returning('id')
+        .executeTakeFirstOrThrow();
       const checkIn = await trx
         .insertInto('checkIns')
         .values({
           id: randomUUID(),
           dayId: day.id,
           personId,
-          bookingId: null,
+          bookingId: booking.id,
           stationId: station.id,
-          method: 'search',
+          method: 'pass',
           checkedInAt: sitting.startedAt,
           tabletAt: sitting.startedAt,
         })

@@ -70,6 +70,21 @@ describe('demo shoot days', () => {
     expect([...perPerson.keys()].sort()).toEqual(aldermoor.map((person) => person.id).sort());
     for (const count of perPerson.values()) expect(count).toBe(5);
 
+    // The day's figures agree page to page: six invited, booked, checked in, photographed.
+    const coordinator = request.agent(t.app);
+    await coordinator
+      .post('/api/session')
+      .send({ email: 'hr@aldermoor.example', password: DEMO_PASSWORD })
+      .expect(201);
+    const progress = await coordinator.get(`/api/days/${loaded!.dayId}/progress`).expect(200);
+    expect(progress.body).toMatchObject({
+      invited: 6,
+      booked: 6,
+      checkedIn: 6,
+      photographed: 6,
+      unbooked: 0,
+    });
+
     // Tried at once: with the hand marks where they start, every preset rendition fits the
     // demo's frames (the refusals are the look's own rules, see crop-geometry.ts).
     const sizes = await t.db
