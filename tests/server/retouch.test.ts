@@ -1,3 +1,5 @@
+import { randomUUID } from 'node:crypto';
+import { replacePicks } from '../../server/modules/proofs/proofs.repository';
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -176,6 +178,47 @@ describe('the retouch queue', () => {
       .select('subjectId')
       .execute();
     expect(audit.map((entry) => entry.subjectId)).toEqual([row!.pickId]);
+  });
+
+  it('keeps a final when its sitter chooses another portrait and then the same one again', async () => {
+    const done = (await queue()).rows.find((row) => row.hasFinal)!;
+    const pick = await t.db
+      .selectFrom('picks')
+      .where('id', '=', done.pickId)
+      .select(['dayId', 'personId', 'frameId', 'finalKey'])
+      .executeTakeFirstOrThrow();
+    const other = await t.db
+      .selectFrom('frames')
+      .where('dayId', '=', pick.dayId)
+      .where('id', '!=', pick.frameId)
+      .select('id')
+      .executeTakeFirstOrThrow();
+    // The sitter's two choices, as the proof page sends them (each a new pick id).
+    const choose = (frameId: string) =>
+      t.db.transaction().execute((trx) =>
+        replacePicks(trx, {
+          dayId: pick.dayId,
+          personId: pick.personId,
+          chosenBy: 'sitter',
+          chosenByUserId: null,
+          picks: [{ id: randomUUID(), frameId, note: null }],
+        }),
+      );
+    await choose(other.id);
+    await choose(pick.frameId);
+    const back = await t.db
+      .selectFrom('picks')
+      .where('dayId', '=', pick.dayId)
+      .where('personId', '=', pick.personId)
+      .select(['id', 'frameId', 'finalKey', 'retouchStatus'])
+      .execute();
+    expect(back).toHaveLength(1);
+    expect(back[0]).toMatchObject({
+      frameId: pick.frameId,
+      finalKey: pick.finalKey,
+      retouchStatus: 'done',
+    });
+    await studio.get(`/api/picks/${back[0]!.id}/final`).expect(200);
   });
 
   it('refuses a non-image or a huge image as a final, and changes nothing', async () => {

@@ -121,6 +121,20 @@ export async function replacePicks(
   },
 ) {
   const keep = input.picks.map((pick) => pick.frameId);
+  // The finals of picks let go are set aside: choosing the same frame again brings them back.
+  await sql`
+    insert into set_aside_finals (day_id, person_id, frame_id, final_key, final_file_name,
+      final_byte_size, final_uploaded_at, final_uploaded_by_user_id, retouch_user_id)
+    select day_id, person_id, frame_id, final_key, final_file_name, final_byte_size,
+           final_uploaded_at, final_uploaded_by_user_id, retouch_user_id
+    from picks
+    where day_id = ${input.dayId}::uuid and person_id = ${input.personId}::uuid
+      and final_key is not null and not (frame_id = any(${keep}::uuid[]))
+    on conflict (day_id, person_id, frame_id) do update set
+      final_key = excluded.final_key, final_file_name = excluded.final_file_name,
+      final_byte_size = excluded.final_byte_size, final_uploaded_at = excluded.final_uploaded_at,
+      final_uploaded_by_user_id = excluded.final_uploaded_by_user_id,
+      retouch_user_id = excluded.retouch_user_id, set_aside_at = now()`.execute(trx);
   let removal = trx
     .deleteFrom('picks')
     .where('dayId', '=', input.dayId)
@@ -151,6 +165,24 @@ export async function replacePicks(
       )
       .execute();
   }
+  await sql`
+    with restored as (
+      delete from set_aside_finals s
+      using picks p
+      where s.day_id = p.day_id and s.person_id = p.person_id and s.frame_id = p.frame_id
+        and p.day_id = ${input.dayId}::uuid and p.person_id = ${input.personId}::uuid
+        and p.final_key is null
+      returning s.*
+    )
+    update picks p set
+      final_key = r.final_key, final_file_name = r.final_file_name,
+      final_byte_size = r.final_byte_size, final_uploaded_at = r.final_uploaded_at,
+      final_uploaded_by_user_id = r.final_uploaded_by_user_id,
+      retouch_user_id = r.retouch_user_id, retouch_status = 'done', updated_at = now()
+    from restored r
+    where p.day_id = r.day_id and p.person_id = r.person_id and p.frame_id = r.frame_id`.execute(
+    trx,
+  );
 }
 
 /** How many of the people with proofs have picked, per day. */
