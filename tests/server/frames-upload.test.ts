@@ -173,6 +173,20 @@ describe('uploading a card over tus (tus 1.0 resumable upload protocol)', () => 
     // The same name after a card reset is another frame: different content, kept.
     await uploadWhole(photographer, cardPath, await cameraJpeg({ shade: 61 }));
     expect((await frameRows()).filter((row) => row.cardPath === cardPath)).toHaveLength(2);
+    // The same bytes chosen again under another name ("Choose files" gives the bare file
+    // name): the same photo, kept once, and the upload page's pre-check knows it too.
+    const renamed = await uploadWhole(photographer, 'HPE_0005.JPG', bytes);
+    expect(renamed.headers.get('likeness-upload-outcome')).toBe('duplicate');
+    expect((await frameRows()).filter((row) => row.cardPath === 'HPE_0005.JPG')).toEqual([]);
+    const known = await fetch(`${photographer.origin}/api/days/${day.dayId}/frames/known`, {
+      method: 'POST',
+      headers: { cookie: photographer.cookie, 'Content-Type': 'application/json' },
+      body: JSON.stringify({ files: [{ cardPath: 'copy/HPE_0005.JPG', sha256: sha256(bytes) }] }),
+    });
+    expect(known.status).toBe(200);
+    expect((await known.json()).known).toEqual([
+      { cardPath: 'copy/HPE_0005.JPG', sha256: sha256(bytes) },
+    ]);
   });
 
   it('pairs a raw file with the JPEG of the same name and number (DCF, JEITA CP-3461)', async () => {

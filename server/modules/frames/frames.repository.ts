@@ -87,17 +87,19 @@ export async function closeUpload(
     .execute();
 }
 
+/**
+ * The day's frame with these bytes, under whatever name it came: the same file chosen again
+ * from another folder (or renamed) is the same photo, not a new proof.
+ */
 export async function findFrameByContent(
   db: Executor,
   dayId: string,
-  cardPath: string,
   sha256: string,
 ): Promise<string | undefined> {
   const row = await db
     .selectFrom('frames')
     .select('id')
     .where('dayId', '=', dayId)
-    .where('cardPath', '=', cardPath)
     .where('contentSha256', '=', sha256)
     .executeTakeFirst();
   return row?.id;
@@ -234,15 +236,15 @@ export async function knownFiles(
   files: Array<{ cardPath: string; sha256: string }>,
 ): Promise<Array<{ cardPath: string; sha256: string }>> {
   if (files.length === 0) return [];
+  // Known by content alone, as findFrameByContent: the name on this card may differ.
   const rows = await db
     .selectFrom('frames')
-    .select(['cardPath', 'contentSha256'])
+    .select('contentSha256')
     .where('dayId', '=', dayId)
-    .where(
-      sql<boolean>`(card_path, content_sha256) in (select * from unnest(${files.map((file) => file.cardPath)}::text[], ${files.map((file) => file.sha256)}::text[]))`,
-    )
+    .where('contentSha256', 'in', [...new Set(files.map((file) => file.sha256))])
     .execute();
-  return rows.map((row) => ({ cardPath: row.cardPath, sha256: row.contentSha256 }));
+  const known = new Set(rows.map((row) => row.contentSha256));
+  return files.filter((file) => known.has(file.sha256));
 }
 
 /** One page of the day's frames, or every frame when `paged` is false (the CSV). */

@@ -137,7 +137,7 @@ export function createFramesService(deps: {
           'The file changed on the way: send it again.',
         );
       }
-      const existing = await repo.findFrameByContent(db, upload.dayId, upload.cardPath, sha256);
+      const existing = await repo.findFrameByContent(db, upload.dayId, sha256);
       if (existing) {
         await repo.closeUpload(db, upload.id, { status: 'duplicate', frameId: existing });
         return { outcome: 'duplicate', frameId: existing };
@@ -176,7 +176,7 @@ export function createFramesService(deps: {
         if (!inserted) {
           // The same file finished twice at once: the other upload's row stands.
           await storage.delete(originalKey);
-          const twin = await repo.findFrameByContent(db, upload.dayId, upload.cardPath, sha256);
+          const twin = await repo.findFrameByContent(db, upload.dayId, sha256);
           await repo.closeUpload(db, upload.id, { status: 'duplicate', frameId: twin });
           return { outcome: 'duplicate', frameId: twin ?? frameId };
         }
