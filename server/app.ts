@@ -224,7 +224,19 @@ export function createApp(deps: AppDeps) {
   registerFramesRoutes(routes, frames);
   registerMatchingRoutes(routes, createMatchingService({ db }));
   registerRetouchRoutes(routes, retouch);
-  registerInvoicesRoutes(routes, createInvoicesService({ db, clock, days }));
+  registerInvoicesRoutes(
+    routes,
+    createInvoicesService({
+      db,
+      clock,
+      days,
+      issuer: {
+        name: config.studioName,
+        address: config.studioAddress,
+        taxId: config.studioTaxId,
+      },
+    }),
+  );
   registerDeliveryRoutes(routes, createDeliveryService({ db, clock, storage: deps.storage }));
   registerLooksRoutes(
     routes,

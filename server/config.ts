@@ -97,6 +97,10 @@ export const configSchema = z.object({
   URL_SIGNING_SECRET: z.string().min(32).optional(),
   /** Written as the credit (and in the copyright) of delivered portraits. */
   STUDIO_NAME: z.string().min(1).max(100).default('Northlight Portrait Co.'),
+  /** Printed under the studio's name on invoices (one line; commas as you like). */
+  STUDIO_ADDRESS: z.string().max(200).default('12 Lantern Yard, Leeds'),
+  /** The studio's tax or VAT number, printed on invoices when set. */
+  STUDIO_TAX_ID: z.string().max(40).default(''),
   PROOF_URL_TTL_MINUTES: z.coerce.number().int().min(1).max(1440).default(60),
   /** A person gets at most one booking reminder per day within this many hours. */
   REMINDER_COOLDOWN_HOURS: z.coerce.number().min(0).max(720).default(24),
@@ -112,6 +116,8 @@ export interface AppConfig {
   /** Reply-To of every message and the calendar organiser; null when no reply is wanted. */
   mailReplyTo: string | null;
   studioName: string;
+  studioAddress: string;
+  studioTaxId: string;
   /** false, one hop (true), or the proxy addresses whose X-Forwarded-* headers are believed. */
   trustProxy: boolean | string[];
   logLevel: RawConfig['LOG_LEVEL'];
@@ -158,6 +164,8 @@ export function toAppConfig(raw: RawConfig): AppConfig {
     mailFrom: parseMailFrom(raw.MAIL_FROM, raw.STUDIO_NAME),
     mailReplyTo: raw.MAIL_REPLY_TO ?? null,
     studioName: raw.STUDIO_NAME,
+    studioAddress: raw.STUDIO_ADDRESS,
+    studioTaxId: raw.STUDIO_TAX_ID,
     trustProxy: raw.TRUST_PROXY,
     logLevel: raw.LOG_LEVEL,
     sessionTtlMs: raw.SESSION_TTL_HOURS * HOUR,

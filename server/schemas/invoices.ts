@@ -189,8 +189,17 @@ export interface ClientSummary {
   }>;
 }
 
+/** Who issues the invoice: the studio, as configured when it was issued. */
+export interface InvoiceIssuer {
+  name: string;
+  address: string;
+  taxId: string;
+}
+
 /** Everything an issued invoice prints, frozen when it was issued. */
 export interface InvoiceSnapshot extends InvoiceTotals {
+  /** Absent on invoices issued before the issuer was printed. */
+  issuer?: InvoiceIssuer;
   clientName: string;
   officeName: string;
   dayDate: string;

@@ -172,6 +172,9 @@ describe('summary and invoice of a generated day', () => {
     expect(csv.text.split('\r\n')).toEqual([
       `\uFEFFInvoice,LK-${year}-0002`,
       `Issued,${issued.body.invoice.issuedAt.slice(0, 10)}`,
+      // The studio issuing it, from STUDIO_NAME and STUDIO_ADDRESS (their defaults here).
+      'From,Northlight Portrait Co.',
+      'Address,"12 Lantern Yard, Leeds"',
       `Client,"'=HYPERLINK(""x"") Portraits"`,
       'Shoot day,Leeds 2030-03-14',
       'Currency,GBP',
@@ -207,7 +210,9 @@ describe('summary and invoice of a generated day', () => {
     const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
     const lines = text.split('\n').map((line) => line.trim().replace(/\s{2,}/g, ' | '));
     expect(lines).toContain(`LK-${year}-0001 | Issued ${t.clock.now().toISOString().slice(0, 10)}`);
-    expect(lines).toContain(generated.client.name);
+    expect(lines.some((line) => line.endsWith('Northlight Portrait Co.'))).toBe(true);
+    expect(lines.some((line) => line.endsWith('12 Lantern Yard, Leeds'))).toBe(true);
+    expect(lines.some((line) => line.startsWith(generated.client.name))).toBe(true);
     expect(lines).toContain('Leeds · 2030-03-14');
     for (const expected of [
       'Shoot day | 1 | £950.00 | £950.00',

@@ -11,6 +11,13 @@ export function invoiceCsv(invoice: Invoice): { fileName: string; csv: string } 
   const rows: string[][] = [
     ['Invoice', invoice.number],
     ['Issued', invoice.issuedAt.slice(0, 10)],
+    ...(invoice.issuer
+      ? [
+          ['From', invoice.issuer.name],
+          ['Address', invoice.issuer.address],
+          ...(invoice.issuer.taxId ? [['Tax number', invoice.issuer.taxId]] : []),
+        ]
+      : []),
     ['Client', invoice.clientName],
     ['Shoot day', `${invoice.officeName} ${invoice.dayDate}`],
     ['Currency', invoice.currency],

@@ -110,6 +110,15 @@ export function writeInvoicePdf(invoice: Invoice, out: Writable): Promise<void> 
     align: 'right',
     color: muted,
   });
+  if (invoice.issuer) {
+    // The studio issuing it, on the right, facing the client it bills.
+    const from = { width, align: 'right' as const };
+    draw('From', left, 130, { ...from, size: 9, color: muted });
+    draw(invoice.issuer.name, left, 143, { ...from, size: 12, weight: 'semibold' });
+    draw(invoice.issuer.address, left, 160, { ...from, size: 10 });
+    if (invoice.issuer.taxId)
+      draw(`Tax number ${invoice.issuer.taxId}`, left, 174, { ...from, size: 10 });
+  }
   draw('Bill to', left, 130, { size: 9, color: muted });
   draw(invoice.clientName, left, 143, { size: 12, weight: 'semibold' });
   draw('Shoot day', left, 170, { size: 9, color: muted });

@@ -9,6 +9,7 @@ import type {
   DaySummary,
   Invoice,
   InvoiceRef,
+  InvoiceIssuer,
   InvoiceSnapshot,
   PriceList,
   PriceListAnswer,
@@ -51,7 +52,12 @@ const zeroCounts = (): DayCounts => ({
  * A day's figures from its own records, and the client's invoice for it. The studio admin
  * sets prices and issues; a coordinator reads their own client's figures and invoices.
  */
-export function createInvoicesService(deps: { db: Db; clock: Clock; days: DaysService }) {
+export function createInvoicesService(deps: {
+  db: Db;
+  clock: Clock;
+  days: DaysService;
+  issuer: InvoiceIssuer;
+}) {
   const { db, clock, days } = deps;
 
   /** A coordinator asking about another client learns nothing, not even that it exists. */
@@ -187,6 +193,7 @@ export function createInvoicesService(deps: { db: Db; clock: Clock; days: DaysSe
         const counts = await repo.dayCounts(trx, day, priceList.renditionsIncluded);
         const snapshot: InvoiceSnapshot = {
           ...invoiceLines(counts, priceList),
+          issuer: deps.issuer,
           clientName: day.clientName,
           officeName: day.officeName,
           dayDate: day.date,

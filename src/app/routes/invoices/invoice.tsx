@@ -39,7 +39,15 @@ export function InvoicePage() {
         </div>
         <p className="text-ink-muted">Issued {invoice.issuedAt.slice(0, 10)}</p>
       </header>
-      <dl className="grid gap-3 sm:grid-cols-2">
+      <dl className="grid gap-3 sm:grid-cols-3">
+        {invoice.issuer ? (
+          <div>
+            <dt className="text-sm text-ink-muted">From</dt>
+            <dd className="font-semibold">{invoice.issuer.name}</dd>
+            <dd>{invoice.issuer.address}</dd>
+            {invoice.issuer.taxId ? <dd>Tax number {invoice.issuer.taxId}</dd> : null}
+          </div>
+        ) : null}
         <div>
           <dt className="text-sm text-ink-muted">Bill to</dt>
           <dd className="font-semibold">{invoice.clientName}</dd>
