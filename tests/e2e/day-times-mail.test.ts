@@ -39,6 +39,8 @@ describe('a coordinator on the day itself', () => {
       date: today,
       opensAt: '09:00',
       closesAt: '17:00',
+      // Sitters may still book themselves this afternoon, so a reminder still makes sense.
+      bookingClosesAt: new Date(zonedTimeToInstant(today, '16:00', 'Europe/London')),
     });
     await insertPerson(t.db, client.id, { officeId: office.id, givenName: 'Oskar' });
     await insertPerson(t.db, client.id, { officeId: office.id, givenName: 'Wren' });
