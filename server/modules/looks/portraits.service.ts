@@ -48,18 +48,45 @@ export function createPortraitsService(deps: {
     // A person's marks on this same image win; a new final is looked at afresh.
     if (!known || known.sourceKey !== pick.sourceKey) {
       const finding = await deps.eyeFinder().find(await buffer(await storage.read(pick.sourceKey)));
-      await repo.saveEyes(db, {
-        pickId,
-        sourceKey: pick.sourceKey,
-        status: finding.status,
-        left: finding.status === 'found' ? finding.leftEye : null,
-        right: finding.status === 'found' ? finding.rightEye : null,
-        rollDeg: finding.rollDeg,
-        confidence: finding.confidence,
-        imageWidth: finding.width,
-        imageHeight: finding.height,
-        markedByUserId: null,
-      });
+      // Marks put down by hand on the original still fit a final of the same size (a retouch
+      // keeps the framing) when the finder cannot see the eyes on it either.
+      const keepMarks =
+        finding.status !== 'found' &&
+        known?.status === 'marked' &&
+        known.imageWidth === finding.width &&
+        known.imageHeight === finding.height &&
+        known.leftX !== null &&
+        known.leftY !== null &&
+        known.rightX !== null &&
+        known.rightY !== null;
+      await repo.saveEyes(
+        db,
+        keepMarks
+          ? {
+              pickId,
+              sourceKey: pick.sourceKey,
+              status: 'marked',
+              left: { x: known.leftX!, y: known.leftY! },
+              right: { x: known.rightX!, y: known.rightY! },
+              rollDeg: known.rollDeg,
+              confidence: 1,
+              imageWidth: finding.width,
+              imageHeight: finding.height,
+              markedByUserId: known.markedByUserId,
+            }
+          : {
+              pickId,
+              sourceKey: pick.sourceKey,
+              status: finding.status,
+              left: finding.status === 'found' ? finding.leftEye : null,
+              right: finding.status === 'found' ? finding.rightEye : null,
+              rollDeg: finding.rollDeg,
+              confidence: finding.confidence,
+              imageWidth: finding.width,
+              imageHeight: finding.height,
+              markedByUserId: null,
+            },
+      );
     }
     await addJob(db, RENDER_PORTRAIT_TASK, { pickId }, { jobKey: `render:${pickId}` });
   }
