@@ -5,6 +5,12 @@ import { PageHeading } from '../../../components/ui/page-heading';
 import { plural } from '../../../lib/format';
 import { useClients } from '../api/list-clients';
 
+/** Active people on no office's line: the total counts them, the office lines do not. */
+const withoutOffice = (client: {
+  activePeople: number;
+  offices: ReadonlyArray<{ activePeople: number }>;
+}) => client.activePeople - client.offices.reduce((sum, office) => sum + office.activePeople, 0);
+
 export function CoordinatorHome({ name }: { name: string }) {
   const clients = useClients();
   const client = clients.data?.clients[0];
@@ -44,6 +50,13 @@ export function CoordinatorHome({ name }: { name: string }) {
                       <span>{plural(office.activePeople, 'person', 'people')}</span>
                     </li>
                   ))}
+                  {withoutOffice(client) > 0 ? (
+                    // So the lines add up to the total above.
+                    <li className="flex justify-between py-2">
+                      <span className="text-ink-muted">No office given</span>
+                      <span>{plural(withoutOffice(client), 'person', 'people')}</span>
+                    </li>
+                  ) : null}
                 </ul>
                 <p className="mt-3 flex flex-wrap gap-4">
                   <Link
