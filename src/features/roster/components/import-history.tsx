@@ -18,8 +18,9 @@ export function ImportHistory({ clientId }: { clientId: string }) {
               {formatDateTime(entry.importedAt)}
               {entry.importedBy ? ` · ${entry.importedBy}` : ''}
               <span className="block text-sm text-ink-muted">
-                {entry.added} added, {entry.updated} updated, {entry.unchanged} unchanged,{' '}
-                {entry.deactivated} marked inactive, {entry.skipped} left out
+                {entry.added.toLocaleString()} added, {entry.updated.toLocaleString()} updated,{' '}
+                {entry.unchanged.toLocaleString()} unchanged, {entry.deactivated.toLocaleString()}{' '}
+                marked inactive, {entry.skipped.toLocaleString()} left out
               </span>
             </li>
           ))}
