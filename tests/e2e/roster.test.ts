@@ -194,6 +194,11 @@ describe('roster import in the browser', () => {
     await table.getByText('ivy.marlow@ah.example').waitFor();
     await page.getByRole('button', { name: 'Save 2 changes to the roster' }).click();
     await page.getByText('The roster is up to date.').waitFor();
+
+    // Another company's import page is not shown to this coordinator.
+    await page.goto(`/clients/${clientId}/people/import`);
+    await page.getByRole('heading', { level: 1, name: 'Page not found' }).waitFor();
+    expect(await page.getByLabel('Staff list (CSV file)').count()).toBe(0);
     await context.close();
   });
 });

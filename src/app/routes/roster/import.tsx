@@ -8,9 +8,13 @@ import { requireRole } from '../../guards';
 
 export const makeLoader =
   (queryClient: QueryClient) =>
-  async ({ request }: LoaderFunctionArgs) => {
+  async ({ request, params }: LoaderFunctionArgs) => {
     await requireRole(queryClient, request, ['studio_admin', 'coordinator']);
-    await queryClient.ensureQueryData(clientsQueryOptions());
+    const { clients } = await queryClient.ensureQueryData(clientsQueryOptions());
+    // Another company's import page is not shown at all (the API refuses it too).
+    if (!clients.some((client) => client.id === params.clientId)) {
+      throw new Response('That client was not found.', { status: 404 });
+    }
     return null;
   };
 
