@@ -87,6 +87,8 @@ export function MappingStep({
               draft.sampleRows
                 .map((row) => row[index] ?? '')
                 .filter(Boolean)
+                // A long note would fill the page: the start says what the column holds.
+                .map((value) => (value.length > 60 ? `${value.slice(0, 57)}…` : value))
                 .slice(0, 2)
                 .join(' · ') || '(empty)'
             }${

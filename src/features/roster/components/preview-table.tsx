@@ -1,5 +1,5 @@
 import type { ColumnDef, SortingState } from '@tanstack/react-table';
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import {
   rosterFieldLabels,
   type PreviewKind,
@@ -77,6 +77,13 @@ function Changes({ row }: { row: PreviewRow }) {
   );
 }
 
+/** A cell that wraps anywhere: a value with no spaces must not stretch the table off screen. */
+function Long({ children, wide = false }: { children: ReactNode; wide?: boolean }) {
+  return (
+    <div className={`${wide ? 'max-w-md' : 'max-w-56'} [overflow-wrap:anywhere]`}>{children}</div>
+  );
+}
+
 function Details({ row }: { row: PreviewRow }) {
   const warnings = <Messages messages={row.warnings} className="text-caution-600" />;
   if (row.kind === 'error' || row.kind === 'conflict') {
@@ -120,21 +127,28 @@ const columns: ColumnDef<PreviewRow, unknown>[] = [
     id: 'name',
     header: 'Name',
     accessorFn: (row) => `${row.values.familyName ?? ''} ${row.values.givenName ?? ''}`,
-    cell: ({ row }) =>
-      `${row.original.values.givenName ?? ''} ${row.original.values.familyName ?? ''}`.trim() ||
-      '(no name)',
+    cell: ({ row }) => (
+      <Long>
+        {`${row.original.values.givenName ?? ''} ${row.original.values.familyName ?? ''}`.trim() ||
+          '(no name)'}
+      </Long>
+    ),
   },
   {
     id: 'email',
     header: 'E-mail',
     accessorFn: (row) => row.values.email,
-    cell: ({ row }) => row.original.values.email || '(none)',
+    cell: ({ row }) => <Long>{row.original.values.email || '(none)'}</Long>,
   },
   {
     id: 'details',
     header: 'Details',
     enableSorting: false,
-    cell: ({ row }) => <Details row={row.original} />,
+    cell: ({ row }) => (
+      <Long wide>
+        <Details row={row.original} />
+      </Long>
+    ),
   },
 ];
 
