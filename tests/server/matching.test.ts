@@ -166,10 +166,23 @@ describe('matching a day after its card is uploaded', () => {
   it('keeps a frame moved by hand when the match runs again, and says what changed', async () => {
     const stray = plan.files[plan.files.length - 1]!;
     const strayId = frameIdByPath.get(stray.cardPath)!;
-    await agent
-      .post(`/api/days/${day.dayId}/review/decisions`)
-      .send({ action: 'move', frameIds: [strayId], personId: people[2]!.id })
-      .expect(201);
+    // A double click: two identical requests at once record the change once.
+    const clicks = await Promise.all(
+      [1, 2].map(() =>
+        agent
+          .post(`/api/days/${day.dayId}/review/decisions`)
+          .send({ action: 'move', frameIds: [strayId], personId: people[2]!.id })
+          .expect(201),
+      ),
+    );
+    expect(clicks.map((click) => click.body.repeated).sort()).toEqual([false, true]);
+    expect(clicks[0]!.body.changeId).toBe(clicks[1]!.body.changeId);
+    const recorded = await t.db
+      .selectFrom('matchDecisions')
+      .select('id')
+      .where('frameId', '=', strayId)
+      .execute();
+    expect(recorded).toHaveLength(1);
     // Someone corrects the last sitting's first frame at the station: a match is queued by it.
     await t.db
       .updateTable('sittings')
@@ -191,6 +204,10 @@ describe('matching a day after its card is uploaded', () => {
     expect(body.lastRun.cause).toMatch(/sittings|on_demand/);
     expect(body.lastChange).toMatchObject({ action: 'move', frames: 1 });
 
+    // Undo is each person's own: a colleague has nothing of theirs to take back.
+    const colleague = await signedInAgent(t, (await insertStaff(t.db)).email);
+    const theirs = await colleague.post(`/api/days/${day.dayId}/review/undo`).expect(409);
+    expect(theirs.body.error.message).toBe('You have no change to undo.');
     // Undo takes the change back: the frame is a leftover again.
     await agent.post(`/api/days/${day.dayId}/review/undo`).expect(200);
     expect((await listFrames()).find((frame) => frame.id === strayId)?.matchReason).toBe(

@@ -4,6 +4,7 @@ import type { MatchChange } from '../../db/match-types';
 import { AppError } from '../../lib/errors';
 import type { Viewer } from '../../lib/viewer';
 import type { DayReview, MatchDecisionRequest } from '../../schemas/matching';
+import { lockDay } from '../days/days.repository';
 import { findStudioDay } from '../days/studio-day-access';
 import { buildReview } from './review-model';
 import * as matches from './matching.repository';
@@ -24,7 +25,7 @@ export function createMatchingService(deps: { db: Db }) {
       repo.bookedNotPhotographed(db, day.id),
       matches.latestRun(db, day.id),
       matches.matchQueued(db, day.id),
-      repo.latestChange(db, day.id),
+      repo.latestChange(db, day.id, viewer.id),
     ]);
     const decidedPeople = [
       ...new Set(frames.flatMap((frame) => (frame.decidedPersonId ? [frame.decidedPersonId] : []))),
@@ -109,7 +110,25 @@ export function createMatchingService(deps: { db: Db }) {
         }
       }
       const changeId = randomUUID();
-      await db.transaction().execute(async (trx) => {
+      return db.transaction().execute(async (trx) => {
+        // Under the day's lock, so a double click finds the first click's change and stops.
+        await lockDay(trx, day.id);
+        const standing = await repo.standingDecisions(trx, day.id, request.frameIds);
+        const repeated = request.frameIds.map((frameId) => standing.get(frameId));
+        const same = repeated.every(
+          (decision) =>
+            decision &&
+            decision.action === request.action &&
+            decision.personId === (request.personId ?? null) &&
+            decision.sittingId === sittingId,
+        );
+        if (same && repeated[0]) {
+          return {
+            changeId: repeated[0].changeId,
+            frames: request.frameIds.length,
+            repeated: true,
+          };
+        }
         await repo.insertDecisions(
           trx,
           request.frameIds.map((frameId) => ({
@@ -123,15 +142,16 @@ export function createMatchingService(deps: { db: Db }) {
             decidedByUserId: viewer.id,
           })),
         );
+        return { changeId, frames: request.frameIds.length, repeated: false };
       });
-      return { changeId, frames: request.frameIds.length };
     },
 
     /** Takes back the day's latest change; an older decision on the same frames shows again. */
     async undoLast(viewer: Viewer, dayId: string) {
       const day = await findStudioDay(db, viewer, dayId);
-      const change = await repo.latestChange(db, day.id);
-      if (!change) throw new AppError('nothing_to_undo', 409, 'There is no change to undo.');
+      // Your own latest change: undoing a colleague's from another tablet would surprise both.
+      const change = await repo.latestChange(db, day.id, viewer.id);
+      if (!change) throw new AppError('nothing_to_undo', 409, 'You have no change to undo.');
       const frames = await db
         .transaction()
         .execute((trx) => repo.undoChange(trx, day.id, change.changeId));

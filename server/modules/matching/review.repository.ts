@@ -148,12 +148,34 @@ export async function insertDecisions(
   }
 }
 
-/** The day's latest change not yet taken back. */
-export async function latestChange(db: Executor, dayId: string) {
-  return db
+/**
+ * Each frame's latest decision not taken back: a change that repeats them all (a second click)
+ * is not recorded twice.
+ */
+export async function standingDecisions(db: Executor, dayId: string, frameIds: string[]) {
+  const result = await sql<{
+    frameId: string;
+    changeId: string;
+    action: DecisionAction;
+    personId: string | null;
+    sittingId: string | null;
+  }>`
+    select distinct on (frame_id) frame_id as "frameId", change_id as "changeId", action,
+           person_id as "personId", sitting_id as "sittingId"
+    from match_decisions
+    where day_id = ${dayId}::uuid and frame_id = any(${frameIds}::uuid[]) and undone_at is null
+    order by frame_id, decided_at desc, id`.execute(db);
+  return new Map(result.rows.map((row) => [row.frameId, row]));
+}
+
+/** The latest change not yet taken back, of the day or of one person on it. */
+export async function latestChange(db: Executor, dayId: string, userId?: string) {
+  let query = db
     .selectFrom('matchDecisions')
     .where('dayId', '=', dayId)
-    .where('undoneAt', 'is', null)
+    .where('undoneAt', 'is', null);
+  if (userId) query = query.where('decidedByUserId', '=', userId);
+  return query
     .groupBy(['changeId', 'action'])
     .select([
       'changeId',
