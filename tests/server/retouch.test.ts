@@ -110,6 +110,18 @@ describe('the retouch queue', () => {
     await studio.patch(`/api/picks/${row!.pickId}`).send({}).expect(400);
     const other = await signedInAgent(t, (await insertStaff(t.db, { role: 'photographer' })).email);
     await other.patch(`/api/picks/${row!.pickId}`).send({ status: 'to_do' }).expect(403);
+    // The studio admin, on a list loaded before, presses "Take it": told who has it instead.
+    const admin = await insertStaff(t.db, { role: 'studio_admin' });
+    const stale = await (
+      await signedInAgent(t, admin.email)
+    )
+      .patch(`/api/picks/${row!.pickId}`)
+      .send({ status: 'in_progress', takenByMe: true })
+      .expect(409);
+    expect(stale.body.error.code).toBe('pick_taken');
+    expect((await queue('?status=in_progress')).rows).toMatchObject([
+      { pickId: row!.pickId, takenByMe: true },
+    ]);
   });
 
   it('streams every original as one ZIP, one folder per sitter, read back by Info-ZIP unzip', async () => {

@@ -128,6 +128,24 @@ export function createRetouchService(deps: { db: Db; storage: ObjectStorage; max
           : { retouchUserId: change.takenByMe ? viewer.id : null }),
       };
       await db.transaction().execute(async (trx) => {
+        // Taking a pick someone else took since this page loaded would silently move their
+        // work: say who has it instead (read under the row's lock, so two takes cannot cross).
+        if (change.takenByMe) {
+          const holder = await trx
+            .selectFrom('picks')
+            .leftJoin('users', 'users.id', 'picks.retouchUserId')
+            .select(['picks.retouchUserId', 'users.displayName'])
+            .where('picks.id', '=', pick.id)
+            .forUpdate('picks')
+            .executeTakeFirst();
+          if (holder?.retouchUserId && holder.retouchUserId !== viewer.id) {
+            throw new AppError(
+              'pick_taken',
+              409,
+              `${holder.displayName ?? 'Someone'} has taken this pick since the list was loaded. Ask them to let it go first.`,
+            );
+          }
+        }
         await repo.updatePick(trx, pick.id, next);
         await recordAudit(trx, {
           actorUserId: viewer.id,

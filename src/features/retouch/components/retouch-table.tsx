@@ -8,6 +8,7 @@ import {
 } from '../../../../server/schemas/proofs';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
 import { PagedTable } from '../../../components/ui/paged-table';
 import { useRetouchQueue, useUpdatePick, type RetouchParams } from '../api/retouch';
 import { NO_FLASH_WORDING } from '../../../../server/schemas/sitter-wording';
@@ -158,6 +159,8 @@ export function RetouchTable({
   const counts = queue.data?.counts;
   return (
     <div className="flex flex-col gap-3">
+      {/* A refused change (taken by someone else meanwhile, say) says why. */}
+      {update.isError ? <Notice tone="danger">{update.error.message}</Notice> : null}
       {counts ? (
         <p>
           {counts.to_do} to do · {counts.in_progress} in progress · {counts.done} done
