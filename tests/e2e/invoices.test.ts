@@ -76,6 +76,9 @@ describe('summary and invoice', () => {
 
     // Issue it and open it.
     await page.getByRole('button', { name: 'Issue the invoice' }).click();
+    // One more step, as issuing freezes the lines.
+    await page.getByText(/Once issued, the invoice keeps these lines/).waitFor();
+    await page.getByRole('button', { name: 'Issue it now' }).click();
     const year = new Date().getUTCFullYear();
     const number = `LK-${year}-0001`;
     await page.getByRole('link', { name: `Open invoice ${number}` }).click();

@@ -1,4 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -33,6 +34,7 @@ export function DaySummaryPage() {
   const { data: session } = useSession();
   const { data: summary } = useDaySummary(dayId);
   const issue = useIssueInvoice(dayId);
+  const [confirming, setConfirming] = useState(false);
   if (!summary) return null;
   const studioAdmin = session?.user.role === 'studio_admin';
   return (
@@ -71,11 +73,31 @@ export function DaySummaryPage() {
               </p>
               <InvoiceLinesTable totals={summary.draft} caption="Invoice lines, not issued yet" />
               {studioAdmin ? (
-                <div>
-                  <Button busy={issue.isPending} onClick={() => issue.mutate()}>
-                    Issue the invoice
-                  </Button>
-                </div>
+                confirming ? (
+                  // Issuing freezes the lines for good: one more step, saying so.
+                  <div
+                    role="group"
+                    aria-label="Confirm the invoice"
+                    className="flex flex-col gap-3"
+                  >
+                    <p>
+                      Once issued, the invoice keeps these lines and gets its number: retouches or
+                      renditions finished later are not added.
+                    </p>
+                    <div className="flex flex-wrap gap-3">
+                      <Button busy={issue.isPending} onClick={() => issue.mutate()}>
+                        Issue it now
+                      </Button>
+                      <Button variant="secondary" onClick={() => setConfirming(false)}>
+                        Not yet
+                      </Button>
+                    </div>
+                  </div>
+                ) : (
+                  <div>
+                    <Button onClick={() => setConfirming(true)}>Issue the invoice</Button>
+                  </div>
+                )
               ) : null}
             </div>
           ) : (
