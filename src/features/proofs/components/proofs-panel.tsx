@@ -75,7 +75,11 @@ export function ProofsPanel({
                   onSuccess: (result) =>
                     setMessage({
                       tone: 'success',
-                      text: `Proofs queued for ${result.queued} sitter${result.queued === 1 ? '' : 's'}${result.alreadySent > 0 ? ` (${result.alreadySent} had them already)` : ''}.`,
+                      // A second click finds everyone sent already: say that, not "0 queued".
+                      text:
+                        result.queued === 0 && result.alreadySent > 0
+                          ? `Proofs are sent or on their way to all ${result.alreadySent} sitters; nobody new to send them to.`
+                          : `Proofs queued for ${result.queued} sitter${result.queued === 1 ? '' : 's'}${result.alreadySent > 0 ? ` (${result.alreadySent} had them already)` : ''}.`,
                     }),
                   onError: failed,
                 },
