@@ -140,3 +140,18 @@ describe('checkRows against rosterRowSchema parsed whole', () => {
     expect(clean[1]?.errors).toEqual({});
   });
 });
+
+describe('line breaks inside a quoted cell (RFC 4180, section 2, rule 6)', () => {
+  it('become one space in a one-line field, with a warning on it', () => {
+    const [row] = checkRows(
+      ['First name', 'Last name', 'E-mail', 'Job title'],
+      [['Mary\nJane', 'Quill', 'mj.quill@hp.example', 'Engineer\r\n  Level 2']],
+      ['givenName', 'familyName', 'email', 'jobTitle'],
+    );
+    expect(row?.row).toMatchObject({ givenName: 'Mary Jane', jobTitle: 'Engineer Level 2' });
+    expect(row?.warnings).toEqual({
+      givenName: 'The line break in this value was made a space.',
+      jobTitle: 'The line break in this value was made a space.',
+    });
+  });
+});

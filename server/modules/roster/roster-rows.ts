@@ -162,12 +162,19 @@ export function createRowChecker(
   }));
   return (cells, index) => {
     const rowNumber = rowNumbers?.[index] ?? index + 2;
-    const warnings = rowWarnings.get(index) ?? none;
+    let warnings = rowWarnings.get(index) ?? none;
     const extras = extrasOf(headers, cells, extraColumns);
     const row = {} as Record<RosterField, string | null>;
     let errors: Record<string, string> | null = null;
     for (const { field, column, check } of checkers) {
-      const outcome = check(column === undefined ? undefined : (cells[column] ?? ''));
+      let cell = column === undefined ? undefined : (cells[column] ?? '');
+      // A quoted line break inside a name or a title (RFC 4180 allows it) is one line here:
+      // the field holds one line, as the hand-edit form does.
+      if (cell !== undefined && (cell.includes('\n') || cell.includes('\r'))) {
+        cell = cell.replace(/\s*[\r\n]+\s*/g, ' ');
+        warnings = { ...warnings, [field]: 'The line break in this value was made a space.' };
+      }
+      const outcome = check(cell);
       if (outcome !== null && typeof outcome === 'object') (errors ??= {})[field] = outcome.message;
       else row[field] = outcome;
     }
