@@ -67,7 +67,7 @@ describe('roster import in the browser', () => {
     await page.getByRole('button', { name: 'To add: 3' }).waitFor();
     const table = page.getByRole('table', { name: /Preview/ });
     await table.getByText('Enter a valid e-mail address, like name@example.com.').waitFor();
-    await table.getByText('Enter the given name.').waitFor();
+    await table.getByText('The given name is missing.').waitFor();
     await table.getByText('The same e-mail is on row 4.').waitFor();
     await table.getByText('The e-mail is missing.').waitFor();
     await page.getByRole('link', { name: 'Download the rows to fix (CSV)' }).waitFor();

@@ -91,8 +91,13 @@ describe('checkRows against rosterRowSchema parsed whole', () => {
         const first = (messages as string[] | undefined)?.[0];
         if (first) expected[field] = first;
       }
+      // checkRows' own wording for a blank required cell in a file (see roster-rows.ts).
       if (expected.email && (cells[2] ?? '').trim() === '')
         expected.email = 'The e-mail is missing.';
+      if (expected.givenName && (cells[0] ?? '').trim() === '')
+        expected.givenName = 'The given name is missing.';
+      if (expected.familyName && (cells[1] ?? '').trim() === '')
+        expected.familyName = 'The family name is missing.';
       expect(row?.row).toBeNull();
       expect(row?.errors).toEqual(expected);
     });

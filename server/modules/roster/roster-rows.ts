@@ -186,9 +186,14 @@ export function createRowChecker(
     if (errors) {
       const values: Partial<Record<RosterField, string>> = {};
       for (const [field, column] of fieldColumns) values[field] = cells[column] ?? '';
-      // "Enter a valid e-mail address" reads wrong for a blank cell in a file.
+      // "Enter a valid e-mail address" or "Enter the given name" read wrong for a blank cell in
+      // a file: say what is missing, the same way for each field.
       if (errors.email && (values.email ?? '').trim() === '')
         errors.email = 'The e-mail is missing.';
+      if (errors.givenName && (values.givenName ?? '').trim() === '')
+        errors.givenName = 'The given name is missing.';
+      if (errors.familyName && (values.familyName ?? '').trim() === '')
+        errors.familyName = 'The family name is missing.';
       return { rowNumber, values, row: null, extras, active: active ?? null, errors, warnings };
     }
     const valid = row as RosterRow;

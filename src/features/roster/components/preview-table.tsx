@@ -95,7 +95,8 @@ function Details({ row }: { row: PreviewRow }) {
       </>
     );
   }
-  if (row.kind === 'missing') return <span>Will be marked inactive if you choose so below</span>;
+  if (row.kind === 'missing')
+    return <span>Marked inactive only if you choose so (the box under the table)</span>;
   return (
     <>
       {row.kind === 'update' ? (
