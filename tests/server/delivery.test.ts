@@ -20,6 +20,7 @@ let t: TestApp;
 let ready: Awaited<ReturnType<typeof setUpProofsDay>>;
 let admin: request.Agent;
 let coordinator: request.Agent;
+let coordinatorEmail: string;
 const pickIds: string[] = [];
 
 async function sendFinal(pickId: string, fileName: string, bytes: Buffer) {
@@ -39,10 +40,9 @@ beforeAll(async () => {
   t = await startTestApp();
   ready = await setUpProofsDay(t, 2);
   admin = await signedInAgent(t, (await insertStaff(t.db, { role: 'studio_admin' })).email);
-  coordinator = await signedInAgent(
-    t,
-    (await insertStaff(t.db, { role: 'coordinator', clientId: ready.client.id })).email,
-  );
+  coordinatorEmail = (await insertStaff(t.db, { role: 'coordinator', clientId: ready.client.id }))
+    .email;
+  coordinator = await signedInAgent(t, coordinatorEmail);
   for (const sitter of ready.sitters) {
     const proofs = (await sitter.agent.get(`/api/proofs/${ready.day.dayId}`).expect(200)).body;
     await sitter.agent
@@ -114,6 +114,10 @@ describe('the delivery set', () => {
       .post(`/api/days/${ready.day.dayId}/delivery/release`)
       .expect(201);
     expect(released.body).toMatchObject({ release: 1, files: 6, changed: 6, people: 2 });
+    // HR hears of it by mail, with the way to the day.
+    await runQueuedJobs(t);
+    const told = await t.mail.waitFor(coordinatorEmail, { subjectIncludes: 'Portraits ready' });
+    expect(told.text).toContain(`/days/${ready.day.dayId}`);
     const zip = await coordinator
       .get(`/api/days/${ready.day.dayId}/delivery.zip`)
       .buffer(true)

@@ -5,7 +5,11 @@ import type { Db } from '../../db/database';
 import type { JobHandlers } from '../../jobs/job-queue';
 import { findDay } from '../days/days.repository';
 import { sendLoggedMailing } from '../invitations/logged-mail';
-import { issueDownloadLink, PORTRAITS_MAIL_TASK } from './delivery.service';
+import {
+  issueDownloadLink,
+  PORTRAITS_MAIL_TASK,
+  SET_RELEASED_HR_MAIL_TASK,
+} from './delivery.service';
 
 /** "Your portraits are ready": each sitter's personal link, sent once per release that changed theirs. */
 export function portraitsMailTasks(deps: {
@@ -40,6 +44,36 @@ export function portraitsMailTasks(deps: {
     [PORTRAITS_MAIL_TASK]: async (payload, attempt) => {
       const mailingId = (payload as { mailingId?: unknown }).mailingId;
       if (typeof mailingId === 'string') await send(mailingId, attempt.lastAttempt);
+    },
+    // HR learns of a release without having to look: each active coordinator of the client.
+    [SET_RELEASED_HR_MAIL_TASK]: async (payload) => {
+      const { dayId, release } = payload as { dayId?: unknown; release?: unknown };
+      if (typeof dayId !== 'string' || typeof release !== 'number') return;
+      const day = await findDay(db, dayId);
+      if (!day) return;
+      const coordinators = await db
+        .selectFrom('users')
+        .select(['email', 'displayName'])
+        .where('role', '=', 'coordinator')
+        .where('clientId', '=', day.clientId)
+        .where('active', '=', true)
+        .execute();
+      for (const coordinator of coordinators) {
+        const content = renderMail({
+          heading: `Hello ${coordinator.displayName},`,
+          paragraphs: [
+            release === 1
+              ? `The portraits of ${day.clientName}'s ${day.officeName} shoot day on ${day.date} are ready to download, with their manifest.`
+              : `Release ${release} of the portraits of ${day.clientName}'s ${day.officeName} shoot day on ${day.date} is ready: the manifest says which files are new or changed.`,
+          ],
+          action: { label: 'Open the day', url: `${deps.publicUrl}/days/${day.id}` },
+        });
+        await deps.mailer.send({
+          to: coordinator.email,
+          subject: `Portraits ready: ${day.officeName}, ${day.date}`,
+          ...content,
+        });
+      }
     },
   };
 }

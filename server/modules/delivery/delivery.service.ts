@@ -21,6 +21,8 @@ export const PORTRAITS_MAIL_TASK = 'portraits-mail';
 const LINK_TTL_MS = 30 * 24 * 3_600_000;
 const archiveKey = (dayId: string, release: number) => `archives/${dayId}/release-${release}.zip`;
 export const STORE_ARCHIVE_TASK = 'store-set-archive';
+/** Tells the client's coordinators a release is ready (once per release). */
+export const SET_RELEASED_HR_MAIL_TASK = 'set-released-hr-mail';
 export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
 export type DeliveryService = ReturnType<typeof createDeliveryService>;
@@ -140,6 +142,12 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
           STORE_ARCHIVE_TASK,
           { dayId: day.id, release },
           { jobKey: `store-set-archive:${day.id}` },
+        );
+        await addJob(
+          trx,
+          SET_RELEASED_HR_MAIL_TASK,
+          { dayId: day.id, release },
+          { jobKey: `set-released-hr:${day.id}:${release}` },
         );
         const ids = await mailings.insertMailings(trx, day.id, people, 'portraits_ready', release);
         await addJobs(
