@@ -56,5 +56,12 @@ describe('the preview table', () => {
     const sorted = new URL(urls.find((url) => url.includes('sort=name')) ?? '', 'http://x');
     expect(sorted.searchParams.get('direction')).toBe('asc');
     expect(sorted.searchParams.get('page')).toBe('1');
+    // A number column's first press sorts ascending too (row 1 first), like the text ones.
+    // (The first load asks for sort=position already: look only at what the press sends.)
+    const before = urls.length;
+    fireEvent.click(screen.getByRole('button', { name: /^Row/ }));
+    const pressed = () => urls.slice(before).find((url) => url.includes('sort=position'));
+    await waitFor(() => expect(pressed()).toBeTruthy());
+    expect(new URL(pressed() ?? '', 'http://x').searchParams.get('direction')).toBe('asc');
   });
 });

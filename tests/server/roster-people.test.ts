@@ -61,6 +61,33 @@ describe('people directory', () => {
     ]);
     const byOffice = await list(`officeId=${byDepartment.body.people[0].officeId}`);
     expect(byOffice.body.total).toBe(2);
+    // People alike in the sorted column (all in Leeds) come in name order, whichever way: six
+    // of them, so an order by id alone would match by chance once in 720 runs.
+    const officeId = byDepartment.body.people[0].officeId as string;
+    const extra = ['Zeller', 'Moss', 'Brandt', 'Quill'];
+    await t.db
+      .insertInto('people')
+      .values(
+        extra.map((familyName) => ({
+          clientId,
+          officeId,
+          givenName: 'Ada',
+          familyName,
+          email: `${familyName.toLowerCase()}@hp.example`,
+        })),
+      )
+      .execute();
+    try {
+      for (const direction of ['asc', 'desc']) {
+        const sorted = await list(`sort=office&direction=${direction}`);
+        const leeds = sorted.body.people
+          .filter((p: { officeName: string }) => p.officeName === 'Leeds')
+          .map((p: { familyName: string }) => p.familyName);
+        expect(leeds).toEqual(['Ashby', 'Brandt', 'Moss', 'Nair', 'Quill', 'Zeller']);
+      }
+    } finally {
+      await t.db.deleteFrom('people').where('familyName', 'in', extra).execute();
+    }
   });
 
   it('adds and edits a person by hand with the same validation', async () => {

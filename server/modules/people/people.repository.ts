@@ -83,6 +83,10 @@ export async function listPeople(db: Db, clientId: string, filter: PeopleFilter)
       filter.direction === 'asc' ? order.asc().nullsLast() : order.desc().nullsLast(),
     );
   }
+  // People alike in the sorted column come in name order (then id, for a stable page).
+  if (filter.sort !== 'name') {
+    query = query.orderBy('people.familyName').orderBy('people.givenName');
+  }
   // The page and the count run side by side on two connections: a search scans twice.
   const [rows, total] = await Promise.all([
     query

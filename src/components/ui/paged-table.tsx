@@ -52,6 +52,8 @@ export function PagedTable<Row>({
     manualPagination: true,
     manualSorting: true,
     enableMultiSort: false,
+    // Every column's first click sorts ascending (TanStack starts numbers and booleans descending).
+    sortDescFirst: false,
     pageCount,
     state: { sorting, pagination: { pageIndex: page.page - 1, pageSize: page.pageSize } },
     onSortingChange: (updater) =>
@@ -90,7 +92,8 @@ export function PagedTable<Row>({
                       {header.column.getCanSort() ? (
                         <button
                           type="button"
-                          className="inline-flex min-h-touch items-center gap-1 font-semibold hover:text-ink"
+                          // The whole heading cell is the button: a click beside the words sorts too.
+                          className="inline-flex min-h-touch w-full items-center gap-1 text-left font-semibold hover:text-ink"
                           onClick={header.column.getToggleSortingHandler()}
                         >
                           {label}
