@@ -13,6 +13,7 @@ import type { DaysService } from '../days/days.service';
 import { zonedTimeToInstant } from '../days/zoned-time';
 import { invitationMail } from './invitations.mails';
 import * as repo from './invitations.repository';
+import { splitByCooldown } from './reminder-cooldown';
 
 export type InvitationsService = ReturnType<typeof createInvitationsService>;
 export const dayMailJob = 'day-mail';
@@ -37,22 +38,12 @@ export function createInvitationsService(deps: {
     const came = await repo.checkedInPersonIds(executor, day.id);
     const unbooked = (await invitedIds(day)).filter((id) => !booked.has(id) && !came.has(id));
     const last = await repo.lastRemindedAt(executor, day.id);
-    const now = clock.now().getTime();
-    const due: string[] = [];
-    let coolingDown = 0;
-    let nextAt: number | null = null;
-    for (const personId of unbooked) {
-      const reminded = last.get(personId);
-      const freeAt = reminded ? reminded.getTime() + cooldownMs : 0;
-      if (freeAt <= now) {
-        due.push(personId);
-      } else {
-        coolingDown += 1;
-        nextAt = nextAt === null ? freeAt : Math.min(nextAt, freeAt);
-      }
-    }
-    return { due, coolingDown, nextAt: nextAt === null ? null : new Date(nextAt), last };
+    return { ...splitByCooldown(unbooked, last, clock.now().getTime(), cooldownMs), last };
   }
+
+  /** Booking has closed: a reminder to book would ask for what can no longer be done. */
+  const bookingClosed = (day: daysRepo.DayRecord) =>
+    clock.now().getTime() >= new Date(day.bookingClosesAt).getTime();
 
   async function confirmedDay(viewer: Viewer, dayId: string) {
     const day = await days.visibleDay(viewer, dayId);
@@ -160,7 +151,7 @@ export function createInvitationsService(deps: {
      */
     async remind(viewer: Viewer, dayId: string): Promise<QueuedMailings> {
       const day = await confirmedDay(viewer, dayId);
-      if (clock.now().getTime() >= new Date(day.bookingClosesAt).getTime()) {
+      if (bookingClosed(day)) {
         throw new AppError(
           'booking_closed',
           409,
@@ -226,14 +217,14 @@ export function createInvitationsService(deps: {
           nextReminderAt: new Date(reminded.getTime() + cooldownMs).toISOString(),
         };
       });
-      const bookingClosed = clock.now().getTime() >= new Date(day.bookingClosesAt).getTime();
+      const closed = bookingClosed(day);
       return {
         ...log,
         entries,
         reminders: {
           cooldownHours: cooldownMs / 3_600_000,
-          bookingClosed,
-          dueNow: day.status === 'confirmed' && !bookingClosed ? plan.due.length : 0,
+          bookingClosed: closed,
+          dueNow: day.status === 'confirmed' && !closed ? plan.due.length : 0,
           coolingDown: plan.coolingDown,
           nextAt: plan.nextAt?.toISOString() ?? null,
         },

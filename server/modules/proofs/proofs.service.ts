@@ -13,6 +13,7 @@ import { findDay, lockDay, type DayRecord } from '../days/days.repository';
 import { findFollowedDay, findStudioDay } from '../days/studio-day-access';
 import { zonedTimeToInstant } from '../days/zoned-time';
 import * as mailings from '../invitations/invitations.repository';
+import { splitByCooldown } from '../invitations/reminder-cooldown';
 import { sendLoggedMailing } from '../invitations/logged-mail';
 import { proofsMail } from './proofs.mails';
 import * as repo from './proofs.repository';
@@ -46,9 +47,6 @@ export function createProofsService(deps: {
   ) {
     return db.transaction().execute((trx) => queueMailWith(trx, viewer, day, kind, personIds));
   }
-
-  const queueMailIn = (trx: Trx, viewer: Viewer, day: DayRecord, personIds: string[]) =>
-    queueMailWith(trx, viewer, day, 'proofs_reminder', personIds);
 
   async function queueMailWith(
     trx: Trx,
@@ -241,20 +239,25 @@ export function createProofsService(deps: {
         await lockDay(trx, day.id);
         const last = await mailings.lastRemindedAt(trx, day.id, 'proofs_reminder');
         const now = clock.now().getTime();
-        const due: string[] = [];
-        let nextAt: number | null = null;
-        for (const person of unpicked) {
-          const freeAt = (last.get(person.id)?.getTime() ?? -Infinity) + cooldownMs;
-          if (freeAt <= now) due.push(person.id);
-          else nextAt = nextAt === null ? freeAt : Math.min(nextAt, freeAt);
-        }
-        const coolingDown = unpicked.length - due.length;
-        const queued = due.length > 0 ? await queueMailIn(trx, viewer, day, due) : 0;
-        if (queued > 0) nextAt = Math.min(nextAt ?? Infinity, now + cooldownMs);
+        const plan = splitByCooldown(
+          unpicked.map((person) => person.id),
+          last,
+          now,
+          cooldownMs,
+        );
+        const queued =
+          plan.due.length > 0
+            ? await queueMailWith(trx, viewer, day, 'proofs_reminder', plan.due)
+            : 0;
+        // Everyone just reminded waits out the cool-down too.
+        const next =
+          queued > 0
+            ? Math.min(plan.nextAt?.getTime() ?? Infinity, now + cooldownMs)
+            : plan.nextAt?.getTime();
         return {
           queued,
-          coolingDown,
-          nextReminderAt: nextAt === null ? null : new Date(nextAt).toISOString(),
+          coolingDown: plan.coolingDown,
+          nextReminderAt: next === undefined ? null : new Date(next).toISOString(),
         };
       });
     },
