@@ -95,43 +95,43 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
           extension: 'jpg',
         })),
       );
-      const before = new Map(
-        (await repo.currentSet(db, day.id)).map((row) => [
-          `${row.pickId}:${row.renditionName}`,
-          { sha256: row.sha256, fileName: row.fileName },
-        ]),
-      );
-      const rows = rendered.map((row, index) => ({
-        id: randomUUID(),
-        personId: row.personId,
-        pickId: row.pickId,
-        renditionName: row.renditionName,
-        fileName: names[index]!,
-        key: row.key!,
-        byteSize: row.byteSize ?? '0',
-        sha256: row.sha256!,
-        // A new file, or the same one under a new name (HR's systems go by the name).
-        changed:
-          before.get(`${row.pickId}:${row.renditionName}`)?.sha256 !== row.sha256 ||
-          before.get(`${row.pickId}:${row.renditionName}`)?.fileName !== names[index],
-      }));
-      const changed = rows.filter((row) => row.changed).length;
-      const previous = await repo.latestRelease(db, day.id);
       const summary = {
-        files: rows.length,
-        people: new Set(rows.map((row) => row.personId)).size,
+        files: rendered.length,
+        people: new Set(rendered.map((row) => row.personId)).size,
       };
-      // Nothing new since the last release (a second click, say): that release stands.
-      if (previous && changed === 0 && rows.length === before.size) {
-        return { release: previous.release, changed: 0, unchanged: true, ...summary };
-      }
-      const release = (previous?.release ?? 0) + 1;
-      const people = [...new Set(rows.filter((row) => row.changed).map((row) => row.personId))];
-      const made = await db.transaction().execute(async (trx) => {
-        // Two releases at once: the second finds the first and answers with it.
+      // Under the day's lock, the set now is compared with the last release as it stands, so
+      // two releases at once (a double click) make one, and a release with nothing new (a
+      // second click later) makes none: that release stands.
+      return db.transaction().execute(async (trx) => {
         await lockDay(trx, day.id);
-        const latest = await repo.latestRelease(trx, day.id);
-        if ((latest?.release ?? 0) !== (previous?.release ?? 0)) return latest?.release ?? 0;
+        const previous = await repo.latestRelease(trx, day.id);
+        const before = new Map(
+          (await repo.currentSet(trx, day.id)).map((row) => [
+            `${row.pickId}:${row.renditionName}`,
+            { sha256: row.sha256, fileName: row.fileName },
+          ]),
+        );
+        const rows = rendered.map((row, index) => {
+          const was = before.get(`${row.pickId}:${row.renditionName}`);
+          return {
+            id: randomUUID(),
+            personId: row.personId,
+            pickId: row.pickId,
+            renditionName: row.renditionName,
+            fileName: names[index]!,
+            key: row.key!,
+            byteSize: row.byteSize ?? '0',
+            sha256: row.sha256!,
+            // A new file, or the same one under a new name (HR's systems go by the name).
+            changed: was?.sha256 !== row.sha256 || was?.fileName !== names[index],
+          };
+        });
+        const changed = rows.filter((row) => row.changed).length;
+        if (previous && changed === 0 && rows.length === before.size) {
+          return { release: previous.release, changed: 0, unchanged: true, ...summary };
+        }
+        const release = (previous?.release ?? 0) + 1;
+        const people = [...new Set(rows.filter((row) => row.changed).map((row) => row.personId))];
         await repo.replaceSet(
           trx,
           { id: randomUUID(), dayId: day.id, release, userId: viewer.id, changed },
@@ -165,10 +165,8 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
           subjectId: day.id,
           details: { release, files: rows.length, changed },
         });
-        return release;
+        return { release, changed, unchanged: false, ...summary };
       });
-      if (made !== release) return { release: made, changed: 0, unchanged: true, ...summary };
-      return { release, changed, unchanged: false, ...summary };
     },
 
     async status(viewer: Viewer, dayId: string) {
