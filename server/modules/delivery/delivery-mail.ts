@@ -5,6 +5,7 @@ import type { Db } from '../../db/database';
 import type { JobHandlers } from '../../jobs/job-queue';
 import { findDay } from '../days/days.repository';
 import { sendLoggedMailing } from '../invitations/logged-mail';
+import { activeCoordinators } from '../users/users.repository';
 import {
   issueDownloadLink,
   PORTRAITS_MAIL_TASK,
@@ -51,13 +52,7 @@ export function portraitsMailTasks(deps: {
       if (typeof dayId !== 'string' || typeof release !== 'number') return;
       const day = await findDay(db, dayId);
       if (!day) return;
-      const coordinators = await db
-        .selectFrom('users')
-        .select(['email', 'displayName'])
-        .where('role', '=', 'coordinator')
-        .where('clientId', '=', day.clientId)
-        .where('active', '=', true)
-        .execute();
+      const coordinators = await activeCoordinators(db, day.clientId);
       for (const coordinator of coordinators) {
         const content = renderMail({
           heading: `Hello ${coordinator.displayName},`,

@@ -80,3 +80,14 @@ export async function countActiveAdmins(db: Db): Promise<number> {
     .executeTakeFirstOrThrow();
   return Number(row.count);
 }
+
+/** The active coordinators of a client: HR, told when something is ready for them. */
+export async function activeCoordinators(db: Db, clientId: string) {
+  return db
+    .selectFrom('users')
+    .select(['email', 'displayName'])
+    .where('role', '=', 'coordinator')
+    .where('clientId', '=', clientId)
+    .where('active', '=', true)
+    .execute();
+}
