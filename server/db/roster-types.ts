@@ -3,7 +3,7 @@ import type { ColumnType, Generated } from 'kysely';
 /**
  * Table types of the roster import (migrations 2026-12-02T0900_roster_import and
  * 2026-12-11T1100_roster_conflicts_and_replays,
- * 2026-12-13T0900_roster_draft_rows_as_json).
+ * 2026-12-13T0900_roster_draft_rows_as_json, 2026-12-20T0900_roster_draft_file_bytes).
  */
 type DefaultedTimestamp = ColumnType<Date, Date | string | undefined, Date | string>;
 type Json<T> = ColumnType<T, string, string>;
@@ -16,7 +16,9 @@ export interface RosterImportDraftsTable {
   encoding: string;
   delimiter: string;
   headers: Json<string[]>;
-  rawRows: Json<string[][]>;
+  /** Drafts from before file_bytes; new drafts keep the file's bytes instead. */
+  rawRows: ColumnType<string[][] | null, string | null | undefined, string | null>;
+  fileBytes: ColumnType<Buffer | null, Buffer | null | undefined, Buffer | null>;
   rowNumbers: ColumnType<number[] | null, string | null | undefined, string | null>;
   rowCount: number;
   sampleRows: Json<string[][]>;

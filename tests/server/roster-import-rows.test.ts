@@ -446,3 +446,63 @@ describe('the directory export imported again', () => {
     expect(draft.body.counts).toMatchObject({ add: 0, update: 0, unchanged: 2, error: 0 });
   });
 });
+
+describe("a draft's file (migration 2026-12-20T0900)", () => {
+  const file = `${header},Department\r\nAda,Pike,ap@hp.example,A-1,Struc\u000btures\r\nBo,Reed,ap@hp.example,A-2,Design\r\n`;
+
+  it('is kept as the uploaded bytes, and a remap and the rows to fix read its rows from them', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    const stored = await t.db
+      .selectFrom('rosterImportDrafts')
+      .select(['fileBytes', 'rawRows'])
+      .where('id', '=', draft.body.id)
+      .executeTakeFirstOrThrow();
+    expect(stored.rawRows).toBeNull();
+    expect(stored.fileBytes?.toString('utf8')).toBe(file);
+
+    const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
+    const remapped = await agent
+      .put(`${imports}/mapping`)
+      .send({ mapping: [...draft.body.mapping.slice(0, 4), 'department'] })
+      .expect(200);
+    // Parsed again: the control character's warning and the repeated e-mail are found again.
+    expect(remapped.body).toMatchObject({ rowsWithWarnings: 1, counts: { add: 1, error: 1 } });
+    const toFix = await agent.get(`${imports}/errors.csv`).expect(200);
+    expect(toFix.text.split('\r\n')[1]).toMatch(/^Bo,Reed,ap@hp\.example,A-2,Design,/);
+  });
+
+  it('of a draft from before, kept as rows of JSON, is still remapped and gives its rows to fix', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    const rows = [
+      ['Ada', 'Pike', 'ap@hp.example', 'A-1', 'Structures'],
+      ['Bo', 'Reed', 'ap@hp.example', 'A-2', 'Design'],
+    ];
+    await t.db
+      .updateTable('rosterImportDrafts')
+      .set({ fileBytes: null, rawRows: JSON.stringify(rows), decodeWarnings: '[]' })
+      .where('id', '=', draft.body.id)
+      .execute();
+    const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
+    const remapped = await agent
+      .put(`${imports}/mapping`)
+      .send({ mapping: [...draft.body.mapping.slice(0, 4), 'department'] })
+      .expect(200);
+    expect(remapped.body).toMatchObject({ rowsWithWarnings: 0, counts: { add: 1, error: 1 } });
+    const toFix = await agent.get(`${imports}/errors.csv`).expect(200);
+    expect(toFix.text.split('\r\n')[1]).toMatch(/^Bo,Reed,ap@hp\.example,A-2,Design,/);
+  });
+
+  it('must be kept one way or the other', async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const draft = await uploadRoster(agent, client.id, file).expect(201);
+    await expect(
+      t.db
+        .updateTable('rosterImportDrafts')
+        .set({ fileBytes: null })
+        .where('id', '=', draft.body.id)
+        .execute(),
+    ).rejects.toThrow(/roster_import_drafts_file_kept/);
+  });
+});

@@ -156,6 +156,8 @@ export async function insertDraft(
   db: Db,
   draft: Omit<DraftRecord, 'rowCount' | 'sampleRows'> & {
     createdBy: string | null;
+    /** The uploaded file as it came: its rows are parsed from it again when needed. */
+    fileBytes: Uint8Array;
     rawRows: string[][];
     rowNumbers: number[] | null;
     decodeWarnings: DecodeWarning[];
@@ -174,7 +176,12 @@ export async function insertDraft(
       guessedColumns: JSON.stringify(draft.guessedColumns),
       delimiter: draft.delimiter,
       headers: JSON.stringify(draft.headers),
-      rawRows: JSON.stringify(draft.rawRows),
+      // A Buffer travels as a binary parameter: no JSON to build here nor to check there.
+      fileBytes: Buffer.from(
+        draft.fileBytes.buffer,
+        draft.fileBytes.byteOffset,
+        draft.fileBytes.byteLength,
+      ),
       rowNumbers: draft.rowNumbers ? JSON.stringify(draft.rowNumbers) : null,
       rowCount: draft.rawRows.length,
       sampleRows: JSON.stringify(draft.rawRows.slice(0, 3)),
@@ -268,30 +275,25 @@ export async function findOpenDraftId(
   return row?.id;
 }
 
-/** The file's rows as uploaded: only remapping and the error download need them. */
-export async function loadRawRows(db: Db, draftId: string): Promise<string[][]> {
-  const row = await db
-    .selectFrom('rosterImportDrafts')
-    .select('rawRows')
-    .where('id', '=', draftId)
-    .executeTakeFirstOrThrow();
-  return row.rawRows;
-}
-
 /**
- * What a remap checks again: the file's rows, what decoding changed in them, and their rows in
- * the file when blank lines shifted them (see ParsedRosterFile).
+ * The file as stored for a remap or the rows-to-fix download: its bytes (parsed again by the
+ * service), or, for a draft from before file_bytes, its rows as JSON with what decoding changed
+ * in them and their rows in the file when blank lines shifted them (see ParsedRosterFile).
  */
-export async function loadFileForRemap(
+export async function loadStoredFile(
   db: Db,
   draftId: string,
-): Promise<{ rawRows: string[][]; warnings: DecodeWarning[]; rowNumbers: number[] | null }> {
+): Promise<
+  | { fileBytes: Buffer }
+  | { rawRows: string[][]; warnings: DecodeWarning[]; rowNumbers: number[] | null }
+> {
   const row = await db
     .selectFrom('rosterImportDrafts')
-    .select(['rawRows', 'decodeWarnings', 'rowNumbers'])
+    .select(['fileBytes', 'rawRows', 'decodeWarnings', 'rowNumbers'])
     .where('id', '=', draftId)
     .executeTakeFirstOrThrow();
-  return { rawRows: row.rawRows, warnings: row.decodeWarnings, rowNumbers: row.rowNumbers };
+  if (row.fileBytes) return { fileBytes: row.fileBytes };
+  return { rawRows: row.rawRows ?? [], warnings: row.decodeWarnings, rowNumbers: row.rowNumbers };
 }
 
 export async function deleteDraft(db: Db, draftId: string) {

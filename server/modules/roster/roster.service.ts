@@ -85,6 +85,14 @@ async function rosterNow(db: Db, clientId: string, mapping: ColumnMapping) {
 
 type RosterNow = Awaited<ReturnType<typeof rosterNow>>;
 
+/** A draft's file as uploaded: its bytes parsed again (the same bytes give the same rows). */
+async function storedFile(db: Db, draftId: string) {
+  const stored = await repo.loadStoredFile(db, draftId);
+  if (!('fileBytes' in stored)) return stored;
+  const parsed = parseRosterFile(stored.fileBytes);
+  return { rawRows: parsed.rows, warnings: parsed.warnings, rowNumbers: parsed.rowNumbers };
+}
+
 interface PreviewSummary {
   counts: PreviewCounts;
   rowsWithWarnings: number;
@@ -221,6 +229,7 @@ export function createRosterService(deps: { db: Db }) {
         await repo.insertDraft(trx, {
           ...record,
           id,
+          fileBytes: bytes,
           rawRows: parsed.rows,
           rowNumbers: parsed.rowNumbers,
           decodeWarnings: parsed.warnings,
@@ -250,7 +259,7 @@ export function createRosterService(deps: { db: Db }) {
       if (mapping.length !== draft.headers.length) {
         throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
       }
-      const { rawRows, warnings, rowNumbers } = await repo.loadFileForRemap(db, draftId);
+      const { rawRows, warnings, rowNumbers } = await storedFile(db, draftId);
       const file = { headers: draft.headers, encoding: draft.encoding, warnings, rowNumbers };
       const roster = await rosterNow(db, clientId, mapping);
       const preview = await db.transaction().execute(async (trx) => {
@@ -285,7 +294,7 @@ export function createRosterService(deps: { db: Db }) {
       await assertClientAccess(db, viewer, clientId);
       const draft = await draftOf(clientId, draftId);
       const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error', 'conflict']);
-      const rawRows = await repo.loadRawRows(db, draftId);
+      const { rawRows } = await storedFile(db, draftId);
       // A rows-to-fix file uploaded again has the column already: its reasons are replaced.
       const fixColumn = draft.headers.findIndex(isFixColumn);
       const headers = fixColumn >= 0 ? draft.headers : [...draft.headers, fixColumnHeader];
