@@ -37,11 +37,16 @@ function field(value: CopyValue): string {
 
 /** Rows in COPY's text format (PostgreSQL documentation, "COPY", File Formats: Text Format). */
 export function copyText(rows: readonly (readonly CopyValue[])[]): string {
-  const lines = new Array<string>(rows.length);
-  for (let index = 0; index < rows.length; index += 1) {
-    lines[index] = (rows[index] ?? []).map(field).join('\t');
+  // One string built by appending: no array per row nor per chunk to join.
+  let text = '';
+  for (const row of rows) {
+    for (let index = 0; index < row.length; index += 1) {
+      if (index > 0) text += '\t';
+      text += field(row[index] ?? null);
+    }
+    text += '\n';
   }
-  return lines.length > 0 ? `${lines.join('\n')}\n` : '';
+  return text;
 }
 
 const chunkRows = 2_000;

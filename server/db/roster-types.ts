@@ -18,7 +18,6 @@ export interface RosterImportDraftsTable {
   headers: Json<string[]>;
   /** Drafts from before file_bytes; new drafts keep the file's bytes instead. */
   rawRows: ColumnType<string[][] | null, string | null | undefined, string | null>;
-  fileBytes: ColumnType<Buffer | null, Buffer | null | undefined, Buffer | null>;
   rowNumbers: ColumnType<number[] | null, string | null | undefined, string | null>;
   rowCount: number;
   sampleRows: Json<string[][]>;
@@ -43,6 +42,12 @@ export type DecodeWarning =
   | { row: number; column: number; removed: number }
   | { row: number; column: number; strayBytes: number }
   | { row: number; beyondHeader: number };
+
+/** The uploaded file of a draft, as it came (migration 2026-12-20T0900). */
+export interface RosterImportFilesTable {
+  draftId: string;
+  bytes: Buffer;
+}
 
 export interface RosterImportRowsTable {
   draftId: string;

@@ -27,6 +27,7 @@ import type { CaughtMailsTable } from './mailbox-types';
 import type { SetupCardsTable } from './setup-card-types';
 import type {
   RosterImportDraftsTable,
+  RosterImportFilesTable,
   RosterImportRowsTable,
   RosterImportsTable,
   RosterMappingsTable,
@@ -219,6 +220,7 @@ export interface Database {
   installationFacts: InstallationFactsTable;
   setupCards: SetupCardsTable;
   rosterImportDrafts: RosterImportDraftsTable;
+  rosterImportFiles: RosterImportFilesTable;
   rosterImportRows: RosterImportRowsTable;
   rosterImports: RosterImportsTable;
   rosterMappings: RosterMappingsTable;

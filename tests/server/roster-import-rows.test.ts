@@ -455,11 +455,12 @@ describe("a draft's file (migration 2026-12-20T0900)", () => {
     const draft = await uploadRoster(agent, client.id, file).expect(201);
     const stored = await t.db
       .selectFrom('rosterImportDrafts')
-      .select(['fileBytes', 'rawRows'])
+      .innerJoin('rosterImportFiles', 'rosterImportFiles.draftId', 'rosterImportDrafts.id')
+      .select(['bytes', 'rawRows'])
       .where('id', '=', draft.body.id)
       .executeTakeFirstOrThrow();
     expect(stored.rawRows).toBeNull();
-    expect(stored.fileBytes?.toString('utf8')).toBe(file);
+    expect(stored.bytes.toString('utf8')).toBe(file);
 
     const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
     const remapped = await agent
@@ -479,9 +480,10 @@ describe("a draft's file (migration 2026-12-20T0900)", () => {
       ['Ada', 'Pike', 'ap@hp.example', 'A-1', 'Structures'],
       ['Bo', 'Reed', 'ap@hp.example', 'A-2', 'Design'],
     ];
+    await t.db.deleteFrom('rosterImportFiles').where('draftId', '=', draft.body.id).execute();
     await t.db
       .updateTable('rosterImportDrafts')
-      .set({ fileBytes: null, rawRows: JSON.stringify(rows), decodeWarnings: '[]' })
+      .set({ rawRows: JSON.stringify(rows), decodeWarnings: '[]' })
       .where('id', '=', draft.body.id)
       .execute();
     const imports = `/api/clients/${client.id}/roster/imports/${draft.body.id}`;
@@ -494,15 +496,23 @@ describe("a draft's file (migration 2026-12-20T0900)", () => {
     expect(toFix.text.split('\r\n')[1]).toMatch(/^Bo,Reed,ap@hp\.example,A-2,Design,/);
   });
 
-  it('must be kept one way or the other', async () => {
+  it('goes with its draft, and a refused file leaves neither behind', async () => {
     const { client, agent } = await coordinatorOfNewClient();
-    const draft = await uploadRoster(agent, client.id, file).expect(201);
-    await expect(
-      t.db
-        .updateTable('rosterImportDrafts')
-        .set({ fileBytes: null })
-        .where('id', '=', draft.body.id)
-        .execute(),
-    ).rejects.toThrow(/roster_import_drafts_file_kept/);
+    const first = await uploadRoster(agent, client.id, file).expect(201);
+    // A newer upload by the same coordinator replaces the first draft, file and all.
+    const second = await uploadRoster(agent, client.id, file).expect(201);
+    await uploadRoster(agent, client.id, 'E-mail\r\n').expect(422);
+    const files = await t.db
+      .selectFrom('rosterImportFiles')
+      .select('draftId')
+      .where('draftId', 'in', [first.body.id, second.body.id])
+      .execute();
+    expect(files.map((row) => row.draftId)).toEqual([second.body.id]);
+    const drafts = await t.db
+      .selectFrom('rosterImportDrafts')
+      .select('id')
+      .where('clientId', '=', client.id)
+      .execute();
+    expect(drafts.map((row) => row.id)).toEqual([second.body.id]);
   });
 });

@@ -98,9 +98,13 @@ export function createRosterDiff(
   const claimed = new Map<string, number>();
   let position = 0;
 
+  // A first import (no one on the roster yet) has no one to find: no key to fold per row.
+  const anyone = existing.length > 0;
   const find = (employeeId: string | null | undefined, email: string | null | undefined) =>
-    (employeeId ? byEmployeeId.get(employeeId.trim()) : undefined) ??
-    (email ? byEmail.get(email.trim().toLowerCase()) : undefined);
+    !anyone
+      ? undefined
+      : ((employeeId ? byEmployeeId.get(employeeId.trim()) : undefined) ??
+        (email ? byEmail.get(email.trim().toLowerCase()) : undefined));
 
   const nextRow = (item: CheckedRow): PreviewRow => {
     position += 1;

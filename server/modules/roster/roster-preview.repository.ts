@@ -1,13 +1,9 @@
 import { sql, type Selectable } from 'kysely';
+import { hasKeys } from '../../lib/has-keys';
 import { copyRows, type CopyValue } from '../../db/copy-rows';
 import type { Db } from '../../db/database';
 import type { RosterImportRowsTable } from '../../db/roster-types';
-import {
-  rosterFields,
-  type PreviewPage,
-  type PreviewRow,
-  type RosterField,
-} from '../../schemas/roster';
+import { rosterFields, type PreviewPage, type PreviewRow } from '../../schemas/roster';
 
 /** The rows of a draft's preview: stored once per upload or remap, then paged for the table. */
 
@@ -36,7 +32,7 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: Iterable
   await copyRows(db, 'roster_import_rows', storedColumns, rows, (row) => {
     const extras = row.values.extras;
     const detail =
-      (row.kind === 'add' || row.kind === 'unchanged') && Object.keys(row.warnings).length === 0
+      (row.kind === 'add' || row.kind === 'unchanged') && !hasKeys(row.warnings)
         ? null
         : JSON.stringify({
             before: row.before,
@@ -51,11 +47,18 @@ export async function replacePreviewRows(db: Db, draftId: string, rows: Iterable
     record[2] = row.rowNumber;
     record[3] = row.kind;
     record[4] = row.personId;
-    for (let index = 0; index < rosterFields.length; index += 1) {
-      record[5 + index] = row.values[rosterFields[index] as RosterField] ?? null;
-    }
-    record[5 + rosterFields.length] =
-      extras && Object.keys(extras).length > 0 ? JSON.stringify(extras) : null;
+    // Named one by one (in rosterFields' order, as storedColumns): a read by a computed name
+    // was the slowest line of this function.
+    const values = row.values;
+    record[5] = values.givenName ?? null;
+    record[6] = values.familyName ?? null;
+    record[7] = values.preferredName ?? null;
+    record[8] = values.email ?? null;
+    record[9] = values.employeeId ?? null;
+    record[10] = values.department ?? null;
+    record[11] = values.jobTitle ?? null;
+    record[12] = values.office ?? null;
+    record[5 + rosterFields.length] = extras && hasKeys(extras) ? JSON.stringify(extras) : null;
     record[6 + rosterFields.length] = detail;
     // Error rows say nothing (their values are the cells as read); missing people are false.
     record[7 + rosterFields.length] = row.kind === 'error' ? null : (row.values.active ?? null);

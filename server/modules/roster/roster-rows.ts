@@ -1,8 +1,10 @@
 import type { DecodeWarning } from '../../db/roster-types';
+import { hasKeys } from '../../lib/has-keys';
 import { z } from 'zod';
 import {
   personTextLimit,
   readStatus,
+  rosterFields,
   rosterRowSchema,
   type ColumnMapping,
   type RosterField,
@@ -34,7 +36,7 @@ function extrasOf(headers: readonly string[], cells: readonly string[], columns:
     const value = (cells[index] ?? '').trim();
     if (value !== '') extras[headers[index] ?? `Column ${index + 1}`] = value;
   }
-  return Object.keys(extras).length > 0 ? extras : none;
+  return hasKeys(extras) ? extras : none;
 }
 
 type FieldOutcome = string | null | { message: string };
@@ -154,30 +156,50 @@ export function createRowChecker(
   const seenIds = new Map<string, number>();
   const rowWarnings = warningsByRow(headers, mapping, decodeWarnings);
   const { fieldColumns, extraColumns, statusColumn } = columnsOf(mapping);
-  const fields = Object.keys(rosterRowSchema.shape) as RosterField[];
-  const checkers = fields.map((field) => ({
+  const fieldCheck = (field: RosterField) => ({
     field,
     column: fieldColumns.get(field),
     check: fieldChecker(field),
-  }));
-  return (cells, index) => {
-    const rowNumber = rowNumbers?.[index] ?? index + 2;
-    let warnings = rowWarnings.get(index) ?? none;
-    const extras = extrasOf(headers, cells, extraColumns);
-    const row = {} as Record<RosterField, string | null>;
-    let errors: Record<string, string> | null = null;
-    for (const { field, column, check } of checkers) {
-      let cell = column === undefined ? undefined : (cells[column] ?? '');
-      // A quoted line break inside a name or a title (RFC 4180 allows it) is one line here:
-      // the field holds one line, as the hand-edit form does.
-      if (cell !== undefined && (cell.includes('\n') || cell.includes('\r'))) {
-        cell = cell.replace(/\s*[\r\n]+\s*/g, ' ');
-        warnings = { ...warnings, [field]: 'The line break in this value was made a space.' };
-      }
-      const outcome = check(cell);
-      if (outcome !== null && typeof outcome === 'object') (errors ??= {})[field] = outcome.message;
-      else row[field] = outcome;
+  });
+  const checks = Object.fromEntries(rosterFields.map((field) => [field, fieldCheck(field)])) as {
+    [field in RosterField]: ReturnType<typeof fieldCheck>;
+  };
+  // The row being checked, and what its fields' checks found so far.
+  let cells: readonly string[] = [];
+  let errors: Record<string, string> | null = null;
+  let warnings = none;
+  const read = ({ field, column, check }: ReturnType<typeof fieldCheck>): string | null => {
+    let cell = column === undefined ? undefined : (cells[column] ?? '');
+    // A quoted line break inside a name or a title (RFC 4180 allows it) is one line here:
+    // the field holds one line, as the hand-edit form does.
+    if (cell !== undefined && (cell.includes('\n') || cell.includes('\r'))) {
+      cell = cell.replace(/\s*[\r\n]+\s*/g, ' ');
+      warnings = { ...warnings, [field]: 'The line break in this value was made a space.' };
     }
+    const outcome = check(cell);
+    if (outcome === null || typeof outcome !== 'object') return outcome;
+    (errors ??= {})[field] = outcome.message;
+    return null;
+  };
+  return (rowCells, index) => {
+    cells = rowCells;
+    errors = null;
+    warnings = rowWarnings.get(index) ?? none;
+    const rowNumber = rowNumbers?.[index] ?? index + 2;
+    const extras = extrasOf(headers, cells, extraColumns);
+    // Written out field by field, in the schema's order (which orders the errors too): every
+    // row then has one shape, where a row filled by a loop over the field names was a
+    // dictionary that each later step read slowly.
+    const row = {
+      givenName: read(checks.givenName),
+      familyName: read(checks.familyName),
+      preferredName: read(checks.preferredName),
+      email: read(checks.email),
+      employeeId: read(checks.employeeId),
+      department: read(checks.department),
+      jobTitle: read(checks.jobTitle),
+      office: read(checks.office),
+    };
     const active = statusColumn === undefined ? null : readStatus(cells[statusColumn]);
     if (active === undefined) {
       // Keyed "active" as the preview names that field "Status".

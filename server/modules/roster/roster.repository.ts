@@ -156,8 +156,6 @@ export async function insertDraft(
   db: Db,
   draft: Omit<DraftRecord, 'rowCount' | 'sampleRows'> & {
     createdBy: string | null;
-    /** The uploaded file as it came: its rows are parsed from it again when needed. */
-    fileBytes: Uint8Array;
     rawRows: string[][];
     rowNumbers: number[] | null;
     decodeWarnings: DecodeWarning[];
@@ -176,12 +174,6 @@ export async function insertDraft(
       guessedColumns: JSON.stringify(draft.guessedColumns),
       delimiter: draft.delimiter,
       headers: JSON.stringify(draft.headers),
-      // A Buffer travels as a binary parameter: no JSON to build here nor to check there.
-      fileBytes: Buffer.from(
-        draft.fileBytes.buffer,
-        draft.fileBytes.byteOffset,
-        draft.fileBytes.byteLength,
-      ),
       rowNumbers: draft.rowNumbers ? JSON.stringify(draft.rowNumbers) : null,
       rowCount: draft.rawRows.length,
       sampleRows: JSON.stringify(draft.rawRows.slice(0, 3)),
@@ -276,23 +268,37 @@ export async function findOpenDraftId(
 }
 
 /**
+ * Stores the draft's uploaded file as it came. A Buffer travels as a binary parameter: no
+ * text to build here nor to check there. Written in the upload's transaction before the draft
+ * row exists (the reference is checked at commit).
+ */
+export async function insertDraftFile(db: Db, draftId: string, bytes: Uint8Array) {
+  await db
+    .insertInto('rosterImportFiles')
+    .values({ draftId, bytes: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength) })
+    .execute();
+}
+
+/**
  * The file as stored for a remap or the rows-to-fix download: its bytes (parsed again by the
- * service), or, for a draft from before file_bytes, its rows as JSON with what decoding changed
- * in them and their rows in the file when blank lines shifted them (see ParsedRosterFile).
+ * service), or, for a draft from before roster_import_files, its rows as JSON with what
+ * decoding changed in them and their rows in the file when blank lines shifted them (see
+ * ParsedRosterFile).
  */
 export async function loadStoredFile(
   db: Db,
   draftId: string,
 ): Promise<
-  | { fileBytes: Buffer }
+  | { bytes: Buffer }
   | { rawRows: string[][]; warnings: DecodeWarning[]; rowNumbers: number[] | null }
 > {
   const row = await db
     .selectFrom('rosterImportDrafts')
-    .select(['fileBytes', 'rawRows', 'decodeWarnings', 'rowNumbers'])
+    .leftJoin('rosterImportFiles', 'rosterImportFiles.draftId', 'rosterImportDrafts.id')
+    .select(['rosterImportFiles.bytes', 'rawRows', 'decodeWarnings', 'rowNumbers'])
     .where('id', '=', draftId)
     .executeTakeFirstOrThrow();
-  if (row.fileBytes) return { fileBytes: row.fileBytes };
+  if (row.bytes) return { bytes: row.bytes };
   return { rawRows: row.rawRows ?? [], warnings: row.decodeWarnings, rowNumbers: row.rowNumbers };
 }
 
