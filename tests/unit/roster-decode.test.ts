@@ -1,8 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { decodeMostlyUtf8 } from '../../server/modules/roster/mixed-utf8';
 import { checkRows } from '../../server/modules/roster/roster-rows';
+import Papa from 'papaparse';
 import {
   cleanCell,
+  detectDelimiter,
+  lineBreakOf,
   maxCellCharacters,
   parseRosterFile,
   parseRosterText,
@@ -182,5 +185,49 @@ describe('lines above the header', () => {
   it("reads a number kept as text with a leading ' as the number, and leaves other apostrophes", () => {
     const parsed = parseRosterText("First name,Last name,Id\r\n'Apo,Quill,'00123\r\n");
     expect(parsed.rows).toEqual([["'Apo", 'Quill', '00123']]);
+  });
+});
+
+describe('the separator and the header, read from the first lines of a long file', () => {
+  const header = 'First name;Last name;E-mail';
+  const row = (index: number) => `Ada;Quill-${index};ada.${index}@hp.example`;
+
+  it('reads the line break as papaparse guesses it for the whole text, for each kind', () => {
+    // papaparse (an independent CSV library) on the whole text is the reference.
+    for (const newline of ['\r\n', '\n', '\r']) {
+      const text = [header, ...Array.from({ length: 300 }, (_, index) => row(index))].join(newline);
+      expect(lineBreakOf(text)).toBe(Papa.parse(text).meta.linebreak);
+      expect(lineBreakOf(text)).toBe(newline);
+      const parsed = parseRosterText(text);
+      expect([parsed.delimiter, parsed.rows.length, parsed.rows[299]]).toEqual([
+        ';',
+        300,
+        ['Ada', 'Quill-299', 'ada.299@hp.example'],
+      ]);
+    }
+  });
+
+  it('finds a header below more blank lines than it first looks at, numbered as before', () => {
+    // Comma-separated: the separator is looked for among the first 20 lines, blank or not.
+    const text = `${'\r\n'.repeat(250)}First name,Last name,E-mail\r\nAda,Quill,a@hp.example\r\n`;
+    const parsed = parseRosterText(text);
+    expect(parsed.headers).toEqual(['First name', 'Last name', 'E-mail']);
+    expect(parsed.rowNumbers).toEqual([252]);
+  });
+
+  it('reads a header whole when a quoted line break carries it past those lines', () => {
+    // The 200th line ends inside the quotes: cut there, the header would be two values long.
+    const text = `${'\r\n'.repeat(199)}First name,"Last\r\nname",E-mail\r\nAda,Quill,a@hp.example\r\n`;
+    // Whole: the quoted line break is part of the first header, not its end.
+    expect(parseRosterText(text).headers).toEqual(['First name', 'Last\r\nname', 'E-mail']);
+  });
+
+  it('finds the separator when the first 20 records run past those lines', () => {
+    // Each record holds 20 line breaks: the first 20 records end far past line 200.
+    const note = `"${'line\n'.repeat(20)}end"`;
+    const records = Array.from({ length: 30 }, (_, index) => `${row(index)};${note}`);
+    const text = [`${header};Note`, ...records].join('\r\n');
+    expect(detectDelimiter(text)).toBe(';');
+    expect(parseRosterText(text).rows).toHaveLength(30);
   });
 });

@@ -134,18 +134,54 @@ function looksBinary(text: string): boolean {
 
 const candidates: RosterDelimiter[] = [',', ';', '\t'];
 
+type LineBreak = '\r\n' | '\n' | '\r';
+
+/**
+ * The line break papaparse would guess for the whole text (it looks at the first megabyte
+ * only), guessed once: each parse without one guesses again, a few milliseconds a time.
+ */
+export function lineBreakOf(text: string): LineBreak {
+  const head = text.slice(0, 1024 * 1024);
+  return Papa.parse<string[]>(head, { delimiter: ',', preview: 1 }).meta.linebreak as LineBreak;
+}
+
+/** How many lines the separator and the header are looked for in, before the whole text. */
+const leadingLineCount = 200;
+
+/**
+ * The text's first lines. papaparse splits its whole input into lines before it looks at
+ * any when no quote is in it, so reading the first 20 records of a 50,000-row file for each
+ * separator tried cost a split of the whole file each time.
+ */
+function leadingLines(text: string, newline: LineBreak): string {
+  let end = 0;
+  for (let line = 0; line < leadingLineCount; line += 1) {
+    const next = text.indexOf(newline, end);
+    if (next < 0) return text;
+    end = next + newline.length;
+  }
+  return text.slice(0, end);
+}
+
 /**
  * The separator that splits the first lines into the most columns, consistently. Spreadsheets
  * in locales with a decimal comma write `;` (common practice); HR tools also write tabs.
  */
-export function detectDelimiter(text: string): RosterDelimiter {
+export function detectDelimiter(
+  text: string,
+  newline: LineBreak = lineBreakOf(text),
+): RosterDelimiter {
   // A spreadsheet's "sep=;" first line says it outright (common practice in exports for Excel).
   const firstLine = text.split(/\r\n|\n|\r/, 50).find((line) => line.trim() !== '') ?? '';
   const hint = /^"?sep=([,;\t])"?\s*$/i.exec(firstLine)?.[1] as RosterDelimiter | undefined;
   if (hint) return hint;
+  const leading = leadingLines(text, newline);
   let best: { delimiter: RosterDelimiter; score: number } = { delimiter: ',', score: 0 };
   for (const delimiter of candidates) {
-    const sample = Papa.parse<string[]>(text, { delimiter, preview: 20, skipEmptyLines: 'greedy' });
+    const config = { delimiter, newline, preview: 20, skipEmptyLines: 'greedy' } as const;
+    let sample = Papa.parse<string[]>(leading, config);
+    // Stopped by the preview, the leading lines held the 20 records whole; else read it all.
+    if (!sample.meta.truncated && leading !== text) sample = Papa.parse<string[]>(text, config);
     // Title lines above the header (one value each) say nothing about the separator.
     const start = sample.data.findIndex((row) => !isTitleRecord(row));
     const widths = sample.data.slice(Math.max(0, start)).map((row) => row.length);
@@ -223,25 +259,38 @@ function isTitleRecord(cells: readonly string[]): boolean {
 const maxTitleRecords = 5;
 
 /**
- * The header: the first record with two values or more, after blank lines and up to
- * maxTitleRecords title lines (or a "sep=" line); `before` counts the non-blank records above.
+ * The header among records read from the start: the first record with two values or more,
+ * after blank lines and up to maxTitleRecords title lines (or a "sep=" line); `before` counts
+ * the non-blank records above. Null when the records are only the text's first lines and do
+ * not show it whole: a record is known whole only when another follows it.
  */
-function readHeader(text: string, delimiter: RosterDelimiter): { cells: string[]; before: number } {
-  // papaparse's preview counts the blank lines it skips, so step to the header instead.
-  let cells: string[] = [];
+function headerAmong(
+  records: readonly string[][],
+  whole: boolean,
+): { cells: string[]; before: number } | null {
   let before = 0;
-  Papa.parse<string[]>(text, {
-    delimiter,
-    step: (result, parser) => {
-      if (isBlankRecord(result.data)) return;
-      if (isTitleRecord(result.data) && before < maxTitleRecords) {
-        before += 1;
-        return;
-      }
-      cells = result.data;
-      parser.abort();
-    },
-  });
+  for (let index = 0; index < records.length; index += 1) {
+    const record = records[index] ?? [];
+    if (isBlankRecord(record)) continue;
+    if (isTitleRecord(record) && before < maxTitleRecords) {
+      before += 1;
+      continue;
+    }
+    return whole || index < records.length - 1 ? { cells: record, before } : null;
+  }
+  return whole ? { cells: [], before } : null;
+}
+
+/** The header (see headerAmong), looked for in the first lines, else in the whole text. */
+function readHeader(
+  text: string,
+  delimiter: RosterDelimiter,
+  newline: LineBreak,
+): { cells: string[]; before: number } {
+  const leading = leadingLines(text, newline);
+  const read = (part: string) => Papa.parse<string[]>(part, { delimiter, newline }).data;
+  const { cells, before } = headerAmong(read(leading), leading === text) ??
+    headerAmong(read(text), true) ?? { cells: [], before: 0 };
   if (cells.length > maxRosterColumns) {
     throw refuse(
       'too_many_columns',
@@ -275,8 +324,9 @@ export function parseRosterText(
   const clean = text.replace(/^\uFEFF/, '');
   if (clean.trim() === '')
     throw refuse('empty_file', 'The file has no rows. Choose the CSV export of your staff list.');
-  const delimiter = detectDelimiter(clean);
-  const { cells: headers, before: titleRecords } = readHeader(clean, delimiter);
+  const newline = lineBreakOf(clean);
+  const delimiter = detectDelimiter(clean, newline);
+  const { cells: headers, before: titleRecords } = readHeader(clean, delimiter, newline);
   const named = headers.filter((header) => header !== '');
   if (
     named.length === 0 ||
@@ -292,13 +342,13 @@ export function parseRosterText(
   // Blank lines are skipped here rather than by papaparse, so its error rows stay in step
   // with the records counted.
   const cap = maxRosterRows * 2 + 2;
-  let parsed = Papa.parse<string[]>(clean, { delimiter, preview: cap });
+  let parsed = Papa.parse<string[]>(clean, { delimiter, newline, preview: cap });
   // Cut short yet not over the limit: more than half the records were blank, so read it all.
   if (
     parsed.data.length >= cap &&
     parsed.data.filter((cells) => !isBlankRecord(cells)).length <= maxRosterRows + 1
   )
-    parsed = Papa.parse<string[]>(clean, { delimiter });
+    parsed = Papa.parse<string[]>(clean, { delimiter, newline });
   const unterminated = parsed.errors.find((error) => error.code === 'MissingQuotes');
   // One scan of the whole text says whether any cell needs cleaning at all (most files: none).
   const mayHoldControls = anyControlCharacter.test(clean);
@@ -358,7 +408,7 @@ export function parseRosterText(
   if (dataRows > maxRosterRows) {
     throw refuse(
       'too_many_rows',
-      `The file has ${countRecords(clean, delimiter).toLocaleString('en')} rows; one import takes at most 50,000.`,
+      `The file has ${countRecords(clean, delimiter, newline).toLocaleString('en')} rows; one import takes at most 50,000.`,
     );
   }
   // Most files have no blank line before a row: each row is then its index plus 2.
@@ -367,10 +417,11 @@ export function parseRosterText(
 }
 
 /** Data records of a file known to be over the limit, counted one at a time, none kept. */
-function countRecords(text: string, delimiter: RosterDelimiter): number {
+function countRecords(text: string, delimiter: RosterDelimiter, newline: LineBreak): number {
   let records = 0;
   Papa.parse<string[]>(text, {
     delimiter,
+    newline,
     skipEmptyLines: 'greedy',
     step: () => {
       records += 1;
