@@ -41,6 +41,23 @@ const trustProxyFromEnv = z.union([
 ]);
 
 /** Every setting the server reads from the environment, with its default. */
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
+const anyControlCharacter = /[\u0000-\u001f\u007f-\u009f]/;
+
+/**
+ * Text printed on invoices and written into delivered files' metadata: one line, no control
+ * characters (a tab or a stray escape from a .env file would land in the PDF and the CSV).
+ */
+function printedLine(min: number, max: number) {
+  return z
+    .string()
+    .min(min)
+    .max(max)
+    .refine((text) => !anyControlCharacter.test(text), {
+      message: 'Write it on one line, without tabs or other control characters.',
+    });
+}
+
 export const configSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().min(1).default('127.0.0.1'),
@@ -96,11 +113,11 @@ export const configSchema = z.object({
   /** Signs proof-image URLs; set it when several app processes serve one site. */
   URL_SIGNING_SECRET: z.string().min(32).optional(),
   /** Written as the credit (and in the copyright) of delivered portraits. */
-  STUDIO_NAME: z.string().min(1).max(100).default('Northlight Portrait Co.'),
+  STUDIO_NAME: printedLine(1, 100).default('Northlight Portrait Co.'),
   /** Printed under the studio's name on invoices (one line; commas as you like). */
-  STUDIO_ADDRESS: z.string().max(200).default('12 Lantern Yard, Leeds'),
+  STUDIO_ADDRESS: printedLine(0, 200).default('12 Lantern Yard, Leeds'),
   /** The studio's tax or VAT number, printed on invoices when set. */
-  STUDIO_TAX_ID: z.string().max(40).default(''),
+  STUDIO_TAX_ID: printedLine(0, 40).default(''),
   PROOF_URL_TTL_MINUTES: z.coerce.number().int().min(1).max(1440).default(60),
   /** A person gets at most one booking reminder per day within this many hours. */
   REMINDER_COOLDOWN_HOURS: z.coerce.number().min(0).max(720).default(24),
