@@ -36,6 +36,19 @@ describe('suggesting a column mapping', () => {
     ]);
   });
 
+  it('reads "Given" and "Family" alone, as exports of contact cards name them (common practice)', () => {
+    expect(suggestMapping(['Given', 'Family', 'E-mail'])).toEqual([
+      'givenName',
+      'familyName',
+      'email',
+    ]);
+    expect(suggestMapping(['Forenames', 'Surname', 'Email'])).toEqual([
+      'givenName',
+      'familyName',
+      'email',
+    ]);
+  });
+
   it('keeps unknown columns as extras, ignores blanks and reads our own Status column as the status', () => {
     expect(suggestMapping(['T-shirt size', '', 'Status'])).toEqual(['extra', 'ignore', 'status']);
   });
