@@ -42,8 +42,15 @@ export function OfficeTimeZones({
   );
 }
 
-/** A zone whose city part is the office's name ("London"), else none: the coordinator picks. */
-export function guessTimeZone(office: string): string {
+/**
+ * A zone whose city part is the office's name ("London"); else the zone every office the
+ * client already has is in (a new "Manchester" beside "Leeds" on London time); else none, and
+ * the coordinator picks. Either way it is shown to be confirmed, not taken silently.
+ */
+export function guessTimeZone(office: string, knownZones: readonly string[] = []): string {
   const key = office.trim().toLowerCase().replace(/\s+/g, '_');
-  return zones.find((zone) => zone.toLowerCase().endsWith(`/${key}`)) ?? '';
+  const byCity = zones.find((zone) => zone.toLowerCase().endsWith(`/${key}`));
+  if (byCity) return byCity;
+  const shared = new Set(knownZones.map(currentZoneName));
+  return shared.size === 1 ? ([...shared][0] ?? '') : '';
 }

@@ -34,7 +34,15 @@ export function PreviewStep({
     draft.counts.error > 0 ? 'error' : draft.counts.conflict > 0 ? 'conflict' : 'all',
   );
   const [zones, setZones] = useState<Record<string, string>>(() =>
-    Object.fromEntries(draft.newOffices.map((office) => [office, guessTimeZone(office)])),
+    Object.fromEntries(
+      draft.newOffices.map((office) => [
+        office,
+        guessTimeZone(
+          office,
+          draft.knownOffices.map((known) => known.timeZone),
+        ),
+      ]),
+    ),
   );
   const [zoneErrors, setZoneErrors] = useState<Record<string, string | undefined>>({});
   const { counts } = draft;
