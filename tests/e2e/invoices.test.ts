@@ -78,6 +78,10 @@ describe('summary and invoice', () => {
     await page.getByRole('button', { name: 'Issue the invoice' }).click();
     // One more step, as issuing freezes the lines.
     await page.getByText(/Once issued, the invoice keeps these lines/).waitFor();
+    // Five picks, two retouched: the other three would not be billed.
+    await page
+      .getByText('3 picks are not retouched yet: they are not on this invoice.', { exact: false })
+      .waitFor();
     await page.getByRole('button', { name: 'Issue it now' }).click();
     const year = new Date().getUTCFullYear();
     const number = `LK-${year}-0001`;

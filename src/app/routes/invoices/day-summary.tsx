@@ -37,6 +37,8 @@ export function DaySummaryPage() {
   const [confirming, setConfirming] = useState(false);
   if (!summary) return null;
   const studioAdmin = session?.user.role === 'studio_admin';
+  // Every pick is retouched; those not done yet would be left off for good.
+  const openRetouches = Math.max(0, summary.counts.picks - summary.counts.retouchesDone);
   return (
     <>
       <PageHeading title="Summary and invoice">
@@ -84,6 +86,14 @@ export function DaySummaryPage() {
                       Once issued, the invoice keeps these lines and gets its number: retouches or
                       renditions finished later are not added.
                     </p>
+                    {openRetouches > 0 ? (
+                      <Notice tone="caution">
+                        {openRetouches === 1
+                          ? '1 pick is not retouched yet: it is not on this invoice.'
+                          : `${openRetouches} picks are not retouched yet: they are not on this invoice.`}{' '}
+                        Issue it once they are done to bill them.
+                      </Notice>
+                    ) : null}
                     <div className="flex flex-wrap gap-3">
                       <Button busy={issue.isPending} onClick={() => issue.mutate()}>
                         Issue it now
