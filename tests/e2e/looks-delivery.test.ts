@@ -133,6 +133,14 @@ describe('looks and delivery', () => {
     await runQueuedJobs(env.testApp);
     await markedRow.getByRole('button', { name: /Move the eye marks of/ }).waitFor();
     await page.getByRole('button', { name: 'Release the set to HR and the sitters' }).click();
+    // One more step, as a release reaches HR and the sitters at once; "Not yet" leaves it.
+    const confirm = page.getByRole('group', { name: 'Confirm the release' });
+    await confirm.getByText(/each sitter gets an e-mail with their link/).waitFor();
+    await confirm.getByRole('button', { name: 'Not yet' }).click();
+    await confirm.waitFor({ state: 'detached' });
+    await page.getByText('Nothing released yet.').waitFor();
+    await page.getByRole('button', { name: 'Release the set to HR and the sitters' }).click();
+    await confirm.getByRole('button', { name: 'Release it now' }).click();
     await page.getByText(/^Release 1: /).waitFor();
     await context.close();
   });
