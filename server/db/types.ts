@@ -199,7 +199,14 @@ export interface DayMailingsTable {
   id: Generated<string>;
   dayId: string;
   personId: string;
-  kind: 'invitation' | 'reminder' | 'day_before' | 'proofs' | 'proofs_reminder' | 'portraits_ready';
+  kind:
+    | 'invitation'
+    | 'reminder'
+    | 'day_before'
+    | 'proofs'
+    | 'proofs_reminder'
+    | 'proofs_deadline'
+    | 'portraits_ready';
   round: Generated<number>;
   status: Generated<'queued' | 'sent' | 'failed'>;
   reason: string | null;

@@ -157,6 +157,7 @@ export const mailingKinds = [
   'day_before',
   'proofs',
   'proofs_reminder',
+  'proofs_deadline',
   'portraits_ready',
 ] as const;
 export type MailingKind = (typeof mailingKinds)[number];

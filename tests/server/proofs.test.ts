@@ -162,6 +162,39 @@ describe('proofs and picks', () => {
     expect(hr.body.error.code).toBe('hr_choice_off');
   });
 
+  it('mails a moved deadline to the sitters sent their proofs, each move once, even just after a reminder', async () => {
+    const newDates = () => t.mail.list().filter((mail) => /^New date to choose/.test(mail.subject));
+    const moved = await studio
+      .post(`/api/days/${day.dayId}/proofs/release`)
+      .send({ picksCloseOn: '2027-03-18' })
+      .expect(201);
+    expect(moved.body).toMatchObject({ queued: 0, alreadySent: 2, toldOfNewDate: 2 });
+    // The same date again is no news.
+    const same = await studio
+      .post(`/api/days/${day.dayId}/proofs/release`)
+      .send({ picksCloseOn: '2027-03-18' })
+      .expect(201);
+    expect(same.body).toMatchObject({ queued: 0, toldOfNewDate: 0 });
+    await runQueuedJobs(t);
+    const told = newDates();
+    expect(told.map((mail) => mail.to).sort()).toEqual(
+      [[sitters[0]!.email], [sitters[1]!.email]].sort(),
+    );
+    for (const mail of told) {
+      expect(mail.subject).toMatch(/^New date to choose your .* portrait$/);
+      // A week later than the first deadline, on the office's clock.
+      expect(mail.text).toContain('Thursday, 18 March 2027 at 23:59 (Europe/London time)');
+    }
+    // Moved once more, it is mailed once more.
+    await studio
+      .post(`/api/days/${day.dayId}/proofs/release`)
+      .send({ picksCloseOn: '2027-03-19' })
+      .expect(201)
+      .expect((response) => expect(response.body.toldOfNewDate).toBe(2));
+    await runQueuedJobs(t);
+    expect(newDates()).toHaveLength(4);
+  });
+
   it('after the deadline the studio’s pick stands for those who did not choose', async () => {
     const theirs = (await proofsOf(1)).frames as Array<{ id: string }>;
     await studio

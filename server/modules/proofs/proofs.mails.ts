@@ -23,8 +23,10 @@ const longDate = (date: string) =>
     new Date(`${date}T12:00:00Z`),
   );
 
+export type ProofMailKind = 'proofs' | 'proofs_reminder' | 'proofs_deadline';
+
 export function proofsMail(input: {
-  kind: 'proofs' | 'proofs_reminder';
+  kind: ProofMailKind;
   to: string;
   name: string;
   day: DayRecord;
@@ -39,7 +41,9 @@ export function proofsMail(input: {
     paragraphs: [
       input.kind === 'proofs'
         ? `Your ${input.day.clientName} portraits from ${longDate(input.day.date)} are ready: choose ${portraits} to be finished.`
-        : `A reminder: you have not chosen your ${input.day.clientName} portrait yet.`,
+        : input.kind === 'proofs_deadline'
+          ? `The date to choose your ${input.day.clientName} portrait from ${longDate(input.day.date)} has moved.`
+          : `A reminder: you have not chosen your ${input.day.clientName} portrait yet.`,
       `Choose by ${deadline}. You can change your mind until then; after it, the photographer’s choice stands.`,
       'You can add a short note for the retouch, such as a blemish, a stray hair or glare on glasses.',
     ],
@@ -51,7 +55,9 @@ export function proofsMail(input: {
     subject:
       input.kind === 'proofs'
         ? `Your ${input.day.clientName} portraits are ready to choose`
-        : `Reminder: choose your ${input.day.clientName} portrait`,
+        : input.kind === 'proofs_deadline'
+          ? `New date to choose your ${input.day.clientName} portrait`
+          : `Reminder: choose your ${input.day.clientName} portrait`,
     ...content,
   };
 }

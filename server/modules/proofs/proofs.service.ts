@@ -15,7 +15,7 @@ import { zonedTimeToInstant } from '../days/zoned-time';
 import * as mailings from '../invitations/invitations.repository';
 import { splitByCooldown } from '../invitations/reminder-cooldown';
 import { sendLoggedMailing } from '../invitations/logged-mail';
-import { proofsMail } from './proofs.mails';
+import { proofsMail, type ProofMailKind } from './proofs.mails';
 import * as repo from './proofs.repository';
 
 export const PROOF_MAIL_TASK = 'proof-mail';
@@ -42,7 +42,7 @@ export function createProofsService(deps: {
   async function queueMail(
     viewer: Viewer,
     day: DayRecord,
-    kind: 'proofs' | 'proofs_reminder',
+    kind: ProofMailKind,
     personIds: string[],
   ) {
     return db.transaction().execute((trx) => queueMailWith(trx, viewer, day, kind, personIds));
@@ -52,7 +52,7 @@ export function createProofsService(deps: {
     trx: Trx,
     viewer: Viewer,
     day: DayRecord,
-    kind: 'proofs' | 'proofs_reminder',
+    kind: ProofMailKind,
     personIds: string[],
   ) {
     let round = 1;
@@ -64,6 +64,15 @@ export function createProofsService(deps: {
         .returning('reminderRounds')
         .executeTakeFirstOrThrow();
       round = bumped.reminderRounds;
+    } else if (kind === 'proofs_deadline') {
+      // Each move of the deadline is a round of its own, so a second move is mailed too.
+      const last = await trx
+        .selectFrom('dayMailings')
+        .select((eb) => eb.fn.max('round').as('round'))
+        .where('dayId', '=', day.id)
+        .where('kind', '=', 'proofs_deadline')
+        .executeTakeFirst();
+      round = (last?.round ?? 0) + 1;
     }
     const ids = await mailings.insertMailings(trx, day.id, personIds, kind, round);
     await addJobs(
@@ -86,7 +95,7 @@ export function createProofsService(deps: {
       deps,
       mailingId,
       lastAttempt,
-      ['proofs', 'proofs_reminder'],
+      ['proofs', 'proofs_reminder', 'proofs_deadline'],
       async (mailing) => {
         const [day, proofs] = await Promise.all([
           findDay(db, mailing.dayId),
@@ -99,7 +108,7 @@ export function createProofsService(deps: {
         }
         const settings = await repo.proofSettings(db, day.clientId);
         return proofsMail({
-          kind: mailing.kind === 'proofs' ? 'proofs' : 'proofs_reminder',
+          kind: mailing.kind as ProofMailKind,
           to: mailing.email,
           name: mailing.name,
           day,
@@ -198,6 +207,7 @@ export function createProofsService(deps: {
           'No sitter has matched frames with previews yet: upload and match first.',
         );
       }
+      const before = await repo.dayProofs(db, day.id);
       await db.transaction().execute(async (trx) => {
         await trx
           .insertInto('dayProofs')
@@ -217,7 +227,18 @@ export function createProofsService(deps: {
       const mailed = await mailings.personIdsWithMailing(db, day.id, 'proofs');
       const fresh = people.filter((person) => !mailed.has(person.id)).map((person) => person.id);
       const queued = await queueMail(viewer, day, 'proofs', fresh);
-      return { queued, alreadySent: mailed.size, picksCloseAt: picksCloseAt.toISOString() };
+      // Those sent their proofs before hear of a moved deadline (the new ones read it in
+      // theirs); each mail says the deadline as it is when it goes out.
+      const moved =
+        before !== undefined && before.picksCloseAt.getTime() !== picksCloseAt.getTime();
+      const toldOfDate =
+        moved && mailed.size > 0 ? await queueMail(viewer, day, 'proofs_deadline', [...mailed]) : 0;
+      return {
+        queued,
+        alreadySent: mailed.size,
+        toldOfNewDate: toldOfDate,
+        picksCloseAt: picksCloseAt.toISOString(),
+      };
     },
 
     async remind(viewer: Viewer, dayId: string) {

@@ -10,6 +10,7 @@ const kindLabel = {
   day_before: 'Day before',
   proofs: 'Proofs ready',
   proofs_reminder: 'Proofs reminder',
+  proofs_deadline: 'New pick date',
   portraits_ready: 'Portraits ready',
 };
 

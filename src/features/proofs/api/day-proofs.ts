@@ -23,7 +23,7 @@ function useDayProofsMutation<Input, Output>(
 
 export const useReleaseProofs = (dayId: string) =>
   useDayProofsMutation(dayId, (input: { picksCloseOn?: string }) =>
-    api<{ queued: number; alreadySent: number; picksCloseAt: string }>(
+    api<{ queued: number; alreadySent: number; toldOfNewDate: number; picksCloseAt: string }>(
       `/days/${dayId}/proofs/release`,
       { method: 'POST', body: input },
     ),

@@ -76,10 +76,15 @@ export function ProofsPanel({
                     setMessage({
                       tone: 'success',
                       // A second click finds everyone sent already: say that, not "0 queued".
-                      text:
+                      text: `${
                         result.queued === 0 && result.alreadySent > 0
                           ? `Proofs are sent or on their way to all ${result.alreadySent} sitters; nobody new to send them to.`
-                          : `Proofs queued for ${result.queued} sitter${result.queued === 1 ? '' : 's'}${result.alreadySent > 0 ? ` (${result.alreadySent} had them already)` : ''}.`,
+                          : `Proofs queued for ${result.queued} sitter${result.queued === 1 ? '' : 's'}${result.alreadySent > 0 ? ` (${result.alreadySent} had them already)` : ''}.`
+                      }${
+                        result.toldOfNewDate > 0
+                          ? ` The new date to choose by is mailed to the ${result.toldOfNewDate} sent their proofs before.`
+                          : ''
+                      }`,
                     }),
                   onError: failed,
                 },
