@@ -1,8 +1,8 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
-import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { ConfirmStep } from '../../../components/ui/confirm-step';
 import { Notice } from '../../../components/ui/notice';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { useSession } from '../../../features/auth/api/get-session';
@@ -75,39 +75,30 @@ export function DaySummaryPage() {
               </p>
               <InvoiceLinesTable totals={summary.draft} caption="Invoice lines, not issued yet" />
               {studioAdmin ? (
-                confirming ? (
-                  // Issuing freezes the lines for good: one more step, saying so.
-                  <div
-                    role="group"
-                    aria-label="Confirm the invoice"
-                    className="flex flex-col gap-3"
-                  >
-                    <p>
-                      Once issued, the invoice keeps these lines and gets its number: retouches or
-                      renditions finished later are not added.
-                    </p>
-                    {openRetouches > 0 ? (
-                      <Notice tone="caution">
-                        {openRetouches === 1
-                          ? '1 pick is not retouched yet: it is not on this invoice.'
-                          : `${openRetouches} picks are not retouched yet: they are not on this invoice.`}{' '}
-                        Issue it once they are done to bill them.
-                      </Notice>
-                    ) : null}
-                    <div className="flex flex-wrap gap-3">
-                      <Button busy={issue.isPending} onClick={() => issue.mutate()}>
-                        Issue it now
-                      </Button>
-                      <Button variant="secondary" onClick={() => setConfirming(false)}>
-                        Not yet
-                      </Button>
-                    </div>
-                  </div>
-                ) : (
-                  <div>
-                    <Button onClick={() => setConfirming(true)}>Issue the invoice</Button>
-                  </div>
-                )
+                // Issuing freezes the lines for good: one more step, saying so.
+                <ConfirmStep
+                  open={confirming}
+                  label="Confirm the invoice"
+                  trigger="Issue the invoice"
+                  confirm="Issue it now"
+                  busy={issue.isPending}
+                  onOpen={() => setConfirming(true)}
+                  onConfirm={() => issue.mutate()}
+                  onCancel={() => setConfirming(false)}
+                >
+                  <p>
+                    Once issued, the invoice keeps these lines and gets its number: retouches or
+                    renditions finished later are not added.
+                  </p>
+                  {openRetouches > 0 ? (
+                    <Notice tone="caution">
+                      {openRetouches === 1
+                        ? '1 pick is not retouched yet: it is not on this invoice.'
+                        : `${openRetouches} picks are not retouched yet: they are not on this invoice.`}{' '}
+                      Issue it once they are done to bill them.
+                    </Notice>
+                  ) : null}
+                </ConfirmStep>
               ) : null}
             </div>
           ) : (

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Button } from '../../../components/ui/button';
+import { ConfirmStep } from '../../../components/ui/confirm-step';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { useDeliveryStatus, useReleaseSet } from '../api/looks';
@@ -31,59 +31,44 @@ export function DeliveryPanel({
           : 'Nothing released yet.'}
       </p>
       {canRelease ? (
-        confirming ? (
-          // A release reaches people at once (HR's downloads, the sitters' e-mails): one more
-          // step, saying so.
-          <div role="group" aria-label="Confirm the release" className="flex flex-col gap-3">
-            <p>
-              {data.release
-                ? 'HR downloads the new release at once, and each sitter whose portraits are new or changed since the last one gets an e-mail with their link.'
-                : 'HR can download the set at once, and each sitter gets an e-mail with their link.'}{' '}
-              A release is not taken back: a later correction is released again.
-            </p>
-            <div className="flex flex-wrap gap-3">
-              <Button
-                busy={release.isPending}
-                onClick={() =>
-                  release.mutate(undefined, {
-                    onSuccess: (result) => {
-                      setConfirming(false);
-                      setMessage({
-                        tone: 'success',
-                        text: result.unchanged
-                          ? `Nothing changed since release ${result.release}: it stands, and nobody is mailed again.`
-                          : `Release ${result.release}: ${result.files} files, ${result.changed} new or changed. Sitters whose portraits changed get their link by e-mail.`,
-                      });
-                    },
-                    onError: (error) => {
-                      setConfirming(false);
-                      setMessage({
-                        tone: 'danger',
-                        text: error instanceof ApiError ? error.message : 'Not released.',
-                      });
-                    },
-                  })
-                }
-              >
-                Release it now
-              </Button>
-              <Button variant="secondary" onClick={() => setConfirming(false)}>
-                Not yet
-              </Button>
-            </div>
-          </div>
-        ) : (
-          <div>
-            <Button
-              onClick={() => {
-                setMessage(null);
-                setConfirming(true);
-              }}
-            >
-              {data.release ? 'Release the set again' : 'Release the set to HR and the sitters'}
-            </Button>
-          </div>
-        )
+        // A release reaches people at once (HR's downloads, the sitters' e-mails): one more
+        // step, saying so.
+        <ConfirmStep
+          open={confirming}
+          label="Confirm the release"
+          trigger={data.release ? 'Release the set again' : 'Release the set to HR and the sitters'}
+          confirm="Release it now"
+          busy={release.isPending}
+          onOpen={() => {
+            setMessage(null);
+            setConfirming(true);
+          }}
+          onCancel={() => setConfirming(false)}
+          onConfirm={() =>
+            release.mutate(undefined, {
+              onSuccess: (result) =>
+                setMessage({
+                  tone: 'success',
+                  text: result.unchanged
+                    ? `Nothing changed since release ${result.release}: it stands, and nobody is mailed again.`
+                    : `Release ${result.release}: ${result.files} files, ${result.changed} new or changed. Sitters whose portraits changed get their link by e-mail.`,
+                }),
+              onError: (error) =>
+                setMessage({
+                  tone: 'danger',
+                  text: error instanceof ApiError ? error.message : 'Not released.',
+                }),
+              onSettled: () => setConfirming(false),
+            })
+          }
+        >
+          <p>
+            {data.release
+              ? 'HR downloads the new release at once, and each sitter whose portraits are new or changed since the last one gets an e-mail with their link.'
+              : 'HR can download the set at once, and each sitter gets an e-mail with their link.'}{' '}
+            A release is not taken back: a later correction is released again.
+          </p>
+        </ConfirmStep>
       ) : null}
       {canDownload && data.release ? (
         <div className="flex flex-wrap gap-2">
