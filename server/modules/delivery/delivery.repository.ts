@@ -6,6 +6,17 @@ import { invitedPeopleQuery } from '../days/days.repository';
 
 type Executor = Db | Transaction<Database>;
 
+/** What a file name and the manifest say of the person (people joined with their office). */
+const personColumns = [
+  'people.employeeId',
+  'people.email',
+  'people.givenName',
+  'people.familyName',
+  'people.preferredName',
+  'people.department',
+  'offices.name as officeName',
+] as const;
+
 /** Every rendered rendition of a day's picks, with what a file name and the manifest need. */
 export async function renderedSet(db: Executor, dayId: string, lookVersion: number) {
   return (
@@ -29,13 +40,7 @@ export async function renderedSet(db: Executor, dayId: string, lookVersion: numb
         'rendition.key',
         'rendition.byteSize',
         'rendition.sha256',
-        'people.employeeId',
-        'people.email',
-        'people.givenName',
-        'people.familyName',
-        'people.preferredName',
-        'people.department',
-        'offices.name as officeName',
+        ...personColumns,
         'stations.name as stationName',
         sql<string | null>`to_char(frames.captured_local, 'YYYY-MM-DD"T"HH24:MI:SS')`.as(
           'capturedLocal',
@@ -90,13 +95,7 @@ export async function currentSet(db: Executor, dayId: string) {
       'delivered.byteSize',
       'delivered.sha256',
       'delivered.changed',
-      'people.employeeId',
-      'people.email',
-      'people.givenName',
-      'people.familyName',
-      'people.preferredName',
-      'people.department',
-      'offices.name as officeName',
+      ...personColumns,
     ])
     .orderBy('delivered.fileName')
     .execute();
