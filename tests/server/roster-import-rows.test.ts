@@ -496,6 +496,35 @@ describe("a draft's file (migration 2026-12-20T0900)", () => {
     expect(toFix.text.split('\r\n')[1]).toMatch(/^Bo,Reed,ap@hp\.example,A-2,Design,/);
   });
 
+  it("read otherwise or refused by today's rules, asks for the file again (409), never a 500", async () => {
+    const { client, agent } = await coordinatorOfNewClient();
+    const imports = async () => {
+      const draft = await uploadRoster(agent, client.id, file).expect(201);
+      return { draft, url: `/api/clients/${client.id}/roster/imports/${draft.body.id}` };
+    };
+    // As if the rules had read another header when it was uploaded.
+    const renamed = await imports();
+    await t.db
+      .updateTable('rosterImportDrafts')
+      .set({ headers: JSON.stringify(['Given', 'Family', 'Mail', 'Id', 'Team']) })
+      .where('id', '=', renamed.draft.body.id)
+      .execute();
+    const remap = await agent
+      .put(`${renamed.url}/mapping`)
+      .send({ mapping: renamed.draft.body.mapping })
+      .expect(409);
+    expect(remap.body.error.code).toBe('draft_read_otherwise');
+    // As if today's rules refused the bytes kept.
+    const refused = await imports();
+    await t.db
+      .updateTable('rosterImportFiles')
+      .set({ bytes: Buffer.from('E-mail\r\n') })
+      .where('draftId', '=', refused.draft.body.id)
+      .execute();
+    const toFix = await agent.get(`${refused.url}/errors.csv`).expect(409);
+    expect(toFix.body.error.message).toMatch(/Upload the file again/);
+  });
+
   it('goes with its draft, and a refused file leaves neither behind', async () => {
     const { client, agent } = await coordinatorOfNewClient();
     const first = await uploadRoster(agent, client.id, file).expect(201);

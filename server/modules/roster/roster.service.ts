@@ -106,11 +106,30 @@ async function parsedWhileStored(trx: Db, id: string, bytes: Uint8Array) {
   return parsed;
 }
 
-/** A draft's file as uploaded: its bytes parsed again (the same bytes give the same rows). */
-async function storedFile(db: Db, draftId: string) {
-  const stored = await repo.loadStoredFile(db, draftId);
+/**
+ * A draft's file as uploaded: its bytes parsed again (the same bytes give the same rows). A
+ * draft read by an earlier version of the rules, which now read it otherwise or refuse it,
+ * is not guessed at: the file is to be uploaded again.
+ */
+async function storedFile(db: Db, draft: repo.DraftRecord) {
+  const stored = await repo.loadStoredFile(db, draft.id);
   if (!('bytes' in stored)) return stored;
-  const parsed = parseRosterFile(stored.bytes);
+  const readAgain = () => {
+    try {
+      return parseRosterFile(stored.bytes);
+    } catch (error) {
+      if (error instanceof AppError) return null;
+      throw error;
+    }
+  };
+  const parsed = readAgain();
+  if (!parsed || parsed.headers.join('\u0000') !== draft.headers.join('\u0000')) {
+    throw new AppError(
+      'draft_read_otherwise',
+      409,
+      'Likeness now reads this file differently from when it was uploaded. Upload the file again to check it.',
+    );
+  }
   return { rawRows: parsed.rows, warnings: parsed.warnings, rowNumbers: parsed.rowNumbers };
 }
 
@@ -219,13 +238,14 @@ export function createRosterService(deps: { db: Db }) {
       const id = randomUUID();
       const draft = await db.transaction().execute(async (trx) => {
         const parsed = await parsedWhileStored(trx, id, bytes);
-        const saved = (await repo.savedMapping(db, clientId)) as Record<string, ColumnTarget>;
+        // Read on the transaction's own connection: one connection per upload.
+        const saved = (await repo.savedMapping(trx, clientId)) as Record<string, ColumnTarget>;
         const mapping = suggestMapping(parsed.headers, saved, parsed.rows);
         const byHeaderOnly = suggestMapping(parsed.headers, saved);
         const guessedColumns = mapping.flatMap((target, index) =>
           target === byHeaderOnly[index] ? [] : [index],
         );
-        const roster = await rosterNow(db, clientId, mapping);
+        const roster = await rosterNow(trx, clientId, mapping);
         await repo.deleteStaleDrafts(trx, clientId, viewer.id);
         // The preview rows go first (nothing refers to the draft row yet), so that counting
         // them is part of storing them.
@@ -279,7 +299,7 @@ export function createRosterService(deps: { db: Db }) {
       if (mapping.length !== draft.headers.length) {
         throw new AppError('invalid_input', 400, 'Choose a target for every column of the file.');
       }
-      const { rawRows, warnings, rowNumbers } = await storedFile(db, draftId);
+      const { rawRows, warnings, rowNumbers } = await storedFile(db, draft);
       const file = { headers: draft.headers, encoding: draft.encoding, warnings, rowNumbers };
       const roster = await rosterNow(db, clientId, mapping);
       const preview = await db.transaction().execute(async (trx) => {
@@ -314,7 +334,7 @@ export function createRosterService(deps: { db: Db }) {
       await assertClientAccess(db, viewer, clientId);
       const draft = await draftOf(clientId, draftId);
       const errors = await previewRepo.previewRowsOfKinds(db, draftId, ['error', 'conflict']);
-      const { rawRows } = await storedFile(db, draftId);
+      const { rawRows } = await storedFile(db, draft);
       // A rows-to-fix file uploaded again has the column already: its reasons are replaced.
       const fixColumn = draft.headers.findIndex(isFixColumn);
       const headers = fixColumn >= 0 ? draft.headers : [...draft.headers, fixColumnHeader];
