@@ -24,6 +24,17 @@ export async function insertMailings(
   return rows.map((row) => row.id);
 }
 
+/** The round after the day's last mailing of this kind (1 when there is none). */
+export async function nextRound(trx: Transaction<Database>, dayId: string, kind: MailingKind) {
+  const last = await trx
+    .selectFrom('dayMailings')
+    .select((eb) => eb.fn.max('round').as('round'))
+    .where('dayId', '=', dayId)
+    .where('kind', '=', kind)
+    .executeTakeFirst();
+  return (last?.round ?? 0) + 1;
+}
+
 export async function bumpReminderRound(trx: Transaction<Database>, dayId: string) {
   const row = await trx
     .updateTable('shootDays')

@@ -66,13 +66,7 @@ export function createProofsService(deps: {
       round = bumped.reminderRounds;
     } else if (kind === 'proofs_deadline') {
       // Each move of the deadline is a round of its own, so a second move is mailed too.
-      const last = await trx
-        .selectFrom('dayMailings')
-        .select((eb) => eb.fn.max('round').as('round'))
-        .where('dayId', '=', day.id)
-        .where('kind', '=', 'proofs_deadline')
-        .executeTakeFirst();
-      round = (last?.round ?? 0) + 1;
+      round = await mailings.nextRound(trx, day.id, kind);
     }
     const ids = await mailings.insertMailings(trx, day.id, personIds, kind, round);
     await addJobs(
