@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { isIP } from 'node:net';
 import path from 'node:path';
 import { z } from 'zod';
+import { controlCharacterPattern } from './schemas/common';
 
 const booleanFromEnv = z
   .enum(['true', 'false', '1', '0', 'yes', 'no'])
@@ -40,10 +41,6 @@ const trustProxyFromEnv = z.union([
     }),
 ]);
 
-/** Every setting the server reads from the environment, with its default. */
-// eslint-disable-next-line no-control-regex -- matching control characters is the point
-const anyControlCharacter = /[\u0000-\u001f\u007f-\u009f]/;
-
 /**
  * Text printed on invoices and written into delivered files' metadata: one line, no control
  * characters (a tab or a stray escape from a .env file would land in the PDF and the CSV).
@@ -53,11 +50,12 @@ function printedLine(min: number, max: number) {
     .string()
     .min(min)
     .max(max)
-    .refine((text) => !anyControlCharacter.test(text), {
+    .refine((text) => !controlCharacterPattern.test(text), {
       message: 'Write it on one line, without tabs or other control characters.',
     });
 }
 
+/** Every setting the server reads from the environment, with its default. */
 export const configSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().min(1).default('127.0.0.1'),
