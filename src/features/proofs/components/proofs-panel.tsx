@@ -3,6 +3,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
+import { formatDateTime } from '../../../lib/format';
 import { useProofProgress, useReleaseProofs, useRemindProofs } from '../api/day-proofs';
 
 const when = (iso: string) =>
@@ -108,7 +109,7 @@ export function ProofsPanel({
                     text:
                       result.queued > 0
                         ? `Reminder queued for ${result.queued}.`
-                        : `Nobody was reminded: the ${result.coolingDown} not chosen yet had a reminder lately${result.nextReminderAt ? `; the next is possible from ${new Date(result.nextReminderAt).toLocaleString()}` : ''}.`,
+                        : `Nobody was reminded: the ${result.coolingDown} not chosen yet had a reminder lately${result.nextReminderAt ? `; the next is possible from ${formatDateTime(result.nextReminderAt)}` : ''}.`,
                   }),
                 onError: failed,
               })
