@@ -112,13 +112,18 @@ describe('the retouch queue', () => {
     await other.patch(`/api/picks/${row!.pickId}`).send({ status: 'to_do' }).expect(403);
     // The studio admin, on a list loaded before, presses "Take it": told who has it instead.
     const admin = await insertStaff(t.db, { role: 'studio_admin' });
-    const stale = await (
-      await signedInAgent(t, admin.email)
-    )
+    const adminAgent = await signedInAgent(t, admin.email);
+    const stale = await adminAgent
       .patch(`/api/picks/${row!.pickId}`)
       .send({ status: 'in_progress', takenByMe: true })
       .expect(409);
     expect(stale.body.error.code).toBe('pick_taken');
+    // Nor can they let it go for its holder.
+    const letGo = await adminAgent
+      .patch(`/api/picks/${row!.pickId}`)
+      .send({ status: 'to_do', takenByMe: false })
+      .expect(409);
+    expect(letGo.body.error.code).toBe('pick_taken');
     expect((await queue('?status=in_progress')).rows).toMatchObject([
       { pickId: row!.pickId, takenByMe: true },
     ]);

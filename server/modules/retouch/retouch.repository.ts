@@ -138,6 +138,17 @@ export async function findPick(db: Executor, pickId: string) {
     .executeTakeFirst();
 }
 
+/** Who has taken the pick (with their name), the pick's row locked until the transaction ends. */
+export async function pickHolderForUpdate(db: Executor, pickId: string) {
+  return db
+    .selectFrom('picks')
+    .leftJoin('users', 'users.id', 'picks.retouchUserId')
+    .select(['picks.retouchUserId', 'users.displayName'])
+    .where('picks.id', '=', pickId)
+    .forUpdate('picks')
+    .executeTakeFirst();
+}
+
 export async function updatePick(
   db: Executor,
   pickId: string,

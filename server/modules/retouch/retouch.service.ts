@@ -119,34 +119,28 @@ export function createRetouchService(deps: { db: Db; storage: ObjectStorage; max
           'Upload the retouched file first: it marks the pick done.',
         );
       }
-      const next = {
-        ...(change.status ? { retouchStatus: change.status } : {}),
-        ...(change.takenByMe === undefined
-          ? change.status === 'in_progress' && !pick.retouchUserId
-            ? { retouchUserId: viewer.id }
-            : {}
-          : { retouchUserId: change.takenByMe ? viewer.id : null }),
-      };
-      await db.transaction().execute(async (trx) => {
-        // Taking a pick someone else took since this page loaded would silently move their
-        // work: say who has it instead (read under the row's lock, so two takes cannot cross).
-        if (change.takenByMe) {
-          const holder = await trx
-            .selectFrom('picks')
-            .leftJoin('users', 'users.id', 'picks.retouchUserId')
-            .select(['picks.retouchUserId', 'users.displayName'])
-            .where('picks.id', '=', pick.id)
-            .forUpdate('picks')
-            .executeTakeFirst();
-          if (holder?.retouchUserId && holder.retouchUserId !== viewer.id) {
-            throw new AppError(
-              'pick_taken',
-              409,
-              `${holder.displayName ?? 'Someone'} has taken this pick since the list was loaded. Ask them to let it go first.`,
-            );
-          }
+      const next = await db.transaction().execute(async (trx) => {
+        // Who has the pick, read under the row's lock, so two takes cannot cross: taking or
+        // letting go a pick someone else took since this page loaded would silently move
+        // their work, so say who has it instead.
+        const holder = await repo.pickHolderForUpdate(trx, pick.id);
+        const heldByOther = holder?.retouchUserId && holder.retouchUserId !== viewer.id;
+        if (change.takenByMe !== undefined && heldByOther) {
+          throw new AppError(
+            'pick_taken',
+            409,
+            `${holder.displayName ?? 'Someone'} has taken this pick since the list was loaded. Ask them to let it go first.`,
+          );
         }
-        await repo.updatePick(trx, pick.id, next);
+        const written = {
+          ...(change.status ? { retouchStatus: change.status } : {}),
+          ...(change.takenByMe === undefined
+            ? change.status === 'in_progress' && !holder?.retouchUserId
+              ? { retouchUserId: viewer.id }
+              : {}
+            : { retouchUserId: change.takenByMe ? viewer.id : null }),
+        };
+        await repo.updatePick(trx, pick.id, written);
         await recordAudit(trx, {
           actorUserId: viewer.id,
           action: 'retouch.pick_updated',
@@ -154,6 +148,7 @@ export function createRetouchService(deps: { db: Db; storage: ObjectStorage; max
           subjectId: pick.id,
           details: { ...change },
         });
+        return written;
       });
       return { pickId: pick.id, ...next };
     },
