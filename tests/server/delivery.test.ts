@@ -110,6 +110,7 @@ describe('the delivery set', () => {
   });
 
   it('releases the set, and HR downloads it with a manifest and the list of who is missing', async () => {
+    const second = await insertStaff(t.db, { role: 'coordinator', clientId: ready.client.id });
     const released = await ready.studio
       .post(`/api/days/${ready.day.dayId}/delivery/release`)
       .expect(201);
@@ -118,6 +119,11 @@ describe('the delivery set', () => {
     await runQueuedJobs(t);
     const told = await t.mail.waitFor(coordinatorEmail, { subjectIncludes: 'Portraits ready' });
     expect(told.text).toContain(`/days/${ready.day.dayId}`);
+    // Every coordinator of the client, once each (one job each).
+    const hrMails = t.mail.list().filter((mail) => mail.subject.startsWith('Portraits ready'));
+    expect(hrMails.map((mail) => mail.to).sort()).toEqual(
+      [[coordinatorEmail], [second.email]].sort(),
+    );
     const zip = await coordinator
       .get(`/api/days/${ready.day.dayId}/delivery.zip`)
       .buffer(true)

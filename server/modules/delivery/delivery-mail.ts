@@ -2,7 +2,7 @@ import type { Clock } from '../../adapters/clock';
 import type { Mailer } from '../../adapters/mail/mailer';
 import { renderMail } from '../../adapters/mail/render-mail';
 import type { Db } from '../../db/database';
-import type { JobHandlers } from '../../jobs/job-queue';
+import { addJobs, type JobHandlers } from '../../jobs/job-queue';
 import { findDay } from '../days/days.repository';
 import { sendLoggedMailing } from '../invitations/logged-mail';
 import { activeCoordinators } from '../users/users.repository';
@@ -46,29 +46,45 @@ export function portraitsMailTasks(deps: {
       const mailingId = (payload as { mailingId?: unknown }).mailingId;
       if (typeof mailingId === 'string') await send(mailingId, attempt.lastAttempt);
     },
-    // HR learns of a release without having to look: each active coordinator of the client.
+    // HR learns of a release without having to look: each active coordinator of the client,
+    // one job each, so a send that fails is tried again for that coordinator only.
     [SET_RELEASED_HR_MAIL_TASK]: async (payload) => {
-      const { dayId, release } = payload as { dayId?: unknown; release?: unknown };
+      const { dayId, release, userId } = payload as {
+        dayId?: unknown;
+        release?: unknown;
+        userId?: unknown;
+      };
       if (typeof dayId !== 'string' || typeof release !== 'number') return;
       const day = await findDay(db, dayId);
       if (!day) return;
       const coordinators = await activeCoordinators(db, day.clientId);
-      for (const coordinator of coordinators) {
-        const content = renderMail({
-          heading: `Hello ${coordinator.displayName},`,
-          paragraphs: [
-            release === 1
-              ? `The portraits of ${day.clientName}'s ${day.officeName} shoot day on ${day.date} are ready to download, with their manifest.`
-              : `Release ${release} of the portraits of ${day.clientName}'s ${day.officeName} shoot day on ${day.date} is ready: the manifest says which files are new or changed.`,
-          ],
-          action: { label: 'Open the day', url: `${deps.publicUrl}/days/${day.id}` },
-        });
-        await deps.mailer.send({
-          to: coordinator.email,
-          subject: `Portraits ready: ${day.officeName}, ${day.date}`,
-          ...content,
-        });
+      if (userId === undefined) {
+        await addJobs(
+          db,
+          SET_RELEASED_HR_MAIL_TASK,
+          coordinators.map((coordinator) => ({
+            payload: { dayId, release, userId: coordinator.id },
+            jobKey: `set-released-hr:${dayId}:${release}:${coordinator.id}`,
+          })),
+        );
+        return;
       }
+      const coordinator = coordinators.find((candidate) => candidate.id === userId);
+      if (!coordinator) return;
+      const content = renderMail({
+        heading: `Hello ${coordinator.displayName},`,
+        paragraphs: [
+          release === 1
+            ? `The portraits of ${day.clientName}'s ${day.officeName} shoot day on ${day.date} are ready to download, with their manifest.`
+            : `Release ${release} of the portraits of ${day.clientName}'s ${day.officeName} shoot day on ${day.date} is ready: the manifest says which files are new or changed.`,
+        ],
+        action: { label: 'Open the day', url: `${deps.publicUrl}/days/${day.id}` },
+      });
+      await deps.mailer.send({
+        to: coordinator.email,
+        subject: `Portraits ready: ${day.officeName}, ${day.date}`,
+        ...content,
+      });
     },
   };
 }

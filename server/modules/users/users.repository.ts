@@ -85,7 +85,7 @@ export async function countActiveAdmins(db: Db): Promise<number> {
 export async function activeCoordinators(db: Db, clientId: string) {
   return db
     .selectFrom('users')
-    .select(['email', 'displayName'])
+    .select(['id', 'email', 'displayName'])
     .where('role', '=', 'coordinator')
     .where('clientId', '=', clientId)
     .where('active', '=', true)
