@@ -378,7 +378,7 @@ export function parseRosterText(
       if (cell.length > maxCellCharacters) {
         throw refuseLongCell(rowNumber, headers[column] || `Column ${column + 1}`, cell.length);
       }
-      let value = readBackNeutralised(cell);
+      let value = readBack(cell);
       if (mayHoldStrayBytes && value.includes(legacyMark)) {
         const parts = value.split(legacyMark);
         warnings.push({ row: rows.length, column, strayBytes: parts.length - 1 });
@@ -431,12 +431,24 @@ function countRecords(text: string, delimiter: RosterDelimiter, newline: LineBre
 }
 
 /**
- * A cell our own export neutralised (OWASP CSV Injection: a leading ') reads back as it was; so
- * does a number kept as text with a leading ' (a spreadsheet's way to keep "00123" from
- * becoming 123, common practice), so it still matches the id stored without it.
+ * A cell our own export neutralised (OWASP CSV Injection: neutraliseCell's leading ') reads
+ * back as it was.
  */
 export function readBackNeutralised(cell: string): string {
-  return cell.charCodeAt(0) === 39 && /^'[=+\-@\t\r0-9]/.test(cell) ? cell.slice(1) : cell;
+  return cell.charCodeAt(0) === 39 && /^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell;
+}
+
+/**
+ * A number kept as text with a leading ' (a spreadsheet's way to keep "00123" from becoming
+ * 123, common practice) reads as the number, so it still matches the id stored without it.
+ */
+export function readBackTextMarker(cell: string): string {
+  return cell.charCodeAt(0) === 39 && /^'[0-9]/.test(cell) ? cell.slice(1) : cell;
+}
+
+/** What a spreadsheet or our own export put in front of a cell, taken off. */
+function readBack(cell: string): string {
+  return readBackTextMarker(readBackNeutralised(cell));
 }
 
 export function parseRosterFile(bytes: Uint8Array): ParsedRosterFile {
