@@ -11,6 +11,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { useRemapImport } from '../api/remap-import';
+import { fileReadAs } from './file-read-as';
 
 const targetOptions: Array<{ value: ColumnTarget; label: string }> = [
   ...rosterFields.map((field) => ({ value: field, label: rosterFieldLabels[field] })),
@@ -56,10 +57,8 @@ export function MappingStep({
       className="flex flex-col gap-4"
     >
       <p className="text-ink-muted">
-        {draft.fileName}: {draft.rowCount.toLocaleString()} rows, read as{' '}
-        {draft.encoding.toUpperCase()} with “{draft.delimiter === '\t' ? 'tab' : draft.delimiter}”
-        between values. Say which of our fields each column holds; the choice is remembered for the
-        next import.
+        {fileReadAs(draft)} Say which of our fields each column holds; the choice is remembered for
+        the next import.
       </p>
       {problems.length > 0 ? (
         <Notice tone="caution">

@@ -9,6 +9,7 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
 import { plural } from '../../../lib/format';
+import { fileReadAs } from './file-read-as';
 import { useCommitImport } from '../api/commit-import';
 import { useRemapImport } from '../api/remap-import';
 import { OfficeTimeZones, guessTimeZone } from './office-time-zones';
@@ -105,10 +106,7 @@ export function PreviewStep({
   return (
     <div className="flex flex-col gap-5">
       {/* Said here too: a remembered mapping skips the step that says it first. */}
-      <p className="text-ink-muted">
-        {draft.fileName}: {plural(draft.rowCount, 'row')}, read as {draft.encoding.toUpperCase()}{' '}
-        with “{draft.delimiter === '\t' ? 'tab' : draft.delimiter}” between values.
-      </p>
+      <p className="text-ink-muted">{fileReadAs(draft)}</p>
       <div role="group" aria-label="Show rows" className="flex flex-wrap gap-2">
         {(['all', ...previewKinds] as const).map((item) => {
           const count = item === 'all' ? allRows : counts[item];
