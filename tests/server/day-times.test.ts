@@ -130,6 +130,49 @@ describe('reminders', () => {
     ).toEqual(invited.map((person) => person.email.toLowerCase()).sort());
   });
 
+  it('promise no next reminder to someone who booked since, nor to anyone once booking closed', async () => {
+    const { day, invited, coordinatorAccount } = await officeDay(2);
+    const coordinator = await signedInAgent(t, coordinatorAccount.email);
+    await coordinator.post(`/api/days/${day.id}/reminders`).expect(202);
+    await runQueuedJobs(t);
+    await t.db
+      .insertInto('bookings')
+      .values({
+        dayId: day.id,
+        stationId: day.stations[0]!.id,
+        personId: invited[0]!.id,
+        startsAt: new Date(`${day.date}T09:00:00Z`),
+        passToken: `pass-${invited[0]!.id}`,
+        calendarUid: `${invited[0]!.id}@test`,
+      })
+      .execute();
+
+    const nextOf = (body: {
+      entries: { kind: string; personId: string; nextReminderAt: string | null }[];
+    }) =>
+      Object.fromEntries(
+        body.entries
+          .filter((entry) => entry.kind === 'reminder')
+          .map((entry) => [entry.personId, entry.nextReminderAt]),
+      );
+    const open = await coordinator.get(`/api/days/${day.id}/mailings`).expect(200);
+    expect(nextOf(open.body)[invited[0]!.id]).toBeNull();
+    expect(nextOf(open.body)[invited[1]!.id]).toEqual(expect.any(String));
+    expect(open.body.reminders).toMatchObject({ coolingDown: 1 });
+
+    // insertDay closes booking at the start of the day's date.
+    t.clock.advance(Date.parse(`${day.date}T00:00:00Z`) + 60_000 - t.clock.now().getTime());
+    const later = await signedInAgent(t, coordinatorAccount.email);
+    const closed = await later.get(`/api/days/${day.id}/mailings`).expect(200);
+    expect(Object.values(nextOf(closed.body))).toEqual([null, null]);
+    expect(closed.body.reminders).toMatchObject({
+      bookingClosed: true,
+      dueNow: 0,
+      coolingDown: 0,
+      nextAt: null,
+    });
+  });
+
   it('takes its cool-down from REMINDER_COOLDOWN_HOURS, 24 by default', () => {
     const config = (env: Record<string, string>) => toAppConfig(parseEnvironment(env));
     expect(config({}).reminderCooldownMs).toBe(24 * 3_600_000);

@@ -38,7 +38,11 @@ export function createInvitationsService(deps: {
     const came = await repo.checkedInPersonIds(executor, day.id);
     const unbooked = (await invitedIds(day)).filter((id) => !booked.has(id) && !came.has(id));
     const last = await repo.lastRemindedAt(executor, day.id);
-    return { ...splitByCooldown(unbooked, last, clock.now().getTime(), cooldownMs), last };
+    return {
+      ...splitByCooldown(unbooked, last, clock.now().getTime(), cooldownMs),
+      last,
+      unbooked: new Set(unbooked),
+    };
   }
 
   /** Booking has closed: a reminder to book would ask for what can no longer be done. */
@@ -206,27 +210,31 @@ export function createInvitationsService(deps: {
       const day = await days.visibleDay(viewer, dayId);
       const log = await repo.mailingLog(db, dayId);
       const plan = await reminderPlan(db, day);
-      // The latest reminder row of each person says when their next one is possible.
+      const closed = bookingClosed(day);
+      // Reminders are still to come only while booking is open on a confirmed day.
+      const remindable = day.status === 'confirmed' && !closed;
+      // The latest reminder row of each person still unbooked says when their next one is
+      // possible; someone who has booked since, or sat, is not reminded again.
       const latest = new Set<string>();
       const entries = log.entries.map((entry) => {
         const reminded = plan.last.get(entry.personId);
         if (entry.kind !== 'reminder' || !reminded || latest.has(entry.personId)) return entry;
         latest.add(entry.personId);
+        if (!remindable || !plan.unbooked.has(entry.personId)) return entry;
         return {
           ...entry,
           nextReminderAt: new Date(reminded.getTime() + cooldownMs).toISOString(),
         };
       });
-      const closed = bookingClosed(day);
       return {
         ...log,
         entries,
         reminders: {
           cooldownHours: cooldownMs / 3_600_000,
           bookingClosed: closed,
-          dueNow: day.status === 'confirmed' && !closed ? plan.due.length : 0,
-          coolingDown: plan.coolingDown,
-          nextAt: plan.nextAt?.toISOString() ?? null,
+          dueNow: remindable ? plan.due.length : 0,
+          coolingDown: remindable ? plan.coolingDown : 0,
+          nextAt: remindable ? (plan.nextAt?.toISOString() ?? null) : null,
         },
       };
     },
