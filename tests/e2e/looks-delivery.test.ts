@@ -106,6 +106,12 @@ describe('looks and delivery', () => {
     await page.goto(`/days/${ready.day.dayId}`);
     await page.getByRole('link', { name: 'The set (renditions and delivery)' }).click();
     await page.getByRole('heading', { level: 1, name: 'The set' }).waitFor();
+    // Nothing rendered yet: the release is not offered, and the page says why.
+    const releaseButton = page.getByRole('button', {
+      name: 'Release the set to HR and the sitters',
+    });
+    await page.getByText(/^Not every portrait is rendered in the current look/).waitFor();
+    expect(await releaseButton.isDisabled()).toBe(true);
     await page.getByRole('button', { name: 'Find eyes and render the set' }).click();
     await page.getByText(/Finding the eyes in 2 portraits/).waitFor();
     await runQueuedJobs(env.testApp);

@@ -252,8 +252,13 @@ describe('the delivery set', () => {
       .where('id', '=', ready.sitters[0]!.id)
       .execute();
     expect(refused.body.error.message).toContain(`${first!.givenName} ${first!.familyName}`);
+    // The status says the same before anyone presses release, and clears once it can go.
+    const waiting = await ready.studio.get(`/api/days/${ready.day.dayId}/delivery`).expect(200);
+    expect(waiting.body.releaseBlocker).toBe(refused.body.error.message);
     await ready.studio.post(`/api/days/${ready.day.dayId}/set/prepare`).expect(202);
     await runQueuedJobs(t);
+    const cleared = await ready.studio.get(`/api/days/${ready.day.dayId}/delivery`).expect(200);
+    expect(cleared.body.releaseBlocker).toBeNull();
     // A double click: two requests at once make one release, and both answer with it.
     const both = await Promise.all(
       [1, 2].map(() =>

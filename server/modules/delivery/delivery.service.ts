@@ -49,36 +49,58 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
 
   const readableDay = (viewer: Viewer, dayId: string) => findFollowedDay(db, viewer, dayId);
 
+  /**
+   * Whether the set can be released now, and if not why: the one rule of the release and of
+   * the status that offers it. A release is the whole set as it is now: never an older file in
+   * place of a new final.
+   */
+  async function releaseReadiness(day: DayRecord) {
+    const look = await findLook(db, day.clientId);
+    if (!look) {
+      return {
+        ok: false as const,
+        blocker: new AppError('no_look', 409, 'Set up the client’s look first.'),
+      };
+    }
+    const renditionNames = lookSchema
+      .parse({ name: look.name, renditions: look.renditions })
+      .renditions.map((rendition) => rendition.name);
+    const waiting = await repo.sittersNotRendered(db, day.id, look.version, renditionNames);
+    if (waiting.length > 0) {
+      const shown = waiting.slice(0, 5).join(', ');
+      const more = waiting.length > 5 ? ` and ${waiting.length - 5} more` : '';
+      return {
+        ok: false as const,
+        blocker: new AppError(
+          'set_not_rendered',
+          409,
+          `Not every portrait is rendered in the current look from its latest file: ${shown}${more}. Press "Find eyes and render the set" (and mark any eyes it asks for), then release.`,
+        ),
+      };
+    }
+    const rendered = await repo.renderedSet(db, day.id, look.version);
+    if (rendered.length === 0) {
+      return {
+        ok: false as const,
+        blocker: new AppError(
+          'nothing_rendered',
+          409,
+          'No portrait has been rendered in the current look yet.',
+        ),
+      };
+    }
+    return { ok: true as const, look, rendered };
+  }
+
   return {
     readableDay,
 
     /** Makes the day's current set from its rendered renditions; says what changed. */
     async release(viewer: Viewer, dayId: string) {
       const day = await findStudioDay(db, viewer, dayId);
-      const look = await findLook(db, day.clientId);
-      if (!look) throw new AppError('no_look', 409, 'Set up the client’s look first.');
-      const renditionNames = lookSchema
-        .parse({ name: look.name, renditions: look.renditions })
-        .renditions.map((rendition) => rendition.name);
-      // A release is the whole set as it is now: never an older file in place of a new final.
-      const waiting = await repo.sittersNotRendered(db, day.id, look.version, renditionNames);
-      if (waiting.length > 0) {
-        const shown = waiting.slice(0, 5).join(', ');
-        const more = waiting.length > 5 ? ` and ${waiting.length - 5} more` : '';
-        throw new AppError(
-          'set_not_rendered',
-          409,
-          `Not every portrait is rendered in the current look from its latest file: ${shown}${more}. Press "Find eyes and render the set" (and mark any eyes it asks for), then release.`,
-        );
-      }
-      const rendered = await repo.renderedSet(db, day.id, look.version);
-      if (rendered.length === 0) {
-        throw new AppError(
-          'nothing_rendered',
-          409,
-          'No portrait has been rendered in the current look yet.',
-        );
-      }
+      const ready = await releaseReadiness(day);
+      if (!ready.ok) throw ready.blocker;
+      const { look, rendered } = ready;
       const names = uniqueFileNames(
         look.fileNameTemplate,
         rendered.map((row) => ({
@@ -171,9 +193,10 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
 
     async status(viewer: Viewer, dayId: string) {
       const day = await readableDay(viewer, dayId);
-      const [latest, set] = await Promise.all([
+      const [latest, set, ready] = await Promise.all([
         repo.latestRelease(db, day.id),
         repo.currentSet(db, day.id),
+        releaseReadiness(day),
       ]);
       const offices = [
         ...new Set(set.map((row) => row.officeName).filter((name): name is string => !!name)),
@@ -189,6 +212,8 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
         people: new Set(set.map((row) => row.personId)).size,
         offices,
         departments,
+        // What stops a release now, said before anyone presses it.
+        releaseBlocker: ready.ok ? null : ready.blocker.message,
       };
     },
 

@@ -11,6 +11,7 @@ export function ConfirmStep({
   trigger,
   confirm,
   busy = false,
+  disabled = false,
   onOpen,
   onConfirm,
   onCancel,
@@ -22,6 +23,8 @@ export function ConfirmStep({
   trigger: string;
   confirm: string;
   busy?: boolean;
+  /** The step cannot be taken now (the screen says why beside it). */
+  disabled?: boolean;
   onOpen: () => void;
   onConfirm: () => void;
   onCancel: () => void;
@@ -30,7 +33,9 @@ export function ConfirmStep({
   if (!open) {
     return (
       <div>
-        <Button onClick={onOpen}>{trigger}</Button>
+        <Button disabled={disabled} onClick={onOpen}>
+          {trigger}
+        </Button>
       </div>
     );
   }

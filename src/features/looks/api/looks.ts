@@ -124,12 +124,17 @@ export interface DeliveryStatus {
   people: number;
   offices: string[];
   departments: string[];
+  /** Why the set cannot be released now, or null when it can. */
+  releaseBlocker: string | null;
 }
 
 export const useDeliveryStatus = (dayId: string) =>
   useQuery({
     queryKey: ['days', dayId, 'delivery'],
     queryFn: () => api<DeliveryStatus>(`/days/${dayId}/delivery`),
+    // Renders finish in the background: while something stops the release, look again now and
+    // then, so the button comes on when the set is ready.
+    refetchInterval: (query) => (query.state.data?.releaseBlocker ? 5000 : false),
   });
 
 export const useReleaseSet = (dayId: string) =>

@@ -39,6 +39,7 @@ export function DeliveryPanel({
           trigger={data.release ? 'Release the set again' : 'Release the set to HR and the sitters'}
           confirm="Release it now"
           busy={release.isPending}
+          disabled={data.releaseBlocker !== null}
           onOpen={() => {
             setMessage(null);
             setConfirming(true);
@@ -69,6 +70,9 @@ export function DeliveryPanel({
             A release is not taken back: a later correction is released again.
           </p>
         </ConfirmStep>
+      ) : null}
+      {canRelease && data.releaseBlocker && !confirming ? (
+        <p className="text-sm text-ink-muted">{data.releaseBlocker}</p>
       ) : null}
       {canDownload && data.release ? (
         <div className="flex flex-wrap gap-2">
