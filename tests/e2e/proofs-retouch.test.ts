@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TEST_PASSWORD } from '../factories/accounts';
-import { setUpProofsDay } from '../server/proofs-day';
+import { setUpMatchedDay, setUpProofsDay } from '../server/proofs-day';
 import { cameraJpeg } from '../support/camera-cards';
 import {
   seriousAxeViolations,
@@ -104,6 +104,39 @@ describe('proofs and the retouch queue', () => {
     await page.getByText(`${edited}: stored beside the original`).waitFor({ timeout: 30_000 });
     await table.getByText('Done').waitFor();
     await table.getByRole('link', { name: `Final: ${edited}` }).waitFor();
+    await context.close();
+  });
+});
+
+describe('sending the proofs', () => {
+  it('asks once more, says who is mailed and until when, and "Not yet" sends nothing', async () => {
+    const matched = await setUpMatchedDay(env.testApp, 2);
+    await matched.session.close();
+    const context = await env.newContext({ viewport: { width: 1280, height: 1000 } });
+    const page = await context.newPage();
+    await signInWithPassword(page, matched.photographer.email, TEST_PASSWORD);
+    await page.getByRole('heading', { level: 1, name: /Hello,/ }).waitFor();
+    await page.goto(`/days/${matched.day.dayId}/review`);
+    await page.getByRole('heading', { level: 1, name: 'Frames by sitter' }).waitFor();
+    await page.getByRole('button', { name: 'Send proofs' }).click();
+    const confirm = page.getByRole('group', { name: 'Confirm sending the proofs' });
+    await confirm.getByText(/Each of the 2 sitters with matched frames gets an e-mail/).waitFor();
+    await confirm.getByText(/not called back/).waitFor();
+    expect(await seriousAxeViolations(page)).toEqual([]);
+    await confirm.getByRole('button', { name: 'Not yet' }).click();
+    const mailed = () =>
+      env.testApp.db
+        .selectFrom('dayMailings')
+        .where('dayId', '=', matched.day.dayId)
+        .where('kind', '=', 'proofs')
+        .select('id')
+        .execute();
+    expect(await mailed()).toHaveLength(0);
+
+    await page.getByRole('button', { name: 'Send proofs' }).click();
+    await confirm.getByRole('button', { name: 'Send them now' }).click();
+    await page.getByText('Proofs queued for 2 sitters.').waitFor();
+    expect(await mailed()).toHaveLength(2);
     await context.close();
   });
 });

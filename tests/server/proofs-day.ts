@@ -24,6 +24,28 @@ export async function setUpProofsDay(
   sittings = 2,
   options: { redeemLinks?: boolean } = {},
 ) {
+  const matched = await setUpMatchedDay(t, sittings);
+  const { day, people, studio } = matched;
+  const released = await studio.post(`/api/days/${day.dayId}/proofs/release`).send({}).expect(201);
+  expect(released.body).toMatchObject({ queued: sittings, alreadySent: 0 });
+  await runQueuedJobs(t);
+  const sitters = [];
+  for (const person of people) {
+    const mail = await t.mail.waitFor(person.email);
+    const agent = request.agent(t.app);
+    // A browser test opens the link itself: it can be used once.
+    if (options.redeemLinks !== false)
+      await agent
+        .post('/api/sign-in-links/redeem')
+        .send({ token: linkTokenFrom(mail.text, 'link') })
+        .expect(201);
+    sitters.push({ id: person.id, email: person.email, agent, mail });
+  }
+  return { ...matched, sitters };
+}
+
+/** A day photographed and matched, its proofs not sent yet. */
+export async function setUpMatchedDay(t: TestApp, sittings = 2) {
   const client = await insertClient(t.db);
   const office = await insertOffice(t.db, client.id);
   const photographer = await insertStaff(t.db, { role: 'photographer' });
@@ -53,22 +75,7 @@ export async function setUpProofsDay(
   const session = await openTusSession(t, photographer.email);
   await uploadCardAndMatch(t, session, { dayId: day.dayId, stationId: day.stations[0]!.id }, plan);
   const studio = await signedInAgent(t, photographer.email);
-  const released = await studio.post(`/api/days/${day.dayId}/proofs/release`).send({}).expect(201);
-  expect(released.body).toMatchObject({ queued: sittings, alreadySent: 0 });
-  await runQueuedJobs(t);
-  const sitters = [];
-  for (const person of people) {
-    const mail = await t.mail.waitFor(person.email);
-    const agent = request.agent(t.app);
-    // A browser test opens the link itself: it can be used once.
-    if (options.redeemLinks !== false)
-      await agent
-        .post('/api/sign-in-links/redeem')
-        .send({ token: linkTokenFrom(mail.text, 'link') })
-        .expect(201);
-    sitters.push({ id: person.id, email: person.email, agent, mail });
-  }
-  return { client, day, plan, photographer, session, studio, sitters };
+  return { client, day, plan, photographer, session, studio, people };
 }
 
 /** Runs the deadline's settling now, as the settle-picks job would at the deadline. */

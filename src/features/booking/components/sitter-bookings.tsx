@@ -2,18 +2,12 @@ import type { SitterDay } from '../../../../server/schemas/booking';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Notice } from '../../../components/ui/notice';
+import { formatCalendarDate } from '../../../lib/format';
 import { useMyDays } from '../api/list-my-days';
 import { BookSlotForm } from './book-slot-form';
 import { MyBooking } from './my-booking';
 
-const longDate = (day: SitterDay) =>
-  new Intl.DateTimeFormat('en-GB', {
-    weekday: 'long',
-    day: 'numeric',
-    month: 'long',
-    year: 'numeric',
-    timeZone: 'UTC',
-  }).format(new Date(`${day.date}T12:00:00Z`));
+const longDate = (day: SitterDay) => formatCalendarDate(day.date);
 
 const inZone = (iso: string, timeZone: string) =>
   new Intl.DateTimeFormat('en-GB', { timeZone, dateStyle: 'long', timeStyle: 'short' }).format(

@@ -1,9 +1,10 @@
 import { useState } from 'react';
 import { Button } from '../../../components/ui/button';
+import { ConfirmStep } from '../../../components/ui/confirm-step';
 import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { ApiError } from '../../../lib/api-client';
-import { formatDateTime } from '../../../lib/format';
+import { formatCalendarDate, formatDateTime } from '../../../lib/format';
 import { useProofProgress, useReleaseProofs, useRemindProofs } from '../api/day-proofs';
 
 const when = (iso: string) =>
@@ -30,6 +31,7 @@ export function ProofsPanel({
   const remind = useRemindProofs(dayId);
   const [closeOn, setCloseOn] = useState(() => weekAfter(dayDate));
   const [message, setMessage] = useState<{ tone: 'success' | 'danger'; text: string } | null>(null);
+  const [confirming, setConfirming] = useState(false);
   if (!data) return null;
   const failed = (error: Error) =>
     setMessage({ tone: 'danger', text: error instanceof ApiError ? error.message : error.message });
@@ -66,10 +68,22 @@ export function ProofsPanel({
               onChange={setCloseOn}
             />
           </div>
-          <Button
+          {/* The e-mails go at once and are not called back: one more step, saying so. */}
+          <ConfirmStep
+            open={confirming}
+            label="Confirm sending the proofs"
+            trigger={
+              data.released ? 'Send proofs to anyone new, and set the deadline' : 'Send proofs'
+            }
+            confirm="Send them now"
             busy={release.isPending}
-            disabled={data.withProofs === 0}
-            onClick={() =>
+            disabled={data.withProofs === 0 || closeOn === ''}
+            onOpen={() => {
+              setMessage(null);
+              setConfirming(true);
+            }}
+            onCancel={() => setConfirming(false)}
+            onConfirm={() =>
               release.mutate(
                 { picksCloseOn: closeOn },
                 {
@@ -88,12 +102,19 @@ export function ProofsPanel({
                       }`,
                     }),
                   onError: failed,
+                  onSettled: () => setConfirming(false),
                 },
               )
             }
           >
-            {data.released ? 'Send proofs to anyone new, and set the deadline' : 'Send proofs'}
-          </Button>
+            <p>
+              {data.released
+                ? `Sitters with frames who were not sent their proofs yet get an e-mail with their link now. If the last day to choose moved, everyone sent their proofs before is mailed the new date.`
+                : `Each of the ${data.withProofs} sitter${data.withProofs === 1 ? '' : 's'} with matched frames gets an e-mail with a link to their own frames now.`}{' '}
+              Choosing closes at the end of {closeOn ? formatCalendarDate(closeOn) : ''}. An e-mail
+              sent is not called back.
+            </p>
+          </ConfirmStep>
         </div>
       ) : null}
       {data.released && data.open && data.notPicked > 0 ? (
