@@ -150,7 +150,7 @@ export function FrameUploader({
               </p>
             </div>
             <progress
-              className="mt-2 h-3 w-full accent-spruce-600"
+              className="mt-2 h-3 w-full"
               max={100}
               value={percent}
               aria-label="Upload progress"

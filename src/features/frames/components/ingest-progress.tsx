@@ -44,7 +44,7 @@ export function IngestProgress({ overview }: { overview: DayFramesOverview }) {
                   {station.read.toLocaleString()}
                   {station.frames > 0 ? (
                     <progress
-                      className="ml-2 h-2 w-24 align-middle accent-spruce-600"
+                      className="ml-2 h-2 w-24 align-middle"
                       max={station.frames}
                       value={station.read + station.failed}
                       aria-label={`${station.stationName}: frames read`}

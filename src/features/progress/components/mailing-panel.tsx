@@ -83,7 +83,7 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
             id={`${dayId}-sending`}
             max={total}
             value={done}
-            className="h-3 w-full accent-spruce-600"
+            className="h-3 w-full"
           />
         </div>
       ) : (
