@@ -236,3 +236,80 @@ describe('control characters removed at decode (issue 14, item 1)', () => {
     expect(checked[0]?.errors.email).toBe('The e-mail is missing.');
   });
 });
+
+// The product's own rule (departments group people when inviting and in the figures); that
+// letter case and doubled spaces do not make another name is common practice in HR systems.
+describe('department spellings', () => {
+  const withDepartment = ['First name', 'Last name', 'Email', 'Employee id', 'Department'];
+  const departmentMapping: ColumnMapping = [
+    'givenName',
+    'familyName',
+    'email',
+    'employeeId',
+    'department',
+  ];
+  const fields = new Set<RosterField>([
+    'givenName',
+    'familyName',
+    'email',
+    'employeeId',
+    'department',
+  ]);
+  const run = (rows: string[][], existing: ExistingPerson[]) =>
+    diffRoster(
+      checkRows(withDepartment, rows, departmentMapping),
+      existing,
+      ['Leeds'],
+      fields,
+      false,
+    );
+
+  it('writes a department as the roster spells it most, and says so on the row', () => {
+    const result = run(
+      [
+        ['Ada', 'Pike', 'ada@hp.example', 'E1', 'finance'],
+        ['Bo', 'Lund', 'bo@hp.example', 'E2', 'FINANCE'],
+        ['Cy', 'Moss', 'cy@hp.example', 'E3', 'Finance'],
+      ],
+      [
+        person({ department: 'Finance' }),
+        person({ id: 'p5', email: 'eve@hp.example', employeeId: 'E5', department: 'Finance' }),
+        person({ id: 'p6', email: 'fay@hp.example', employeeId: 'E6', department: 'finance' }),
+      ],
+    );
+    expect(result.rows.slice(0, 3).map((row) => row.values.department)).toEqual([
+      'Finance',
+      'Finance',
+      'Finance',
+    ]);
+    // Ada keeps her department: only the letter case differed, so nothing changes.
+    expect(result.rows[0]).toMatchObject({ kind: 'unchanged' });
+    expect(result.rows[0]?.warnings.department).toBe(
+      'Written “Finance”, as the roster spells this department.',
+    );
+    expect(result.rows[1]).toMatchObject({ kind: 'add' });
+    expect(result.rows[2]?.warnings.department).toBeUndefined();
+  });
+
+  it('takes the first spelling within a file when the roster has none, white space folded', () => {
+    const result = run(
+      [
+        ['Ada', 'Pike', 'ada@hp.example', 'E1', 'Human Resources'],
+        ['Bo', 'Lund', 'bo@hp.example', 'E2', 'human  resources'],
+        ['Cy', 'Moss', 'cy@hp.example', 'E3', 'Legal'],
+      ],
+      [],
+    );
+    expect(result.rows.map((row) => row.values.department)).toEqual([
+      'Human Resources',
+      'Human Resources',
+      'Legal',
+    ]);
+    expect(result.rows[1]?.warnings.department).toBe(
+      'Written “Human Resources”, as row 2 of this file spells this department.',
+    );
+    // The warning is the row's own: the other rows' records are untouched.
+    expect(result.rows[0]?.warnings).toEqual({});
+    expect(result.rows[2]?.warnings).toEqual({});
+  });
+});

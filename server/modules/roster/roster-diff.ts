@@ -48,6 +48,40 @@ export interface DiffOptions {
   legacyEncoding?: boolean;
 }
 
+/** A department's key: case and runs of white space do not make another department. */
+const departmentKey = (name: string) => name.toLowerCase().replace(/\s+/g, ' ');
+
+/**
+ * One spelling per department, so "Finance" and "finance " are one group when inviting by
+ * department and in the figures: the roster's most used spelling, else the file's first.
+ */
+function departmentSpellings(existing: readonly ExistingPerson[]) {
+  const counts = new Map<string, Map<string, number>>();
+  for (const person of existing) {
+    if (!person.active || !person.department) continue;
+    const key = departmentKey(person.department);
+    const spellings = counts.get(key) ?? new Map<string, number>();
+    spellings.set(person.department, (spellings.get(person.department) ?? 0) + 1);
+    counts.set(key, spellings);
+  }
+  const chosen = new Map<string, { spelling: string; from: string }>();
+  for (const [key, spellings] of counts) {
+    const [spelling] = [...spellings].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]))[0]!;
+    chosen.set(key, { spelling, from: 'the roster' });
+  }
+  return {
+    /** The spelling to write for `name` on file row `rowNumber`, and whose spelling it is. */
+    spell(name: string, rowNumber: number) {
+      const key = departmentKey(name);
+      const known = chosen.get(key);
+      if (known) return known;
+      const first = { spelling: name, from: `row ${rowNumber} of this file` };
+      chosen.set(key, first);
+      return first;
+    },
+  };
+}
+
 const nameOf = (person: ExistingPerson) => `${person.givenName} ${person.familyName}`;
 
 /**
@@ -94,6 +128,7 @@ export function createRosterDiff(
     byEmail.set(person.email.toLowerCase(), person);
   }
   const officeKeys = new Set(knownOffices.map((name) => name.toLowerCase()));
+  const departments = departmentSpellings(existing);
   const newOffices = new Map<string, string>();
   const claimed = new Map<string, number>();
   let position = 0;
@@ -134,6 +169,17 @@ export function createRosterDiff(
       };
     }
     const row = item.row;
+    if (row.department) {
+      const spelled = departments.spell(row.department, item.rowNumber);
+      if (spelled.spelling !== row.department) {
+        // A warnings record may be shared by many rows: this row gets one of its own.
+        item.warnings = {
+          ...item.warnings,
+          department: `Written “${spelled.spelling}”, as ${spelled.from} spells this department.`,
+        };
+        row.department = spelled.spelling;
+      }
+    }
     if (row.office && !officeKeys.has(row.office.toLowerCase())) {
       newOffices.set(
         row.office.toLowerCase(),
