@@ -69,15 +69,21 @@ function departmentSpellings(existing: readonly ExistingPerson[]) {
     const [spelling] = [...spellings].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]))[0]!;
     chosen.set(key, { spelling, from: 'the roster' });
   }
+  const bySpelling = new Map<string, { spelling: string; from: string }>();
   return {
     /** The spelling to write for `name` on file row `rowNumber`, and whose spelling it is. */
     spell(name: string, rowNumber: number) {
+      // A file names a few departments many times: each exact spelling is folded once.
+      const seen = bySpelling.get(name);
+      if (seen) return seen;
       const key = departmentKey(name);
-      const known = chosen.get(key);
-      if (known) return known;
-      const first = { spelling: name, from: `row ${rowNumber} of this file` };
-      chosen.set(key, first);
-      return first;
+      let spelled = chosen.get(key);
+      if (!spelled) {
+        spelled = { spelling: name, from: `row ${rowNumber} of this file` };
+        chosen.set(key, spelled);
+      }
+      bySpelling.set(name, spelled);
+      return spelled;
     },
   };
 }
