@@ -55,6 +55,8 @@ export interface PicksTable {
   finalByteSize: Optional<string>;
   finalUploadedAt: OptionalTimestamp;
   finalUploadedByUserId: Optional<string>;
+  /** The note as it was when the final was sent back. */
+  noteAtFinal: Optional<string>;
   createdAt: DefaultedTimestamp;
   updatedAt: DefaultedTimestamp;
 }

@@ -158,6 +158,10 @@ export interface RetouchRow {
   takenByMe: boolean;
   hasFinal: boolean;
   finalFileName: string | null;
+  /** The sitter changed the note after the final was sent back. */
+  noteChangedSinceFinal: boolean;
+  /** The note the final was made with (when there is a final). */
+  noteAtFinal: string | null;
   pickedAt: string;
 }
 

@@ -104,6 +104,21 @@ describe('proofs and the retouch queue', () => {
     await page.getByText(`${edited}: stored beside the original`).waitFor({ timeout: 30_000 });
     await table.getByText('Done').waitFor();
     await table.getByRole('link', { name: `Final: ${edited}` }).waitFor();
+
+    // The sitter changes the note afterwards: the queue says so and offers the pick again.
+    await env.testApp.db
+      .updateTable('picks')
+      .set({ note: 'And the collar, please' })
+      .where('personId', '=', ready.sitters[0]!.id)
+      .execute();
+    await page.reload();
+    await table
+      .getByText(
+        'The note changed after the final was sent; the final was made for “A stray hair over the ear”.',
+      )
+      .waitFor();
+    await table.getByRole('button', { name: 'Take it again' }).click();
+    await table.getByText('with you').waitFor();
     await context.close();
   });
 });

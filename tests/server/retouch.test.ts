@@ -238,6 +238,57 @@ describe('the retouch queue', () => {
     await studio.get(`/api/picks/${back[0]!.id}/final`).expect(200);
   });
 
+  it('says when the note changed after the final was sent, takes the pick again, and a new final settles it', async () => {
+    const done = (await queue()).rows.find((row) => row.hasFinal)!;
+    const pick = await t.db
+      .selectFrom('picks')
+      .where('id', '=', done.pickId)
+      .select(['dayId', 'personId', 'frameId', 'note'])
+      .executeTakeFirstOrThrow();
+    const withNote = (note: string | null) =>
+      t.db.transaction().execute((trx) =>
+        replacePicks(trx, {
+          dayId: pick.dayId,
+          personId: pick.personId,
+          chosenBy: 'sitter',
+          chosenByUserId: null,
+          picks: [{ id: randomUUID(), frameId: pick.frameId, note }],
+        }),
+      );
+    const rowNow = async () =>
+      (await queue()).rows.find((row) => row.pickId === done.pickId) as Row & {
+        noteChangedSinceFinal: boolean;
+        noteAtFinal: string | null;
+      };
+    // The same words again are no change.
+    await withNote(pick.note);
+    expect(await rowNow()).toMatchObject({ noteChangedSinceFinal: false });
+
+    await withNote('Please also soften the collar shadow');
+    expect(await rowNow()).toMatchObject({
+      status: 'done',
+      note: 'Please also soften the collar shadow',
+      noteChangedSinceFinal: true,
+      noteAtFinal: pick.note,
+    });
+    await studio
+      .patch(`/api/picks/${done.pickId}`)
+      .send({ status: 'in_progress', takenByMe: true })
+      .expect(200);
+    expect(await rowNow()).toMatchObject({ status: 'in_progress', takenByMe: true });
+    const again = await sendFinal(
+      done.pickId,
+      done.fileName.replace('.JPG', '-collar.jpg'),
+      await cameraJpeg({ width: 800, height: 600, shade: 180 }),
+    );
+    expect(again.status).toBe(204);
+    expect(await rowNow()).toMatchObject({
+      status: 'done',
+      noteChangedSinceFinal: false,
+      noteAtFinal: 'Please also soften the collar shadow',
+    });
+  });
+
   it('refuses a non-image or a huge image as a final, and changes nothing', async () => {
     const [, row] = (await queue('?status=to_do')).rows;
     const png = await sendFinal(row!.pickId, 'HPE_0999.png', await pngImage());

@@ -124,9 +124,10 @@ export async function replacePicks(
   // The finals of picks let go are set aside: choosing the same frame again brings them back.
   await sql`
     insert into set_aside_finals (day_id, person_id, frame_id, final_key, final_file_name,
-      final_byte_size, final_uploaded_at, final_uploaded_by_user_id, retouch_user_id)
+      final_byte_size, final_uploaded_at, final_uploaded_by_user_id, retouch_user_id,
+      note_at_final)
     select day_id, person_id, frame_id, final_key, final_file_name, final_byte_size,
-           final_uploaded_at, final_uploaded_by_user_id, retouch_user_id
+           final_uploaded_at, final_uploaded_by_user_id, retouch_user_id, note_at_final
     from picks
     where day_id = ${input.dayId}::uuid and person_id = ${input.personId}::uuid
       and final_key is not null and not (frame_id = any(${keep}::uuid[]))
@@ -134,7 +135,8 @@ export async function replacePicks(
       final_key = excluded.final_key, final_file_name = excluded.final_file_name,
       final_byte_size = excluded.final_byte_size, final_uploaded_at = excluded.final_uploaded_at,
       final_uploaded_by_user_id = excluded.final_uploaded_by_user_id,
-      retouch_user_id = excluded.retouch_user_id, set_aside_at = now()`.execute(trx);
+      retouch_user_id = excluded.retouch_user_id, note_at_final = excluded.note_at_final,
+      set_aside_at = now()`.execute(trx);
   let removal = trx
     .deleteFrom('picks')
     .where('dayId', '=', input.dayId)
@@ -178,7 +180,8 @@ export async function replacePicks(
       final_key = r.final_key, final_file_name = r.final_file_name,
       final_byte_size = r.final_byte_size, final_uploaded_at = r.final_uploaded_at,
       final_uploaded_by_user_id = r.final_uploaded_by_user_id,
-      retouch_user_id = r.retouch_user_id, retouch_status = 'done', updated_at = now()
+      retouch_user_id = r.retouch_user_id, note_at_final = r.note_at_final,
+      retouch_status = 'done', updated_at = now()
     from restored r
     where p.day_id = r.day_id and p.person_id = r.person_id and p.frame_id = r.frame_id`.execute(
     trx,

@@ -62,6 +62,7 @@ export async function retouchPage(
         'picks.retouchUserId',
         'picks.finalKey',
         'picks.finalFileName',
+        'picks.noteAtFinal',
         'picks.updatedAt',
         sql<boolean>`coalesce((select b.flash_sensitive from bookings b where b.day_id = picks.day_id and b.person_id = picks.person_id and b.status = 'active' limit 1), false)`.as(
           'flashSensitive',
@@ -97,6 +98,9 @@ export async function retouchPage(
       takenByMe: row.retouchUserId === viewerId,
       hasFinal: row.finalKey !== null,
       finalFileName: row.finalFileName,
+      // Null and '' are both "no note": only a real change of words counts.
+      noteChangedSinceFinal: row.finalKey !== null && (row.note ?? '') !== (row.noteAtFinal ?? ''),
+      noteAtFinal: row.finalKey !== null ? row.noteAtFinal : null,
       pickedAt: row.updatedAt.toISOString(),
     })),
     total: Number(count.total),
@@ -174,6 +178,8 @@ export async function saveFinal(
       finalByteSize: String(final.byteSize),
       finalUploadedAt: sql`now()`,
       finalUploadedByUserId: final.userId,
+      // The final answers the note as it stands now: a later change of it is shown.
+      noteAtFinal: sql`note`,
       retouchStatus: 'done',
       updatedAt: sql`now()`,
     })

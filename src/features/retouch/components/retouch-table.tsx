@@ -93,6 +93,13 @@ export function RetouchTable({
         cell: ({ row }) => (
           <div className="flex max-w-64 flex-col gap-1">
             {row.original.note ? <span>“{row.original.note}”</span> : null}
+            {row.original.noteChangedSinceFinal ? (
+              // The final may not do what the note now asks: say so, with what it was made for.
+              <span className="font-medium text-caution-600">
+                The note changed after the final was sent; the final was made{' '}
+                {row.original.noteAtFinal ? `for “${row.original.noteAtFinal}”` : 'with no note'}.
+              </span>
+            ) : null}
             {row.original.glasses ? <span className="text-ink-muted">Wears glasses</span> : null}
             {row.original.flashSensitive ? (
               <span className="font-medium text-danger-700">{NO_FLASH_WORDING}</span>
@@ -127,30 +134,35 @@ export function RetouchTable({
         id: 'actions',
         header: 'Change',
         enableSorting: false,
-        cell: ({ row }) =>
-          row.original.status === 'done' ? null : row.original.takenByMe ? (
+        cell: ({ row }) => {
+          const pick = row.original;
+          const done = pick.status === 'done';
+          // A done pick is finished, unless its note changed after the final: then it can be
+          // taken again for another look.
+          if (done && !pick.noteChangedSinceFinal) return null;
+          if (pick.takenByMe && !done) {
+            return (
+              <Button
+                variant="secondary"
+                onClick={() =>
+                  update.mutate({ pickId: pick.pickId, takenByMe: false, status: 'to_do' })
+                }
+              >
+                Let it go
+              </Button>
+            );
+          }
+          return (
             <Button
               variant="secondary"
               onClick={() =>
-                update.mutate({ pickId: row.original.pickId, takenByMe: false, status: 'to_do' })
+                update.mutate({ pickId: pick.pickId, status: 'in_progress', takenByMe: true })
               }
             >
-              Let it go
+              {done ? 'Take it again' : 'Take it'}
             </Button>
-          ) : (
-            <Button
-              variant="secondary"
-              onClick={() =>
-                update.mutate({
-                  pickId: row.original.pickId,
-                  status: 'in_progress',
-                  takenByMe: true,
-                })
-              }
-            >
-              Take it
-            </Button>
-          ),
+          );
+        },
       },
     ],
     [update],
