@@ -79,12 +79,7 @@ export function MailingPanel({ dayId, confirmed }: { dayId: string; confirmed: b
           <label htmlFor={`${dayId}-sending`} className="text-sm font-medium">
             Sending: {done} of {total} handled ({counts.sent} sent, {counts.failed} failed)
           </label>
-          <progress
-            id={`${dayId}-sending`}
-            max={total}
-            value={done}
-            className="h-3 w-full"
-          />
+          <progress id={`${dayId}-sending`} max={total} value={done} className="h-3 w-full" />
         </div>
       ) : (
         <p className="text-ink-muted">
