@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
@@ -279,6 +280,56 @@ describe('the delivery set', () => {
         .where('dayId', '=', ready.day.dayId)
         .execute(),
     ).toHaveLength(3);
+  });
+
+  it('lists on missing.csv a sitter in the set whose later choice is not released yet', async () => {
+    const sitter = ready.sitters[0]!;
+    const frame = await t.db
+      .selectFrom('frames')
+      .where('dayId', '=', ready.day.dayId)
+      .where('slateToken', 'is', null)
+      .where('id', 'not in', t.db.selectFrom('picks').select('frameId'))
+      .select('id')
+      .executeTakeFirstOrThrow();
+    const later = await t.db
+      .insertInto('picks')
+      .values({
+        id: randomUUID(),
+        dayId: ready.day.dayId,
+        personId: sitter.id,
+        frameId: frame.id,
+        chosenBy: 'sitter',
+        position: 2,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    try {
+      const zip = await coordinator
+        .get(`/api/days/${ready.day.dayId}/delivery.zip`)
+        .buffer(true)
+        .parse(binaryBody)
+        .expect(200);
+      const folder = mkdtempSync(path.join(os.tmpdir(), 'likeness-set-'));
+      try {
+        const file = path.join(folder, 'set.zip');
+        writeFileSync(file, zip.body as Buffer);
+        // Read back by Info-ZIP's unzip, an independent reader.
+        const missing = execFileSync('unzip', ['-p', file, 'missing.csv'], { encoding: 'utf8' });
+        const person = await t.db
+          .selectFrom('people')
+          .select(['givenName', 'familyName'])
+          .where('id', '=', sitter.id)
+          .executeTakeFirstOrThrow();
+        const line = missing.split('\r\n').find((each) => each.includes(person.familyName));
+        expect(line).toContain(person.givenName);
+        // The reason holds a comma, so RFC 4180 quotes it.
+        expect(line).toMatch(/,"In the set, but 1 of 2 chosen portraits is not released yet"$/);
+      } finally {
+        rmSync(folder, { recursive: true, force: true });
+      }
+    } finally {
+      await t.db.deleteFrom('picks').where('id', '=', later.id).execute();
+    }
   });
 
   it('keeps the set from those who may not have it', async () => {

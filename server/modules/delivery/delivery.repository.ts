@@ -161,16 +161,20 @@ export async function expectedPeople(db: Executor, day: DayRecord) {
     .select('people.id')
     .distinct()
     .execute();
-  const picked = await db
+  const picks = await db
     .selectFrom('picks')
     .where('dayId', '=', day.id)
-    .select('personId')
-    .distinct()
+    .select(['id', 'personId'])
     .execute();
+  const picksOf = new Map<string, string[]>();
+  for (const pick of picks)
+    picksOf.set(pick.personId, [...(picksOf.get(pick.personId) ?? []), pick.id]);
   return {
     invitedIds: invited.map((person) => person.id),
     photographed: new Set(photographed.map((row) => row.id)),
-    picked: new Set(picked.map((row) => row.personId)),
+    picked: new Set(picksOf.keys()),
+    /** Each person's picks now, to find who has only some of them in the set. */
+    picksOf,
   };
 }
 

@@ -345,7 +345,19 @@ export function createDeliveryService(deps: { db: Db; clock: Clock; storage: Obj
         (!filter.department || person.department === filter.department),
     );
     const manifest = manifestCsv(set);
-    const missingCsv = missingListCsv(missing, expected);
+    const picksInSet = new Set(set.map((row) => row.pickId));
+    const partlyIds = [...delivered].filter((personId) =>
+      (expected.picksOf.get(personId) ?? []).some((pickId) => !picksInSet.has(pickId)),
+    );
+    const partly = (await repo.peopleByIds(db, partlyIds)).map((person) => {
+      const chosen = expected.picksOf.get(person.id) ?? [];
+      return {
+        person,
+        chosen: chosen.length,
+        waiting: chosen.filter((pickId) => !picksInSet.has(pickId)).length,
+      };
+    });
+    const missingCsv = missingListCsv(missing, expected, partly);
     await streamZip(
       out,
       [
